@@ -1,0 +1,164 @@
+// Package sdk is the rig plugin contract of rigmix: the Rig interface a rig
+// implements, the plain data it exchanges with the host, the go-plugin
+// handshake and plugin map, the gRPC shims and a Serve helper.
+//
+// A rig knows physics and logistics — which methods it performs and to what
+// depth, whether it can reach a point, the hours spent there and the
+// quantities of work that produces. It knows nothing of money: the host
+// prices quantities from a rate book.
+package sdk
+
+import "context"
+
+// Method names an exploration method. The values are the strings used in
+// scenario files and in plan output.
+type Method string
+
+const (
+	// Boring is a drilled soil boring with split-barrel sampling and the
+	// Standard Penetration Test (ASTM D1586).
+	Boring Method = "boring"
+	// CPT is a cone penetration test sounding (ASTM D5778).
+	CPT Method = "cpt"
+	// TestPit is an excavated test pit.
+	TestPit Method = "test_pit"
+	// Probe is a hand probe or dynamic cone penetrometer test (ASTM D6951).
+	Probe Method = "probe"
+)
+
+// Sampled reports whether the method recovers soil samples for the
+// laboratory (and so counts toward a rule's share of sampled points).
+func (m Method) Sampled() bool { return m == Boring || m == TestPit }
+
+// Surface is the condition of the ground a rig must travel and set up on.
+type Surface string
+
+const (
+	Firm Surface = "firm"
+	Wet  Surface = "wet"
+	Soft Surface = "soft"
+)
+
+// Rig is what every rig plugin implements. Each call carries the caller's
+// context; a rig must answer a whole batch in one call.
+type Rig interface {
+	// Describe tells what the rig is and what it can do.
+	Describe(ctx context.Context) (RigInfo, error)
+	// Assess answers, for each requested exploration point, whether the
+	// rig can do it and if so the hours and quantities it takes. Answers
+	// come back in request order, one per request.
+	Assess(ctx context.Context, req AssessRequest) (AssessResponse, error)
+	// Mobilize answers the hours and quantities to bring the rig from its
+	// yard to the site and back.
+	Mobilize(ctx context.Context, req MobilizeRequest) (MobilizeResponse, error)
+	// Moves answers the hours to move between points on site, one answer
+	// per leg, in request order.
+	Moves(ctx context.Context, req MovesRequest) (MovesResponse, error)
+}
+
+// MethodLimit is one method a rig performs and the deepest it reaches.
+type MethodLimit struct {
+	Method     Method
+	MaxDepthFt float64
+}
+
+// AccessLimits are the site conditions a rig can work in.
+type AccessLimits struct {
+	Surfaces      []Surface // ground surfaces it can travel and set up on
+	MaxSlopePct   float64   // steepest ground slope, percent
+	MinOverheadFt float64   // overhead clearance it needs (mast or boom height)
+}
+
+// RigInfo describes a rig.
+type RigInfo struct {
+	Name    string // short identifier, e.g. "track-drill"
+	Title   string // a line for people, e.g. "Track-mounted drill rig"
+	Methods []MethodLimit
+	Access  AccessLimits
+	// DayItems are quantities incurred per field day the rig is on site
+	// (for example crew per diem); the host multiplies by days.
+	DayItems []Quantity
+	// StandbyItem is the rate-book item for an hour of standby, if any.
+	StandbyItem string
+	// Basis says where the rig's numbers come from.
+	Basis string
+}
+
+// Site is one exploration point put to a rig: where, what and how deep.
+type Site struct {
+	ID               string
+	Method           Method
+	DepthFt          float64
+	SampleIntervalFt float64 // 0: the rig's default
+	Surface          Surface
+	SlopePct         float64
+	OverheadFt       float64 // clearance above the point; 0 means none limiting
+	GroundwaterFt    float64 // depth to groundwater; 0 means unknown
+	RockFt           float64 // depth to rock; 0 means unknown or none
+	Environmental    bool    // soil and water brought up are investigation-derived waste
+}
+
+// AssessRequest is a batch of sites.
+type AssessRequest struct {
+	Sites []Site
+}
+
+// Hours breaks down the time a rig spends on one point.
+type Hours struct {
+	Setup, Advance, Sampling, Grouting, Teardown float64
+}
+
+// Total is the sum of the parts.
+func (h Hours) Total() float64 {
+	return h.Setup + h.Advance + h.Sampling + h.Grouting + h.Teardown
+}
+
+// Quantity is an amount of one rate-book item.
+type Quantity struct {
+	Item   string  // rate-book item code, e.g. "drill-0-50ft"
+	Unit   string  // unit of measure, e.g. "ft", "each", "hr"
+	Amount float64 // how many units
+	Note   string  // optional explanation for the estimate line
+}
+
+// Answer is a rig's answer for one site.
+type Answer struct {
+	ID         string
+	Feasible   bool
+	Reason     string // why not, when not feasible
+	Hours      Hours
+	Quantities []Quantity
+}
+
+// AssessResponse holds one answer per requested site, in order.
+type AssessResponse struct {
+	Answers []Answer
+}
+
+// MobilizeRequest asks for mobilization over a one-way distance.
+type MobilizeRequest struct {
+	DistanceMi float64
+}
+
+// MobilizeResponse covers mobilization and demobilization together.
+type MobilizeResponse struct {
+	Hours      float64
+	Quantities []Quantity
+}
+
+// MoveLeg is one move between points on site.
+type MoveLeg struct {
+	DistanceFt float64
+	Surface    Surface
+	SlopePct   float64
+}
+
+// MovesRequest is a batch of legs.
+type MovesRequest struct {
+	Legs []MoveLeg
+}
+
+// MovesResponse holds the hours for each leg, in order.
+type MovesResponse struct {
+	Hours []float64
+}

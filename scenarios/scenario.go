@@ -1,0 +1,115 @@
+// Package scenarios loads, validates and embeds rigmix scenario files: a
+// site, its zones with their use and ground, no-go areas, the exploration
+// rules per zone, the rigs offered and the rate book to price with.
+//
+// All lengths in a loaded Scenario are in feet and all areas in square feet,
+// whatever unit the file was written in; names carry the unit.
+package scenarios
+
+import (
+	"github.com/rigmix/rigmix/optimizer/geom"
+	"github.com/rigmix/rigmix/plugins/sdk"
+)
+
+// Scenario is a loaded and validated scenario.
+type Scenario struct {
+	Name        string // short identifier
+	Title       string // a line for people
+	Description string
+	Demo        bool   // invented demo data
+	Source      string // file it came from, or "demo:NAME"
+	Units       string // unit the file was written in: "ft" or "m"
+
+	// Origin anchors the local frame (0,0) to WGS 84 for GeoJSON in and out;
+	// nil when the scenario gives none.
+	Origin *LonLat
+
+	Boundary geom.Polygon // site boundary, ft
+	Zones    []Zone
+	NoGo     []NoGo
+
+	Rigs       []string // rig names offered (built-in or plugin)
+	RateBook   string   // demo rate-book name or file path (relative to the scenario file)
+	YardMiles  float64  // one-way distance from the rig yard, miles
+	HoursDay   float64  // working hours per field day
+	GapRel     float64  // relative optimality gap the solve stops at
+	TimeLimitS float64  // solve time limit, seconds (0: none)
+}
+
+// LonLat is a WGS 84 position in degrees.
+type LonLat struct {
+	Lon, Lat float64
+}
+
+// Use is what a zone is for.
+type Use string
+
+const (
+	UseStructure     Use = "structure"
+	UsePavement      Use = "pavement"
+	UseSlope         Use = "slope"
+	UseFill          Use = "fill"
+	UseEnvironmental Use = "environmental"
+	UseOpen          Use = "open"
+)
+
+// Zone is an area of the site with one use, one kind of ground and one set
+// of rules.
+type Zone struct {
+	ID       string
+	Name     string
+	Use      Use
+	Polygon  geom.Polygon // ft
+	Priority float64      // weight of its area in coverage measures (default 1)
+
+	Structure *Structure // for UseStructure; nil otherwise
+	Ground    Ground
+	Rules     Rules
+}
+
+// Structure describes a planned building or other structure.
+type Structure struct {
+	Stories   int
+	LoadClass string // "light" or "heavy"
+}
+
+// Ground is what a rig meets at a zone.
+type Ground struct {
+	Surface       sdk.Surface
+	SlopePct      float64
+	GroundwaterFt float64 // depth to groundwater; 0 unknown
+	RockFt        float64 // depth to rock; 0 unknown
+	OverheadFt    float64 // overhead clearance; 0 none limiting
+}
+
+// Lattice is the pattern candidate points are laid on.
+type Lattice string
+
+const (
+	Square     Lattice = "square"
+	Triangular Lattice = "triangular"
+)
+
+// Rules are the exploration rules a zone must meet. A zero value means the
+// rule does not apply.
+type Rules struct {
+	AreaPerPointFt2  float64      // at least one point per this many ft²
+	MaxSpacingFt     float64      // every spot within the lattice covering radius of a point
+	Lattice          Lattice      // pattern the spacing rule refers to (default triangular)
+	MinPoints        int          // at least this many points
+	MinDepthFt       float64      // every point at least this deep
+	SampledShare     float64      // at least this share of points recovers samples (0..1)
+	Methods          []sdk.Method // methods allowed (empty: all)
+	SampleIntervalFt float64      // sampling interval in borings (0: rig default)
+	Corners          bool         // a point is required at each polygon corner
+	RequiredPoints   []geom.Point // points that must be explored
+	Source           string       // where the rule numbers come from
+}
+
+// NoGo is an area where no point may be placed (utilities, existing
+// structures, protected trees, ...).
+type NoGo struct {
+	ID      string
+	Reason  string
+	Polygon geom.Polygon // ft
+}
