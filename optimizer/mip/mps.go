@@ -1,0 +1,696 @@
+package mip
+
+import (
+	"bufio"
+	"fmt"
+	"io"
+	"math"
+	"sort"
+	"strconv"
+	"strings"
+	"unicode"
+)
+
+// ReadMPS reads a linear or mixed-integer program in free MPS format, the
+// column-oriented format introduced with IBM's MPS/360 and documented for
+// free (whitespace-separated) form in the CPLEX and GLPK manuals (GLPK
+// reference manual, appendix "MPS format"). Supported sections: NAME,
+// OBJSENSE (MIN or MAX, on the same or the next line), ROWS (N, L, G, E),
+// COLUMNS with MARKER INTORG/INTEND blocks, RHS, RANGES, BOUNDS (UP, LO, FX,
+// FR, MI, PL, BV, LI, UI) and ENDATA. Lines starting with '*' are comments.
+//
+// Conventions, as in CPLEX, CBC and GLPK:
+//   - the first N row is the objective; a right-hand side given for it is
+//     the objective constant with opposite sign (ObjOffset = -rhs); further
+//     N rows are kept as free rows (both bounds infinite) so that a
+//     problem written by WriteMPS reads back with the same rows;
+//   - a column has bounds [0, +∞) unless BOUNDS says otherwise, integer
+//     columns from MARKER blocks too; UP with a negative value on a column
+//     whose lower bound is still the default 0 makes the lower bound -∞;
+//   - RANGES R on an E row gives [rhs, rhs+|R|] when R > 0 and [rhs+R, rhs]
+//     when R < 0; on an L row [rhs-|R|, rhs]; on a G row [rhs, rhs+|R|].
+//
+// The result always minimizes: with OBJSENSE MAX the objective and its
+// constant are negated, so the optimal value read back is the negative of
+// the maximum. Errors name the line number and what is wrong.
+func ReadMPS(r io.Reader) (*Problem, error) {
+	rd := &mpsReader{
+		rowIndex: map[string]int{},
+		colIndex: map[string]int{},
+		objRow:   -1,
+	}
+	if err := rd.read(r); err != nil {
+		return nil, err
+	}
+	return rd.problem()
+}
+
+type mpsCol struct {
+	name    string
+	integer bool
+	obj     float64
+	rows    []int
+	vals    []float64
+	lo, up  float64
+	loSet   bool
+	upSet   bool
+}
+
+type mpsReader struct {
+	name     string
+	maximize bool
+
+	objName  string
+	objRow   int // -1 until the first N row; objective is not in rowNames
+	rowNames []string
+	rowType  []byte
+	rowIndex map[string]int // name → row (objective: -2)
+	rhs      []float64
+	rng      []float64
+	rngSet   []bool
+	objRHS   float64
+
+	cols     []*mpsCol
+	colIndex map[string]int
+	// entries seen per column, to reject a row given twice for one column
+	seen map[[2]int]bool
+
+	inInt   bool
+	ended   bool
+	section string
+	line    int
+}
+
+func (rd *mpsReader) errf(format string, args ...any) error {
+	return fmt.Errorf("mip: MPS line %d: %s", rd.line, fmt.Sprintf(format, args...))
+}
+
+func (rd *mpsReader) read(r io.Reader) error {
+	sc := bufio.NewScanner(r)
+	sc.Buffer(make([]byte, 0, 64*1024), 16*1024*1024)
+	rd.seen = map[[2]int]bool{}
+	for sc.Scan() {
+		rd.line++
+		raw := sc.Text()
+		if rd.ended {
+			if strings.TrimSpace(raw) != "" {
+				return rd.errf("text after ENDATA")
+			}
+			continue
+		}
+		if len(raw) == 0 || raw[0] == '*' {
+			continue
+		}
+		fields := strings.Fields(raw)
+		if len(fields) == 0 {
+			continue
+		}
+		if !unicode.IsSpace(rune(raw[0])) {
+			// A section header starts in the first column.
+			if err := rd.header(fields); err != nil {
+				return err
+			}
+			continue
+		}
+		if err := rd.data(fields); err != nil {
+			return err
+		}
+	}
+	if err := sc.Err(); err != nil {
+		return fmt.Errorf("mip: MPS line %d: %w", rd.line+1, err)
+	}
+	if !rd.ended {
+		return fmt.Errorf("mip: MPS: no ENDATA line at the end (read %d lines)", rd.line)
+	}
+	return nil
+}
+
+func (rd *mpsReader) header(f []string) error {
+	key := strings.ToUpper(f[0])
+	switch key {
+	case "NAME":
+		if len(f) > 1 {
+			rd.name = strings.Join(f[1:], " ")
+		}
+	case "OBJSENSE":
+		if len(f) > 1 {
+			return rd.sense(f[1])
+		}
+	case "ROWS", "COLUMNS", "RHS", "RANGES", "BOUNDS":
+		if len(f) > 1 {
+			return rd.errf("section header %s takes no arguments, got %q", key, strings.Join(f[1:], " "))
+		}
+	case "ENDATA":
+		rd.ended = true
+	case "OBJSENSE:", "SOS", "QUADOBJ", "QMATRIX", "QSECTION", "QCMATRIX", "INDICATORS", "OBJNAME":
+		return rd.errf("section %s is not supported", key)
+	default:
+		return rd.errf("unknown section header %q (want NAME, OBJSENSE, ROWS, COLUMNS, RHS, RANGES, BOUNDS or ENDATA; data lines must start with a space)", f[0])
+	}
+	if key == "COLUMNS" && rd.objRow < 0 && rd.objName == "" {
+		return rd.errf("COLUMNS before any N (objective) row in ROWS")
+	}
+	rd.section = key
+	return nil
+}
+
+func (rd *mpsReader) sense(s string) error {
+	switch strings.ToUpper(s) {
+	case "MAX", "MAXIMIZE":
+		rd.maximize = true
+	case "MIN", "MINIMIZE":
+		rd.maximize = false
+	default:
+		return rd.errf("OBJSENSE %q: want MAX or MIN", s)
+	}
+	return nil
+}
+
+func (rd *mpsReader) number(s, what string) (float64, error) {
+	v, err := strconv.ParseFloat(s, 64)
+	if err != nil || math.IsNaN(v) {
+		return 0, rd.errf("%s %q is not a number", what, s)
+	}
+	return v, nil
+}
+
+func (rd *mpsReader) data(f []string) error {
+	switch rd.section {
+	case "OBJSENSE":
+		return rd.sense(f[0])
+	case "ROWS":
+		return rd.rowLine(f)
+	case "COLUMNS":
+		return rd.columnLine(f)
+	case "RHS":
+		return rd.pairs(f, "RHS", rd.setRHS)
+	case "RANGES":
+		return rd.pairs(f, "RANGES", rd.setRange)
+	case "BOUNDS":
+		return rd.boundLine(f)
+	case "":
+		return rd.errf("data line before any section header")
+	}
+	return rd.errf("data line in section %s", rd.section)
+}
+
+func (rd *mpsReader) rowLine(f []string) error {
+	if len(f) != 2 {
+		return rd.errf("ROWS line wants a type and a name, got %d fields", len(f))
+	}
+	t := strings.ToUpper(f[0])
+	name := f[1]
+	if _, dup := rd.rowIndex[name]; dup || name == rd.objName {
+		return rd.errf("row %q is defined twice", name)
+	}
+	switch t {
+	case "N":
+		if rd.objName == "" {
+			rd.objName = name
+			rd.rowIndex[name] = -2
+			rd.objRow = 0
+			return nil
+		}
+	case "L", "G", "E":
+	default:
+		return rd.errf("row %q has type %q; want N, L, G or E", name, f[0])
+	}
+	rd.rowIndex[name] = len(rd.rowNames)
+	rd.rowNames = append(rd.rowNames, name)
+	rd.rowType = append(rd.rowType, t[0])
+	rd.rhs = append(rd.rhs, 0)
+	rd.rng = append(rd.rng, 0)
+	rd.rngSet = append(rd.rngSet, false)
+	return nil
+}
+
+func (rd *mpsReader) columnLine(f []string) error {
+	if len(f) == 3 && strings.EqualFold(f[1], "'MARKER'") {
+		switch strings.ToUpper(f[2]) {
+		case "'INTORG'":
+			rd.inInt = true
+		case "'INTEND'":
+			rd.inInt = false
+		default:
+			return rd.errf("MARKER %q: want 'INTORG' or 'INTEND'", f[2])
+		}
+		return nil
+	}
+	if len(f) != 3 && len(f) != 5 {
+		return rd.errf("COLUMNS line wants column, row, value [, row, value], got %d fields", len(f))
+	}
+	name := f[0]
+	j, ok := rd.colIndex[name]
+	if !ok {
+		j = len(rd.cols)
+		rd.colIndex[name] = j
+		rd.cols = append(rd.cols, &mpsCol{name: name, integer: rd.inInt, up: math.Inf(1)})
+	} else if j != len(rd.cols)-1 {
+		return rd.errf("column %q appears again after other columns; its entries must be contiguous", name)
+	}
+	c := rd.cols[j]
+	for k := 1; k+1 < len(f); k += 2 {
+		i, ok := rd.rowIndex[f[k]]
+		if !ok {
+			return rd.errf("column %q names row %q, which ROWS does not define", name, f[k])
+		}
+		v, err := rd.number(f[k+1], fmt.Sprintf("coefficient of column %q in row %q", name, f[k]))
+		if err != nil {
+			return err
+		}
+		if math.IsInf(v, 0) {
+			return rd.errf("coefficient of column %q in row %q is infinite", name, f[k])
+		}
+		key := [2]int{j, i}
+		if rd.seen[key] {
+			return rd.errf("column %q has row %q twice", name, f[k])
+		}
+		rd.seen[key] = true
+		if i == -2 {
+			c.obj = v
+			continue
+		}
+		c.rows = append(c.rows, i)
+		c.vals = append(c.vals, v)
+	}
+	return nil
+}
+
+// pairs handles "[setname] row value [row value]" lines of RHS and RANGES;
+// the set name is optional in free MPS.
+func (rd *mpsReader) pairs(f []string, sec string, set func(row string, v float64) error) error {
+	switch len(f) {
+	case 2, 4:
+	case 3, 5:
+		f = f[1:]
+	default:
+		return rd.errf("%s line wants [set] row value [row value], got %d fields", sec, len(f))
+	}
+	for k := 0; k+1 < len(f); k += 2 {
+		v, err := rd.number(f[k+1], fmt.Sprintf("%s value for row %q", sec, f[k]))
+		if err != nil {
+			return err
+		}
+		if math.IsInf(v, 0) {
+			return rd.errf("%s value for row %q is infinite", sec, f[k])
+		}
+		if err := set(f[k], v); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+func (rd *mpsReader) setRHS(row string, v float64) error {
+	i, ok := rd.rowIndex[row]
+	if !ok {
+		return rd.errf("RHS names row %q, which ROWS does not define", row)
+	}
+	if i == -2 {
+		rd.objRHS = v
+		return nil
+	}
+	rd.rhs[i] = v
+	return nil
+}
+
+func (rd *mpsReader) setRange(row string, v float64) error {
+	i, ok := rd.rowIndex[row]
+	if !ok {
+		return rd.errf("RANGES names row %q, which ROWS does not define", row)
+	}
+	if i == -2 || rd.rowType[i] == 'N' {
+		return rd.errf("RANGES on the free row %q", row)
+	}
+	rd.rng[i] = v
+	rd.rngSet[i] = true
+	return nil
+}
+
+func (rd *mpsReader) boundLine(f []string) error {
+	t := strings.ToUpper(f[0])
+	needValue := true
+	switch t {
+	case "FR", "MI", "PL", "BV":
+		needValue = false
+	case "UP", "LO", "FX", "LI", "UI":
+	default:
+		return rd.errf("bound type %q; want UP, LO, FX, FR, MI, PL, BV, LI or UI", f[0])
+	}
+	// Forms: type [set] column [value]
+	var colName, valStr string
+	switch {
+	case needValue && len(f) == 4:
+		colName, valStr = f[2], f[3]
+	case needValue && len(f) == 3:
+		colName, valStr = f[1], f[2]
+	case !needValue && (len(f) == 3 || len(f) == 4):
+		// A value after FR/MI/PL/BV is tolerated and ignored, as CBC does.
+		colName = f[2]
+		if len(f) == 3 {
+			if _, ok := rd.colIndex[f[2]]; !ok {
+				if _, ok := rd.colIndex[f[1]]; ok {
+					colName = f[1]
+				}
+			}
+		}
+	case !needValue && len(f) == 2:
+		colName = f[1]
+	default:
+		return rd.errf("BOUNDS %s line has %d fields; want type [set] column%s", t, len(f), map[bool]string{true: " value", false: ""}[needValue])
+	}
+	j, ok := rd.colIndex[colName]
+	if !ok {
+		return rd.errf("BOUNDS names column %q, which COLUMNS does not define", colName)
+	}
+	c := rd.cols[j]
+	var v float64
+	if needValue {
+		var err error
+		v, err = rd.number(valStr, fmt.Sprintf("%s bound of column %q", t, colName))
+		if err != nil {
+			return err
+		}
+	}
+	switch t {
+	case "UP", "UI":
+		c.up, c.upSet = v, true
+		if v < 0 && !c.loSet && c.lo == 0 {
+			c.lo = math.Inf(-1)
+		}
+		if t == "UI" {
+			c.integer = true
+		}
+	case "LO", "LI":
+		c.lo, c.loSet = v, true
+		if t == "LI" {
+			c.integer = true
+		}
+	case "FX":
+		c.lo, c.up, c.loSet, c.upSet = v, v, true, true
+	case "FR":
+		c.lo, c.up, c.loSet, c.upSet = math.Inf(-1), math.Inf(1), true, true
+	case "MI":
+		c.lo, c.loSet = math.Inf(-1), true
+	case "PL":
+		c.up, c.upSet = math.Inf(1), true
+	case "BV":
+		c.lo, c.up, c.loSet, c.upSet, c.integer = 0, 1, true, true, true
+	}
+	if c.lo == math.Inf(1) || c.up == math.Inf(-1) {
+		return rd.errf("BOUNDS %s gives column %q an impossible infinite bound", t, colName)
+	}
+	return nil
+}
+
+func (rd *mpsReader) problem() (*Problem, error) {
+	if rd.objName == "" {
+		return nil, fmt.Errorf("mip: MPS: ROWS defines no N (objective) row")
+	}
+	m, n := len(rd.rowNames), len(rd.cols)
+	p := &Problem{Name: rd.name, ObjOffset: -rd.objRHS}
+	q := &p.LP
+	q.NumRows, q.NumCols = m, n
+	q.Obj = make([]float64, n)
+	q.ColLo = make([]float64, n)
+	q.ColUp = make([]float64, n)
+	q.RowLo = make([]float64, m)
+	q.RowUp = make([]float64, m)
+	q.ColStart = make([]int, n+1)
+	p.Integer = make([]bool, n)
+	p.ColNames = make([]string, n)
+	p.RowNames = append([]string(nil), rd.rowNames...)
+	for i := 0; i < m; i++ {
+		b, r := rd.rhs[i], rd.rng[i]
+		lo, up := math.Inf(-1), math.Inf(1)
+		switch rd.rowType[i] {
+		case 'L':
+			up = b
+			if rd.rngSet[i] {
+				lo = b - math.Abs(r)
+			}
+		case 'G':
+			lo = b
+			if rd.rngSet[i] {
+				up = b + math.Abs(r)
+			}
+		case 'E':
+			lo, up = b, b
+			if rd.rngSet[i] {
+				if r > 0 {
+					up = b + r
+				} else {
+					lo = b + r
+				}
+			}
+		}
+		q.RowLo[i], q.RowUp[i] = lo, up
+	}
+	for j, c := range rd.cols {
+		q.Obj[j] = c.obj
+		q.ColLo[j], q.ColUp[j] = c.lo, c.up
+		p.Integer[j] = c.integer
+		p.ColNames[j] = c.name
+		if c.lo > c.up {
+			return nil, fmt.Errorf("mip: MPS: column %q has lower bound %g above its upper bound %g", c.name, c.lo, c.up)
+		}
+		// Sort each column's entries by row for a canonical layout.
+		idx := make([]int, len(c.rows))
+		for k := range idx {
+			idx[k] = k
+		}
+		sort.Slice(idx, func(a, b int) bool { return c.rows[idx[a]] < c.rows[idx[b]] })
+		for _, k := range idx {
+			q.RowIndex = append(q.RowIndex, c.rows[k])
+			q.Value = append(q.Value, c.vals[k])
+		}
+		q.ColStart[j+1] = len(q.RowIndex)
+	}
+	if rd.maximize {
+		for j := range q.Obj {
+			q.Obj[j] = -q.Obj[j]
+		}
+		p.ObjOffset = -p.ObjOffset
+	}
+	return p, nil
+}
+
+// WriteMPS writes p in free MPS format that CBC and GLPK (glpsol
+// --freemps) read back. The output is deterministic. Bounds are always
+// written explicitly for integer columns (readers differ on the default
+// upper bound of a MARKER integer column). Names are taken from p when they
+// are all present, non-empty, free of white space and unique; otherwise
+// generated names C1..Cn and R1..Rm are used for all columns or rows.
+// ObjOffset is written as a right-hand side of the objective row with
+// opposite sign, the convention of CPLEX, CBC and GLPK.
+func WriteMPS(w io.Writer, p *Problem) error {
+	if err := p.Validate(); err != nil {
+		return err
+	}
+	q := &p.LP
+	colNames := mpsNames(p.ColNames, q.NumCols, "C")
+	rowNames := mpsNames(p.RowNames, q.NumRows, "R")
+	objName := "OBJ"
+	used := map[string]bool{}
+	for _, s := range rowNames {
+		used[s] = true
+	}
+	for k := 1; used[objName]; k++ {
+		objName = "OBJ" + strconv.Itoa(k)
+	}
+	name := strings.Join(strings.Fields(p.Name), "_")
+	if name == "" {
+		name = "rigmix"
+	}
+	bw := bufio.NewWriter(w)
+	num := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
+	fmt.Fprintf(bw, "NAME %s\nROWS\n N %s\n", name, objName)
+	for i := 0; i < q.NumRows; i++ {
+		lo, up := q.RowLo[i], q.RowUp[i]
+		t := "G"
+		switch {
+		case math.IsInf(lo, -1) && math.IsInf(up, 1):
+			t = "N"
+		case lo == up:
+			t = "E"
+		case math.IsInf(lo, -1):
+			t = "L"
+		}
+		fmt.Fprintf(bw, " %s %s\n", t, rowNames[i])
+	}
+	bw.WriteString("COLUMNS\n")
+	inInt := false
+	marker := 0
+	for j := 0; j < q.NumCols; j++ {
+		if p.Integer[j] != inInt {
+			if p.Integer[j] {
+				fmt.Fprintf(bw, " MARKER%d 'MARKER' 'INTORG'\n", marker)
+			} else {
+				fmt.Fprintf(bw, " MARKER%d 'MARKER' 'INTEND'\n", marker)
+			}
+			marker++
+			inInt = p.Integer[j]
+		}
+		if q.Obj[j] != 0 || q.ColStart[j] == q.ColStart[j+1] {
+			fmt.Fprintf(bw, " %s %s %s\n", colNames[j], objName, num(q.Obj[j]))
+		}
+		for k := q.ColStart[j]; k < q.ColStart[j+1]; k++ {
+			fmt.Fprintf(bw, " %s %s %s\n", colNames[j], rowNames[q.RowIndex[k]], num(q.Value[k]))
+		}
+	}
+	if inInt {
+		fmt.Fprintf(bw, " MARKER%d 'MARKER' 'INTEND'\n", marker)
+	}
+	bw.WriteString("RHS\n")
+	if p.ObjOffset != 0 {
+		fmt.Fprintf(bw, " RHS %s %s\n", objName, num(-p.ObjOffset))
+	}
+	for i := 0; i < q.NumRows; i++ {
+		lo, up := q.RowLo[i], q.RowUp[i]
+		var b float64
+		switch {
+		case math.IsInf(lo, -1) && math.IsInf(up, 1):
+			continue
+		case math.IsInf(lo, -1):
+			b = up
+		default:
+			b = lo
+		}
+		if b != 0 {
+			fmt.Fprintf(bw, " RHS %s %s\n", rowNames[i], num(b))
+		}
+	}
+	wroteRanges := false
+	for i := 0; i < q.NumRows; i++ {
+		lo, up := q.RowLo[i], q.RowUp[i]
+		if math.IsInf(lo, 0) || math.IsInf(up, 0) || lo == up {
+			continue
+		}
+		if !wroteRanges {
+			bw.WriteString("RANGES\n")
+			wroteRanges = true
+		}
+		fmt.Fprintf(bw, " RNG %s %s\n", rowNames[i], num(up-lo))
+	}
+	bw.WriteString("BOUNDS\n")
+	for j := 0; j < q.NumCols; j++ {
+		lo, up := q.ColLo[j], q.ColUp[j]
+		c := colNames[j]
+		switch {
+		case lo == up:
+			fmt.Fprintf(bw, " FX BND %s %s\n", c, num(lo))
+			continue
+		case math.IsInf(lo, -1) && math.IsInf(up, 1):
+			fmt.Fprintf(bw, " FR BND %s\n", c)
+			continue
+		}
+		if math.IsInf(lo, -1) {
+			fmt.Fprintf(bw, " MI BND %s\n", c)
+		} else if lo != 0 || p.Integer[j] {
+			fmt.Fprintf(bw, " LO BND %s %s\n", c, num(lo))
+		}
+		if !math.IsInf(up, 1) {
+			fmt.Fprintf(bw, " UP BND %s %s\n", c, num(up))
+		} else if p.Integer[j] {
+			fmt.Fprintf(bw, " PL BND %s\n", c)
+		}
+	}
+	bw.WriteString("ENDATA\n")
+	return bw.Flush()
+}
+
+// mpsNames returns names usable in free MPS: the given ones when all are
+// valid and unique, otherwise prefix1..prefixN.
+func mpsNames(given []string, n int, prefix string) []string {
+	ok := len(given) == n
+	seen := make(map[string]bool, n)
+	for _, s := range given {
+		if !ok {
+			break
+		}
+		if s == "" || strings.IndexFunc(s, unicode.IsSpace) >= 0 || s[0] == '*' || seen[s] || strings.EqualFold(s, "'MARKER'") {
+			ok = false
+		}
+		seen[s] = true
+	}
+	if ok {
+		return given
+	}
+	out := make([]string, n)
+	for i := range out {
+		out[i] = prefix + strconv.Itoa(i+1)
+	}
+	return out
+}
+
+// Validate checks that p is well formed: sizes agree, the column-wise
+// matrix is consistent, no value is NaN, bounds are ordered and not
+// infinite on the wrong side.
+func (p *Problem) Validate() error {
+	q := &p.LP
+	m, n := q.NumRows, q.NumCols
+	if m < 0 || n < 0 {
+		return fmt.Errorf("mip: problem size %d rows × %d columns is negative", m, n)
+	}
+	if len(q.Obj) != n || len(q.ColLo) != n || len(q.ColUp) != n {
+		return fmt.Errorf("mip: Obj, ColLo, ColUp have lengths %d, %d, %d; want NumCols = %d", len(q.Obj), len(q.ColLo), len(q.ColUp), n)
+	}
+	if len(q.RowLo) != m || len(q.RowUp) != m {
+		return fmt.Errorf("mip: RowLo, RowUp have lengths %d, %d; want NumRows = %d", len(q.RowLo), len(q.RowUp), m)
+	}
+	if len(p.Integer) != n {
+		return fmt.Errorf("mip: Integer has length %d; want NumCols = %d", len(p.Integer), n)
+	}
+	if p.ColNames != nil && len(p.ColNames) != n {
+		return fmt.Errorf("mip: ColNames has length %d; want nil or NumCols = %d", len(p.ColNames), n)
+	}
+	if p.RowNames != nil && len(p.RowNames) != m {
+		return fmt.Errorf("mip: RowNames has length %d; want nil or NumRows = %d", len(p.RowNames), m)
+	}
+	if len(q.ColStart) != n+1 || q.ColStart[0] != 0 {
+		return fmt.Errorf("mip: ColStart has length %d (want NumCols+1 = %d) or does not start at 0", len(q.ColStart), n+1)
+	}
+	nz := q.ColStart[n]
+	if len(q.RowIndex) != nz || len(q.Value) != nz {
+		return fmt.Errorf("mip: RowIndex and Value have lengths %d, %d; want ColStart[NumCols] = %d", len(q.RowIndex), len(q.Value), nz)
+	}
+	if math.IsNaN(p.ObjOffset) || math.IsInf(p.ObjOffset, 0) {
+		return fmt.Errorf("mip: ObjOffset is %g; want a finite number", p.ObjOffset)
+	}
+	mark := make([]int, m)
+	for i := range mark {
+		mark[i] = -1
+	}
+	for j := 0; j < n; j++ {
+		if q.ColStart[j+1] < q.ColStart[j] {
+			return fmt.Errorf("mip: ColStart decreases at column %d", j)
+		}
+		if c := q.Obj[j]; math.IsNaN(c) || math.IsInf(c, 0) {
+			return fmt.Errorf("mip: objective coefficient of column %d is %g; want a finite number", j, c)
+		}
+		lo, up := q.ColLo[j], q.ColUp[j]
+		if math.IsNaN(lo) || math.IsNaN(up) || lo > up || math.IsInf(lo, 1) || math.IsInf(up, -1) {
+			return fmt.Errorf("mip: column %d has bounds [%g, %g]; want lo ≤ up, lo < +∞, up > -∞", j, lo, up)
+		}
+		for k := q.ColStart[j]; k < q.ColStart[j+1]; k++ {
+			i := q.RowIndex[k]
+			if i < 0 || i >= m {
+				return fmt.Errorf("mip: column %d has row index %d outside 0..%d", j, i, m-1)
+			}
+			if mark[i] == j {
+				return fmt.Errorf("mip: column %d has row %d twice", j, i)
+			}
+			mark[i] = j
+			if v := q.Value[k]; math.IsNaN(v) || math.IsInf(v, 0) {
+				return fmt.Errorf("mip: coefficient of column %d in row %d is %g; want a finite number", j, i, v)
+			}
+		}
+	}
+	for i := 0; i < m; i++ {
+		lo, up := q.RowLo[i], q.RowUp[i]
+		if math.IsNaN(lo) || math.IsNaN(up) || lo > up || math.IsInf(lo, 1) || math.IsInf(up, -1) {
+			return fmt.Errorf("mip: row %d has bounds [%g, %g]; want lo ≤ up, lo < +∞, up > -∞", i, lo, up)
+		}
+	}
+	return nil
+}

@@ -1,0 +1,50 @@
+* Hand-written free MPS exercising every supported section (invented data).
+NAME          ALLSECT
+OBJSENSE
+    MAX
+ROWS
+ N  PROFIT
+ L  LIM1
+ G  LIM2
+ E  MYEQN
+ E  EQRNG
+ L  LRNG
+ N  SPARE
+COLUMNS
+    X1  PROFIT  1  LIM1  1
+    X1  LIM2  1
+    MARKER  'MARKER'  'INTORG'
+    X2  PROFIT  2  LIM1  1
+    X2  MYEQN  -1
+    X3  PROFIT  -1  EQRNG  1
+    MARKER  'MARKER'  'INTEND'
+    X4  PROFIT  3  LRNG  2
+    X4  SPARE 5
+    X5  LIM2  1
+    X6  PROFIT  1
+    X7  PROFIT  1
+    X8  PROFIT  1
+    X9  PROFIT  1
+RHS
+    RHS  PROFIT  -7.5
+    RHS  LIM1  4  LIM2  1
+    RHS  MYEQN  7
+    EQRNG 2
+    RHS  LRNG  10
+RANGES
+    RNG  EQRNG  -3
+    RNG  LRNG  4
+    RNG  LIM2  2.5
+BOUNDS
+ UP BND X1 4
+ LO BND X2 -1
+ UP BND X2 1
+ MI BND X3
+ UI BND X4 9
+ FX BND X5 3.25
+ FR BND X6
+ BV BND X7
+ LI BND X8 2
+ PL BND X8
+ UP BND X9 -2
+ENDATA

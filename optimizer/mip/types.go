@@ -1,0 +1,78 @@
+package mip
+
+import (
+	"fmt"
+	"time"
+)
+
+// Status says how a solve ended.
+type Status int
+
+const (
+	// Optimal: the solution in Result.X is optimal within the requested
+	// relative gap Options.GapRel (with the default GapRel it is proven
+	// optimal up to round-off). There is no separate "gap limit" status.
+	Optimal Status = iota
+	// Infeasible: no integer-feasible point exists (proven).
+	Infeasible
+	// Unbounded: the LP relaxation is unbounded; when an integer
+	// solution exists the MIP objective is unbounded too for rational
+	// data (Meyer 1974), which is all this engine is meant for.
+	Unbounded
+	// TimeLimit: Options.TimeLimit ran out; Result holds the best
+	// solution found (if any) and the proven bound.
+	TimeLimit
+	// NodeLimit: Options.NodeLimit nodes were processed.
+	NodeLimit
+	// Interrupted: the context was cancelled.
+	Interrupted
+)
+
+var statusNames = [...]string{"optimal", "infeasible", "unbounded", "time limit", "node limit", "interrupted"}
+
+func (s Status) String() string {
+	if s >= 0 && int(s) < len(statusNames) {
+		return statusNames[s]
+	}
+	return fmt.Sprintf("Status(%d)", int(s))
+}
+
+// Progress is reported through Options.Progress whenever the incumbent
+// or the bound improves.
+type Progress struct {
+	Incumbent, Bound, Gap float64
+	Nodes                 int
+	Elapsed               time.Duration
+}
+
+// Options control Solve.
+type Options struct {
+	// GapRel stops the search when (incumbent-bound)/max(1,|incumbent|)
+	// ≤ GapRel; 0 means 1e-9, that is, proven optimal.
+	GapRel float64
+	// TimeLimit is the wall-time budget; 0 means none.
+	TimeLimit time.Duration
+	// NodeLimit bounds the number of branch-and-bound nodes; 0 means none.
+	NodeLimit int
+	// Threads: 0 or 1 runs on one goroutine. 2 evaluates the two
+	// children of strong-branching candidates in lockstep on two
+	// goroutines; the result does not depend on timing.
+	Threads int
+	// Progress, when not nil, is called (on the solving goroutine) as the
+	// incumbent or the bound improve.
+	Progress func(Progress)
+}
+
+// Result is the outcome of Solve. Obj, Bound and X are in the original
+// space of the problem, with ObjOffset included.
+type Result struct {
+	Status Status
+	X      []float64 // best solution found (nil if none)
+	// Obj is the objective of X (+Inf when there is none); Bound is the
+	// proven lower bound; Gap = (Obj-Bound)/max(1,|Obj|).
+	Obj, Bound, Gap     float64
+	Nodes, LPIterations int
+	// Elapsed is wall time; keep it out of outputs that must be
+	// deterministic.
+	Elapsed time.Duration
+}
