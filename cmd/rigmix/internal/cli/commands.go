@@ -1,0 +1,181 @@
+package cli
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"io"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"strings"
+	"text/tabwriter"
+	"time"
+
+	"github.com/spf13/cobra"
+
+	"github.com/rigmix/rigmix/optimizer/mip"
+	"github.com/rigmix/rigmix/plugins/builtin"
+	"github.com/rigmix/rigmix/scenarios"
+)
+
+// selfCommand launches a built-in rig by re-running this program with the
+// hidden rig-serve subcommand. os.Args[0] is preferred over os.Executable so
+// that a program reached through a link keeps its name (test harnesses
+// dispatch on it).
+func selfCommand(name string) *exec.Cmd {
+	self := os.Args[0]
+	if !strings.ContainsRune(self, filepath.Separator) {
+		if p, err := exec.LookPath(self); err == nil {
+			self = p
+		} else if p, err := os.Executable(); err == nil {
+			self = p
+		}
+	}
+	return exec.Command(self, "rig-serve", name)
+}
+
+func newRigServeCmd() *cobra.Command {
+	return &cobra.Command{
+		Use:    "rig-serve NAME",
+		Short:  "serve a built-in rig over the plugin protocol (used by rigmix itself)",
+		Hidden: true,
+		Args:   cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			return builtin.Serve(args[0])
+		},
+	}
+}
+
+func newRigsCmd(g *globalOptions, stdout io.Writer) *cobra.Command {
+	return &cobra.Command{
+		Use:   "rigs",
+		Short: "List every rig that can be offered: built-in ones and plugins in the plugin folder",
+		Args:  cobra.NoArgs,
+		RunE: func(cmd *cobra.Command, args []string) error {
+			cfg, err := g.load(cmd.Flags())
+			if err != nil {
+				return err
+			}
+			fleet, err := openFleet(cmd.Context(), cfg, builtin.Names())
+			if err != nil {
+				return err
+			}
+			defer fleet.Close()
+			var b bytes.Buffer
+			tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
+			fmt.Fprintln(tw, "rig\tdescription\tmethods (deepest)\tground\tmax slope\tneeds overhead")
+			for _, r := range fleet.Rigs() {
+				in := r.Info
+				var ms []string
+				for _, m := range in.Methods {
+					ms = append(ms, fmt.Sprintf("%s (%g ft)", m.Method, m.MaxDepthFt))
+				}
+				var gs []string
+				for _, s := range in.Access.Surfaces {
+					gs = append(gs, string(s))
+				}
+				oh := "-"
+				if in.Access.MinOverheadFt > 0 {
+					oh = fmt.Sprintf("%g ft", in.Access.MinOverheadFt)
+				}
+				fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%g%%\t%s\n", in.Name, in.Title, strings.Join(ms, ", "), strings.Join(gs, ", "), in.Access.MaxSlopePct, oh)
+			}
+			tw.Flush()
+			_, err = stdout.Write(b.Bytes())
+			return err
+		},
+	}
+}
+
+func newDemosCmd(stdout io.Writer) *cobra.Command {
+	return &cobra.Command{
+		Use:   "demos [NAME]",
+		Short: "List the embedded demo scenarios, or print one as YAML to start your own from",
+		Args:  cobra.MaximumNArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			if len(args) == 1 {
+				b, err := scenarios.DemoFile(args[0])
+				if err != nil {
+					return usageError{err}
+				}
+				_, err = stdout.Write(b)
+				return err
+			}
+			var b bytes.Buffer
+			tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
+			fmt.Fprintln(tw, "demo\ttitle\tzones\trigs offered")
+			for _, n := range scenarios.Demos() {
+				sc, err := scenarios.LoadDemo(n, nil)
+				if err != nil {
+					return err
+				}
+				fmt.Fprintf(tw, "%s\t%s\t%d\t%s\n", n, sc.Title, len(sc.Zones), strings.Join(sc.Rigs, ", "))
+			}
+			tw.Flush()
+			b.WriteString("\nAll demo scenarios and rate books are invented data.\n")
+			_, err := stdout.Write(b.Bytes())
+			return err
+		},
+	}
+}
+
+type solveOptions struct {
+	asJSON bool
+}
+
+func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
+	o := &solveOptions{}
+	c := &cobra.Command{
+		Use:   "solve MODEL.mps",
+		Short: "Solve any mixed-integer model in free MPS form with rigmix's engine (for cross-checks)",
+		Args:  cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			cfg, err := g.load(cmd.Flags())
+			if err != nil {
+				return err
+			}
+			f, err := os.Open(args[0])
+			if err != nil {
+				return usageError{fmt.Errorf("%s: %v", args[0], err)}
+			}
+			defer f.Close()
+			p, err := mip.ReadMPS(f)
+			if err != nil {
+				return usageError{fmt.Errorf("%s: %v", args[0], err)}
+			}
+			opt := mip.Options{GapRel: cfg.Gap, Threads: cfg.Threads}
+			if cfg.TimeLimit > 0 {
+				opt.TimeLimit = time.Duration(cfg.TimeLimit * float64(time.Second))
+			}
+			if !o.asJSON && isTerminal(stderr) {
+				opt.Progress = progressPrinter(stderr)
+			}
+			res, err := mip.Solve(cmd.Context(), p, opt)
+			if opt.Progress != nil {
+				fmt.Fprintln(stderr)
+			}
+			if err != nil {
+				return err
+			}
+			if o.asJSON {
+				out := map[string]any{
+					"model": p.Name, "status": res.Status.String(), "objective": res.Obj,
+					"bound": res.Bound, "gap": res.Gap, "nodes": res.Nodes,
+					"lp_iterations": res.LPIterations, "seconds": res.Elapsed.Seconds(),
+				}
+				enc := json.NewEncoder(stdout)
+				enc.SetIndent("", "  ")
+				return enc.Encode(out)
+			}
+			fmt.Fprintf(stdout, "model      %s (%d rows, %d columns)\nstatus     %s\nobjective  %.10g\nbound      %.10g\ngap        %.6f%%\nnodes      %d\ntime       %s\n",
+				p.Name, p.LP.NumRows, p.LP.NumCols, res.Status, res.Obj, res.Bound, 100*res.Gap, res.Nodes, res.Elapsed.Round(time.Millisecond))
+			return nil
+		},
+	}
+	c.Flags().BoolVar(&o.asJSON, "json", false, "print the result as JSON")
+	c.Flags().Float64("gap", 0, "relative optimality gap to stop at")
+	c.Flags().Float64("time-limit", 0, "seconds")
+	c.Flags().Int("threads", 1, "solver threads (1 or 2)")
+	return c
+}

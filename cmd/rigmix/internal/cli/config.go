@@ -1,0 +1,110 @@
+package cli
+
+import (
+	"errors"
+	"fmt"
+	"os"
+	"strings"
+
+	"github.com/spf13/pflag"
+	"github.com/spf13/viper"
+)
+
+// Config holds the settings that may come from a flag, the environment
+// (RIGMIX_ plus the key in capitals), a configuration file or the default —
+// in that order of precedence.
+type Config struct {
+	PluginDir   string  `mapstructure:"plugin_dir"`
+	CallTimeout float64 `mapstructure:"call_timeout"` // seconds
+	Gap         float64 `mapstructure:"gap"`          // relative optimality gap; 0: the scenario's
+	TimeLimit   float64 `mapstructure:"time_limit"`   // seconds; 0: the scenario's
+	Threads     int     `mapstructure:"threads"`
+	RateBook    string  `mapstructure:"rate_book"` // demo name or file; "": the scenario's
+}
+
+// defaults is the bottom layer.
+var defaults = Config{CallTimeout: 30, Threads: 1}
+
+// flagKeys maps flag names to configuration keys.
+var flagKeys = map[string]string{
+	"plugin-dir":   "plugin_dir",
+	"call-timeout": "call_timeout",
+	"gap":          "gap",
+	"time-limit":   "time_limit",
+	"threads":      "threads",
+	"rate-book":    "rate_book",
+}
+
+type globalOptions struct {
+	configFile string
+	flags      *pflag.FlagSet
+}
+
+// load resolves the configuration for a command whose flags are fs.
+func (g *globalOptions) load(fs *pflag.FlagSet) (Config, error) {
+	v := viper.New()
+	v.SetDefault("plugin_dir", defaults.PluginDir)
+	v.SetDefault("call_timeout", defaults.CallTimeout)
+	v.SetDefault("gap", defaults.Gap)
+	v.SetDefault("time_limit", defaults.TimeLimit)
+	v.SetDefault("threads", defaults.Threads)
+	v.SetDefault("rate_book", defaults.RateBook)
+	v.SetEnvPrefix("RIGMIX")
+	v.SetEnvKeyReplacer(strings.NewReplacer("-", "_"))
+	v.AutomaticEnv()
+
+	file := g.configFile
+	explicit := file != ""
+	if !explicit {
+		if _, err := os.Stat("rigmix.yaml"); err == nil {
+			file = "rigmix.yaml"
+		}
+	}
+	if file != "" {
+		v.SetConfigFile(file)
+		v.SetConfigType("yaml")
+		if err := v.ReadInConfig(); err != nil {
+			var nf viper.ConfigFileNotFoundError
+			if errors.As(err, &nf) || os.IsNotExist(err) {
+				return Config{}, usageError{fmt.Errorf("%s: configuration file not found", file)}
+			}
+			return Config{}, usageError{fmt.Errorf("%s: cannot read configuration: %v", file, err)}
+		}
+		known := map[string]bool{}
+		for _, k := range flagKeys {
+			known[k] = true
+		}
+		for _, k := range v.AllKeys() {
+			if !known[k] && v.InConfig(k) {
+				return Config{}, usageError{fmt.Errorf("%s: %s: unknown setting (known: call_timeout, gap, plugin_dir, rate_book, threads, time_limit)", file, k)}
+			}
+		}
+	}
+	for _, set := range []*pflag.FlagSet{g.flags, fs} {
+		if set == nil {
+			continue
+		}
+		set.VisitAll(func(f *pflag.Flag) {
+			if key, ok := flagKeys[f.Name]; ok {
+				_ = v.BindPFlag(key, f)
+			}
+		})
+	}
+	var c Config
+	if err := v.Unmarshal(&c); err != nil {
+		return Config{}, usageError{fmt.Errorf("configuration: %v", err)}
+	}
+	if c.Gap < 0 || c.Gap >= 1 {
+		return Config{}, usageError{fmt.Errorf("gap: must be in [0, 1), got %g", c.Gap)}
+	}
+	if c.TimeLimit < 0 {
+		return Config{}, usageError{fmt.Errorf("time_limit: must be ≥ 0 seconds, got %g", c.TimeLimit)}
+	}
+	if c.CallTimeout <= 0 {
+		return Config{}, usageError{fmt.Errorf("call_timeout: must be > 0 seconds, got %g", c.CallTimeout)}
+	}
+	if c.Threads < 1 || c.Threads > 2 {
+		return Config{}, usageError{fmt.Errorf("threads: must be 1 or 2, got %d", c.Threads)}
+	}
+	return c, nil
+}

@@ -1,0 +1,213 @@
+package cli
+
+import (
+	"bytes"
+	"context"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"time"
+
+	"github.com/spf13/cobra"
+
+	"github.com/rigmix/rigmix/optimizer/mip"
+	"github.com/rigmix/rigmix/optimizer/plan"
+	"github.com/rigmix/rigmix/optimizer/report"
+	"github.com/rigmix/rigmix/plugins/builtin"
+	"github.com/rigmix/rigmix/plugins/host"
+	"github.com/rigmix/rigmix/plugins/sdk"
+	"github.com/rigmix/rigmix/ratebooks"
+	"github.com/rigmix/rigmix/scenarios"
+)
+
+type planOptions struct {
+	demo       string
+	jsonOut    string
+	csvOut     string
+	geojsonOut string
+	mpsOut     string
+	quiet      bool
+}
+
+func newPlanCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
+	o := &planOptions{}
+	c := &cobra.Command{
+		Use:   "plan [SCENARIO.yaml]",
+		Short: "Choose, price and count the days of the exploration program for a scenario (default: the embedded demo)",
+		Long: "plan lays candidate points in every zone, asks each rig offered what it can do there, and chooses the\n" +
+			"points, methods and rigs that meet every rule at least cost (fewest field days among equals).\n" +
+			"With no SCENARIO it plans the embedded demo scenario " + scenarios.DefaultDemo + ".",
+		Args: cobra.MaximumNArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			cfg, err := g.load(cmd.Flags())
+			if err != nil {
+				return err
+			}
+			return runPlan(cmd.Context(), cfg, o, args, stdout, stderr)
+		},
+	}
+	f := c.Flags()
+	f.StringVar(&o.demo, "demo", "", "plan an embedded demo scenario by name (see `rigmix demos`)")
+	f.String("rate-book", "", "price with this rate book (demo name or file) instead of the scenario's")
+	f.Float64("gap", 0, "stop when the plan is proven within this relative gap of the optimum (e.g. 0.01)")
+	f.Float64("time-limit", 0, "stop the solve after this many seconds with the best plan so far")
+	f.Int("threads", 1, "solver threads (1 or 2)")
+	f.StringVar(&o.jsonOut, "json", "", "write the plan as JSON to this file")
+	f.StringVar(&o.csvOut, "points-csv", "", "write the points as CSV to this file")
+	f.StringVar(&o.geojsonOut, "points-geojson", "", "write the points as GeoJSON (RFC 7946) to this file")
+	f.StringVar(&o.mpsOut, "model-mps", "", "write the optimization model as free MPS to this file")
+	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
+	return c
+}
+
+// loadInputs reads the scenario and its rate book.
+func loadInputs(cfg Config, demo string, args []string) (*scenarios.Scenario, *ratebooks.RateBook, error) {
+	var sc *scenarios.Scenario
+	var err error
+	switch {
+	case len(args) == 1 && demo != "":
+		return nil, nil, usageError{fmt.Errorf("give either a scenario file or --demo, not both")}
+	case len(args) == 1:
+		sc, err = scenarios.Load(args[0], nil)
+	default:
+		if demo == "" {
+			demo = scenarios.DefaultDemo
+		}
+		sc, err = scenarios.LoadDemo(demo, nil)
+	}
+	if err != nil {
+		return nil, nil, err
+	}
+	name := sc.RateBook
+	base := ""
+	if len(args) == 1 {
+		base = filepath.Dir(args[0])
+	}
+	if cfg.RateBook != "" {
+		name, base = cfg.RateBook, "."
+	}
+	rb, err := loadRateBook(name, base)
+	if err != nil {
+		return nil, nil, err
+	}
+	return sc, rb, nil
+}
+
+// loadRateBook takes a demo name, or a file path relative to base.
+func loadRateBook(name, base string) (*ratebooks.RateBook, error) {
+	for _, d := range ratebooks.Demos() {
+		if d == name {
+			return ratebooks.LoadDemo(name)
+		}
+	}
+	p := name
+	if !filepath.IsAbs(p) && base != "" {
+		p = filepath.Join(base, p)
+	}
+	return ratebooks.Load(p)
+}
+
+// openFleet launches the rigs a scenario offers: built-ins by re-running
+// this binary, the rest from the plugin folder.
+func openFleet(ctx context.Context, cfg Config, want []string) (*host.Fleet, error) {
+	isBuiltin := map[string]bool{}
+	for _, n := range builtin.Names() {
+		isBuiltin[n] = true
+	}
+	var bs []string
+	for _, n := range want {
+		if isBuiltin[n] {
+			bs = append(bs, n)
+		}
+	}
+	return host.Open(ctx, host.Options{
+		Builtins:    bs,
+		PluginDir:   cfg.PluginDir,
+		CallTimeout: time.Duration(cfg.CallTimeout * float64(time.Second)),
+		SelfCommand: selfCommand,
+	})
+}
+
+func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, stdout, stderr io.Writer) error {
+	sc, rb, err := loadInputs(cfg, o.demo, args)
+	if err != nil {
+		return err
+	}
+	fleet, err := openFleet(ctx, cfg, sc.Rigs)
+	if err != nil {
+		return err
+	}
+	defer fleet.Close()
+	rigs := map[string]sdk.Rig{}
+	for _, r := range fleet.Rigs() {
+		rigs[r.Info.Name] = r
+	}
+	in := plan.Input{Scenario: sc, RateBook: rb, Rigs: rigs}
+	popt := plan.Options{GapRel: cfg.Gap, TimeLimit: cfg.TimeLimit, Threads: cfg.Threads}
+	if !o.quiet && isTerminal(stderr) {
+		popt.Progress = progressPrinter(stderr)
+	}
+	pr, err := plan.Prepare(ctx, in, popt)
+	if err != nil {
+		return err
+	}
+	outs := outputs{}
+	if o.mpsOut != "" {
+		var b bytes.Buffer
+		if err := mip.WriteMPS(&b, pr.Model.Problem); err != nil {
+			return err
+		}
+		outs.add(o.mpsOut, b.Bytes())
+	}
+	res, err := pr.Solve(ctx, popt)
+	if popt.Progress != nil {
+		fmt.Fprintln(stderr)
+	}
+	if err != nil {
+		return err
+	}
+	p, err := pr.Assemble(res)
+	if err != nil {
+		return err
+	}
+	for _, w := range []struct {
+		path   string
+		render func(io.Writer, *plan.Plan) error
+	}{{o.jsonOut, report.JSON}, {o.csvOut, report.PointsCSV}, {o.geojsonOut, report.GeoJSON}} {
+		if w.path == "" {
+			continue
+		}
+		var b bytes.Buffer
+		if err := w.render(&b, p); err != nil {
+			return usageError{err}
+		}
+		outs.add(w.path, b.Bytes())
+	}
+	if res.Status == mip.Interrupted {
+		fmt.Fprintf(stderr, "rigmix: solve interrupted; best plan so far is within %.2f%% of optimal\n", 100*res.Gap)
+	}
+	if err := outs.write(); err != nil {
+		return err
+	}
+	if o.quiet {
+		return nil
+	}
+	return report.Text(stdout, p)
+}
+
+// progressPrinter shows incumbent, bound and gap on one terminal line.
+func progressPrinter(w io.Writer) func(mip.Progress) {
+	return func(p mip.Progress) {
+		fmt.Fprintf(w, "\r  solving: best %.2f  bound %.2f  gap %6.3f%%  nodes %d  %s   ", p.Incumbent, p.Bound, 100*p.Gap, p.Nodes, p.Elapsed.Round(time.Millisecond))
+	}
+}
+
+func isTerminal(w io.Writer) bool {
+	f, ok := w.(*os.File)
+	if !ok {
+		return false
+	}
+	st, err := f.Stat()
+	return err == nil && st.Mode()&os.ModeCharDevice != 0
+}

@@ -1,0 +1,364 @@
+// Package model turns an exploration problem, stated as plain data, into a
+// mixed-integer program and reads a solution of it back.
+//
+// The formulation (see PRODUCT.md, "The optimization model"):
+//
+//	x[o] ∈ {0,1}   option o chosen: one candidate point explored by one
+//	               method with one rig (depth fixed by the zone's rule)
+//	y[r] ∈ {0,1}   rig r mobilized
+//	d[r] ∈ ℤ≥0     field days of rig r
+//	T   ≥ 0        finish (the longest rig's days; rigs work in parallel)
+//
+//	minimize  Σ c[o] x[o] + Σ M[r] y[r] + Σ D[r] d[r] + w T
+//	s.t.      Σ_{o at p∈S} x[o] ≥ 1           every coverage row S
+//	          Σ_{o at p} x[o] ≤ 1 (= 1 if required)   each point
+//	          Σ_{o at p, rig r} x[o] ≤ y[r]    each point and rig
+//	          Σ_{o in zone} x[o] ≥ n[z]        per-zone minimum count
+//	          Σ_{sampled o in z} x[o] − s[z] Σ_{o in z} x[o] ≥ 0   sampled share
+//	          H d[r] − Σ_{o of r} h[o] x[o] − hm[r] y[r] ≥ 0      days
+//	          T − d[r] ≥ 0
+//	          cost ≤ budget, T ≤ deadline       (optional)
+//
+// The point-and-rig linking row is the disaggregated form of x ≤ y, whose LP
+// relaxation is far tighter than one aggregated big-M row per rig (the
+// standard result for fixed-charge facility location; Wolsey, Integer
+// Programming, 1998, §1.5 — from memory). w is a small tie-break weight so
+// that among equally cheap plans the one that finishes first is chosen.
+package model
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"github.com/rigmix/rigmix/optimizer/lp"
+	"github.com/rigmix/rigmix/optimizer/mip"
+)
+
+// Option is one way to explore one candidate point.
+type Option struct {
+	Point   int     // candidate index
+	Rig     int     // index into Spec.Rigs
+	Sampled bool    // recovers samples (counts toward the sampled share)
+	Cost    float64 // priced quantities at the point
+	Hours   float64 // hours on the point including the move to it
+	Label   string  // for column names, e.g. "boring/track-drill"
+}
+
+// Zone holds the counting rules of one zone.
+type Zone struct {
+	Name         string
+	MinCount     int     // at least this many points
+	SampledShare float64 // at least this share of its points sampled
+}
+
+// Rig holds the fixed and per-day charges of one rig.
+type Rig struct {
+	Name       string
+	MobCost    float64 // mobilization and demobilization, priced
+	MobHours   float64 // hours of mobilization counted in field days
+	DayCost    float64 // priced items per field day
+	Unlimited  bool    // reserved: several units of the rig
+	TravelNote string
+}
+
+// Spec is a whole exploration problem as plain data.
+type Spec struct {
+	NumPoints   int
+	PointZone   []int  // zone of each point
+	Required    []bool // point must be explored (nil: none)
+	Options     []Option
+	CoverRows   [][]int // each a set of points of which at least one is explored
+	Zones       []Zone
+	Rigs        []Rig
+	HoursPerDay float64
+	Budget      float64 // 0: none
+	MaxDays     float64 // 0: none; limit on the finish T
+	DaysWeight  float64 // objective weight of T (tie-break); 0 allowed
+	CostWeight  float64 // objective weight of cost; 0 means 1
+}
+
+// Model is the built program and the map from its columns back to the spec.
+type Model struct {
+	Problem *mip.Problem
+	Spec    *Spec
+	XCol    []int // option → column
+	YCol    []int // rig → column
+	DCol    []int // rig → column
+	TCol    int
+	CostRow int // row holding the cost (budget row), -1 if none
+}
+
+// Errors returned by Build.
+var (
+	ErrNoOption = errors.New("model: a rule cannot be met: no feasible option")
+)
+
+// Build assembles the program. It returns an error naming what cannot be met
+// when a coverage row, a required point or a zone count has no option at all.
+func Build(s *Spec) (*Model, error) {
+	if s.HoursPerDay <= 0 {
+		return nil, fmt.Errorf("model: hours per day must be > 0, got %g", s.HoursPerDay)
+	}
+	if len(s.PointZone) != s.NumPoints {
+		panic("model: PointZone length differs from NumPoints")
+	}
+	costW := s.CostWeight
+	if costW == 0 {
+		costW = 1
+	}
+	b := newBuilder()
+	m := &Model{Spec: s, CostRow: -1}
+
+	byPoint := make([][]int, s.NumPoints)
+	for o, op := range s.Options {
+		byPoint[op.Point] = append(byPoint[op.Point], o)
+	}
+	m.XCol = make([]int, len(s.Options))
+	for o, op := range s.Options {
+		m.XCol[o] = b.col(fmt.Sprintf("x_p%d_%s", op.Point, op.Label), costW*op.Cost, 0, 1, true)
+	}
+	m.YCol = make([]int, len(s.Rigs))
+	m.DCol = make([]int, len(s.Rigs))
+	for r, rg := range s.Rigs {
+		m.YCol[r] = b.col("y_"+rg.Name, costW*rg.MobCost, 0, 1, true)
+	}
+	for r, rg := range s.Rigs {
+		m.DCol[r] = b.col("d_"+rg.Name, costW*rg.DayCost, 0, math.Inf(1), true)
+	}
+	m.TCol = b.col("finish_days", s.DaysWeight, 0, math.Inf(1), false)
+
+	// Coverage rows.
+	for i, row := range s.CoverRows {
+		var cols []int
+		for _, p := range row {
+			for _, o := range byPoint[p] {
+				cols = append(cols, m.XCol[o])
+			}
+		}
+		if len(cols) == 0 {
+			z := s.PointZone[row[0]]
+			return nil, fmt.Errorf("%w: zone %q has ground no candidate point can cover (no rig offered can explore there)", ErrNoOption, s.Zones[z].Name)
+		}
+		b.row(fmt.Sprintf("cover_%d", i), 1, math.Inf(1), cols, ones(len(cols)))
+	}
+	// One option per point; required points exactly one.
+	for p, opts := range byPoint {
+		req := s.Required != nil && s.Required[p]
+		if len(opts) == 0 {
+			if req {
+				return nil, fmt.Errorf("%w: zone %q has a required point no offered rig can explore", ErrNoOption, s.Zones[s.PointZone[p]].Name)
+			}
+			continue
+		}
+		lo := math.Inf(-1)
+		if req {
+			lo = 1
+		}
+		if len(opts) == 1 && !req {
+			continue // bound x ≤ 1 already holds
+		}
+		cols := make([]int, len(opts))
+		for k, o := range opts {
+			cols[k] = m.XCol[o]
+		}
+		b.row(fmt.Sprintf("one_p%d", p), lo, 1, cols, ones(len(cols)))
+	}
+	// Point-and-rig linking.
+	for p, opts := range byPoint {
+		perRig := map[int][]int{}
+		var rigs []int
+		for _, o := range opts {
+			r := s.Options[o].Rig
+			if _, ok := perRig[r]; !ok {
+				rigs = append(rigs, r)
+			}
+			perRig[r] = append(perRig[r], m.XCol[o])
+		}
+		for _, r := range rigs { // rigs in first-seen order: deterministic
+			cols := append(append([]int(nil), perRig[r]...), m.YCol[r])
+			vals := ones(len(cols))
+			vals[len(vals)-1] = -1
+			b.row(fmt.Sprintf("link_p%d_%s", p, s.Rigs[r].Name), math.Inf(-1), 0, cols, vals)
+		}
+	}
+	// Zone counts and sampled shares.
+	for z, zn := range s.Zones {
+		var cols []int
+		var share []float64
+		for o, op := range s.Options {
+			if s.PointZone[op.Point] != z {
+				continue
+			}
+			cols = append(cols, m.XCol[o])
+			v := -zn.SampledShare
+			if op.Sampled {
+				v += 1
+			}
+			share = append(share, v)
+		}
+		if zn.MinCount > 0 {
+			if len(cols) == 0 {
+				return nil, fmt.Errorf("%w: zone %q needs %d points but no offered rig can explore it", ErrNoOption, zn.Name, zn.MinCount)
+			}
+			b.row(fmt.Sprintf("count_z%d", z), float64(zn.MinCount), math.Inf(1), cols, ones(len(cols)))
+		}
+		if zn.SampledShare > 0 && len(cols) > 0 {
+			b.row(fmt.Sprintf("sampled_z%d", z), 0, math.Inf(1), cols, share)
+		}
+	}
+	// Field days and finish.
+	for r, rg := range s.Rigs {
+		cols := []int{m.DCol[r], m.YCol[r]}
+		vals := []float64{s.HoursPerDay, -rg.MobHours}
+		for o, op := range s.Options {
+			if op.Rig == r {
+				cols = append(cols, m.XCol[o])
+				vals = append(vals, -op.Hours)
+			}
+		}
+		b.row("days_"+rg.Name, 0, math.Inf(1), cols, vals)
+		b.row("finish_"+rg.Name, 0, math.Inf(1), []int{m.TCol, m.DCol[r]}, []float64{1, -1})
+	}
+	if s.Budget > 0 {
+		cols, vals := m.costTerms()
+		m.CostRow = b.row("budget", math.Inf(-1), s.Budget, cols, vals)
+	}
+	if s.MaxDays > 0 {
+		b.setColUp(m.TCol, s.MaxDays)
+	}
+	m.Problem = b.problem("rigmix-plan")
+	return m, nil
+}
+
+// costTerms lists the cost of every column (without the tie-break weight).
+func (m *Model) costTerms() ([]int, []float64) {
+	s := m.Spec
+	var cols []int
+	var vals []float64
+	for o, op := range s.Options {
+		cols = append(cols, m.XCol[o])
+		vals = append(vals, op.Cost)
+	}
+	for r, rg := range s.Rigs {
+		cols = append(cols, m.YCol[r], m.DCol[r])
+		vals = append(vals, rg.MobCost, rg.DayCost)
+	}
+	return cols, vals
+}
+
+// Solution is a decoded solution.
+type Solution struct {
+	Chosen    []int  // option indices, ascending
+	Mobilized []bool // per rig
+	Days      []int  // per rig
+	Finish    int    // field days until the last rig is done
+	Cost      float64
+}
+
+// Decode reads a primal solution of the program.
+func (m *Model) Decode(x []float64) Solution {
+	s := m.Spec
+	var sol Solution
+	for o, c := range m.XCol {
+		if x[c] > 0.5 {
+			sol.Chosen = append(sol.Chosen, o)
+			sol.Cost += s.Options[o].Cost
+		}
+	}
+	sol.Mobilized = make([]bool, len(s.Rigs))
+	sol.Days = make([]int, len(s.Rigs))
+	for r, rg := range s.Rigs {
+		sol.Mobilized[r] = x[m.YCol[r]] > 0.5
+		sol.Days[r] = int(math.Round(x[m.DCol[r]]))
+		if sol.Mobilized[r] {
+			sol.Cost += rg.MobCost
+		}
+		sol.Cost += float64(sol.Days[r]) * rg.DayCost
+		if sol.Days[r] > sol.Finish {
+			sol.Finish = sol.Days[r]
+		}
+	}
+	return sol
+}
+
+func ones(n int) []float64 {
+	v := make([]float64, n)
+	for i := range v {
+		v[i] = 1
+	}
+	return v
+}
+
+// builder collects columns and row-wise entries, then forms the sparse
+// column matrix.
+type builder struct {
+	obj, lo, up    []float64
+	integer        []bool
+	colNames       []string
+	rowLo, rowUp   []float64
+	rowNames       []string
+	entCol, entRow []int
+	entVal         []float64
+}
+
+func newBuilder() *builder { return &builder{} }
+
+func (b *builder) col(name string, c, lo, up float64, integer bool) int {
+	b.obj = append(b.obj, c)
+	b.lo = append(b.lo, lo)
+	b.up = append(b.up, up)
+	b.integer = append(b.integer, integer)
+	b.colNames = append(b.colNames, name)
+	return len(b.obj) - 1
+}
+
+func (b *builder) setColUp(j int, up float64) { b.up[j] = up }
+
+func (b *builder) row(name string, lo, up float64, cols []int, vals []float64) int {
+	i := len(b.rowLo)
+	b.rowLo = append(b.rowLo, lo)
+	b.rowUp = append(b.rowUp, up)
+	b.rowNames = append(b.rowNames, name)
+	for k, j := range cols {
+		if vals[k] == 0 {
+			continue
+		}
+		b.entCol = append(b.entCol, j)
+		b.entRow = append(b.entRow, i)
+		b.entVal = append(b.entVal, vals[k])
+	}
+	return i
+}
+
+func (b *builder) problem(name string) *mip.Problem {
+	n := len(b.obj)
+	start := make([]int, n+1)
+	for _, j := range b.entCol {
+		start[j+1]++
+	}
+	for j := 0; j < n; j++ {
+		start[j+1] += start[j]
+	}
+	next := append([]int(nil), start[:n]...)
+	rowIdx := make([]int, len(b.entCol))
+	val := make([]float64, len(b.entCol))
+	// Entries were added row by row, so within a column rows ascend.
+	for k, j := range b.entCol {
+		rowIdx[next[j]] = b.entRow[k]
+		val[next[j]] = b.entVal[k]
+		next[j]++
+	}
+	return &mip.Problem{
+		Name: name,
+		LP: lp.Problem{
+			NumRows: len(b.rowLo), NumCols: n,
+			Obj: b.obj, ColLo: b.lo, ColUp: b.up,
+			RowLo: b.rowLo, RowUp: b.rowUp,
+			ColStart: start, RowIndex: rowIdx, Value: val,
+		},
+		Integer:  b.integer,
+		ColNames: b.colNames,
+		RowNames: b.rowNames,
+	}
+}

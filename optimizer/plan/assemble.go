@@ -1,0 +1,263 @@
+package plan
+
+import (
+	"context"
+	"fmt"
+	"math"
+	"sort"
+
+	"github.com/rigmix/rigmix/optimizer/geom"
+	"github.com/rigmix/rigmix/optimizer/mip"
+	"github.com/rigmix/rigmix/plugins/sdk"
+)
+
+// ErrNoPlan is returned when the solve ends without any plan meeting the
+// rules.
+type ErrNoPlan struct {
+	Status mip.Status
+	Why    string
+}
+
+func (e *ErrNoPlan) Error() string {
+	return fmt.Sprintf("plan: no plan meets every rule (solver: %s)%s", e.Status, e.Why)
+}
+
+// BadInput marks an infeasible plan as the user's to fix (rules or rigs).
+func (e *ErrNoPlan) BadInput() bool { return e.Status == mip.Infeasible }
+
+// Run plans a scenario: Prepare, solve, Assemble.
+func Run(ctx context.Context, in Input, opt Options) (*Plan, error) {
+	pr, err := Prepare(ctx, in, opt)
+	if err != nil {
+		return nil, err
+	}
+	res, err := pr.Solve(ctx, opt)
+	if err != nil {
+		return nil, err
+	}
+	return pr.Assemble(res)
+}
+
+// Solve solves the prepared model with the engine.
+func (pr *Prepared) Solve(ctx context.Context, opt Options) (*mip.Result, error) {
+	sc := pr.In.Scenario
+	mo := mip.Options{GapRel: sc.GapRel, Threads: opt.Threads, Progress: opt.Progress}
+	if opt.GapRel > 0 {
+		mo.GapRel = opt.GapRel
+	}
+	tl := sc.TimeLimitS
+	if opt.TimeLimit > 0 {
+		tl = opt.TimeLimit
+	}
+	if tl > 0 {
+		mo.TimeLimit = secs(tl)
+	}
+	res, err := mip.Solve(ctx, pr.Model.Problem, mo)
+	if err != nil {
+		return nil, err
+	}
+	if res.X == nil {
+		return nil, &ErrNoPlan{Status: res.Status}
+	}
+	return res, nil
+}
+
+// Assemble reads a solution back into a plan.
+func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
+	sc, rb := pr.In.Scenario, pr.In.RateBook
+	sol := pr.Model.Decode(res.X)
+	p := &Plan{
+		Schema:   SchemaVersion,
+		Scenario: ScenarioInfo{Name: sc.Name, Title: sc.Title, Source: sc.Source, Demo: sc.Demo},
+		RateBook: RateBookInfo{Name: rb.Name, Title: rb.Title, Currency: rb.Currency, Effective: rb.Effective, Region: rb.Region, Demo: rb.Demo},
+		Finish:   sol.Finish,
+		Cautions: append([]string(nil), Cautions...),
+		Warnings: []string{},
+	}
+	var frame *geom.LocalFrame
+	if sc.Origin != nil {
+		frame = &geom.LocalFrame{OriginLon: sc.Origin.Lon, OriginLat: sc.Origin.Lat}
+	}
+
+	qty := map[string]float64{}
+	addQ := func(qs []sdk.Quantity, times float64) {
+		for _, q := range qs {
+			qty[q.Item] += q.Amount * times
+		}
+	}
+	zoneCount := make([]int, len(sc.Zones))
+	zoneSampled := make([]int, len(sc.Zones))
+	zoneMinDepth := make([]float64, len(sc.Zones))
+	rigPts := make([]int, len(pr.Rigs))
+	rigHours := make([]float64, len(pr.Rigs))
+	rigBy := make([]map[string]int, len(pr.Rigs))
+	for i := range rigBy {
+		rigBy[i] = map[string]int{}
+	}
+	chosenPoint := make([]bool, len(pr.Layout.Candidates))
+	for k, o := range sol.Chosen {
+		od := pr.Options[o]
+		c := pr.Layout.Candidates[od.point]
+		zn := sc.Zones[od.zone]
+		pt := Point{
+			ID: fmt.Sprintf("P%03d", k+1), Zone: zn.ID,
+			XFt: round(c.P.X, 1), YFt: round(c.P.Y, 1),
+			Method: string(od.method), Rig: pr.Rigs[od.rig].name,
+			DepthFt: od.depth, Hours: round(pr.Spec.Options[o].Hours, 2),
+			Cost: round(od.prof.cost, 2), Required: c.Required,
+		}
+		if od.method == sdk.Boring {
+			pt.SampleIntervalFt = zn.Rules.SampleIntervalFt
+		}
+		if frame != nil {
+			lon, lat := frame.ToLonLat(c.P)
+			lon, lat = round(lon, 7), round(lat, 7)
+			pt.Lon, pt.Lat = &lon, &lat
+		}
+		p.Points = append(p.Points, pt)
+		addQ(od.prof.answer.Quantities, 1)
+		chosenPoint[od.point] = true
+		zoneCount[od.zone]++
+		if od.method.Sampled() {
+			zoneSampled[od.zone]++
+		}
+		if zoneMinDepth[od.zone] == 0 || od.depth < zoneMinDepth[od.zone] {
+			zoneMinDepth[od.zone] = od.depth
+		}
+		rigPts[od.rig]++
+		rigHours[od.rig] += pr.Spec.Options[o].Hours
+		rigBy[od.rig][string(od.method)]++
+		if od.method == sdk.TestPit {
+			p.Warnings = append(p.Warnings, pitWarnings(pt.ID, od.depth)...)
+		}
+	}
+	for r, rd := range pr.Rigs {
+		rp := RigPlan{Name: rd.name, Title: rd.info.Title, Mobilized: sol.Mobilized[r], Points: rigPts[r],
+			ByMethod: rigBy[r], Hours: round(rigHours[r], 2), FieldDays: sol.Days[r]}
+		if sol.Mobilized[r] {
+			rp.MobHours = round(rd.mob.Hours, 2)
+			addQ(rd.mob.Quantities, 1)
+		}
+		addQ(rd.info.DayItems, float64(sol.Days[r]))
+		p.Rigs = append(p.Rigs, rp)
+	}
+
+	// Estimate lines in rate-book order; every item was priced in Prepare.
+	for _, it := range rb.Items {
+		q, ok := qty[it.Code]
+		if !ok || q == 0 {
+			continue
+		}
+		q = round(q, 3)
+		ext := round(q*it.UnitPrice, 2)
+		p.Estimate = append(p.Estimate, Line{Item: it.Code, Description: it.Description, Quantity: q, Unit: it.Unit, UnitPrice: it.UnitPrice, Extension: ext})
+		p.Total += ext
+	}
+	p.Total = round(p.Total, 2)
+
+	// Coverage of ground under spacing rules.
+	cov := Coverage{}
+	for _, cell := range pr.Layout.Cells {
+		cov.AreaFt2 += cell.AreaFt2
+		for _, q := range cell.CoveredBy {
+			if chosenPoint[q] {
+				cov.CoveredFt2 += cell.AreaFt2
+				break
+			}
+		}
+	}
+	for _, cell := range pr.Layout.Uncoverable {
+		cov.AreaFt2 += cell.AreaFt2
+	}
+	if cov.AreaFt2 > 0 {
+		cov.CoveredPercent = round(100*cov.CoveredFt2/cov.AreaFt2, 2)
+	}
+	cov.AreaFt2, cov.CoveredFt2 = round(cov.AreaFt2, 0), round(cov.CoveredFt2, 0)
+	p.Coverage = cov
+	if len(pr.Layout.Uncoverable) > 0 {
+		a := 0.0
+		for _, c := range pr.Layout.Uncoverable {
+			a += c.AreaFt2
+		}
+		p.Warnings = append(p.Warnings, fmt.Sprintf("%.0f ft² of ground under spacing rules lies beyond reach of any allowed point (inside or behind no-go areas)", a))
+	}
+
+	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth)
+	pb := pr.Model.Problem
+	p.Solver = SolverInfo{
+		Status: res.Status.String(), Objective: round(res.Obj, 4), Bound: round(res.Bound, 4), Gap: round(res.Gap, 6),
+		Nodes: res.Nodes, Candidates: len(pr.Layout.Candidates), Options: len(pr.Spec.Options),
+		Rows: pb.LP.NumRows, Columns: pb.LP.NumCols,
+	}
+	return p, nil
+}
+
+func (pr *Prepared) ruleChecks(count, sampled []int, minDepth []float64) []RuleCheck {
+	sc := pr.In.Scenario
+	var out []RuleCheck
+	for z, zn := range sc.Zones {
+		r := zn.Rules
+		if r.MaxSpacingFt > 0 {
+			lat := r.Lattice
+			if lat == "" {
+				lat = "triangular"
+			}
+			out = append(out, RuleCheck{Zone: zn.ID, Rule: "max spacing",
+				Required: fmt.Sprintf("every spot within %.0f ft of a point (%s spacing %.0f ft)", geom.CoveringRadius(string(lat), r.MaxSpacingFt), lat, r.MaxSpacingFt),
+				Achieved: "every coverage cell within reach covered", Met: true, Source: r.Source})
+		}
+		if n := pr.ZoneMin[z]; n > 0 {
+			out = append(out, RuleCheck{Zone: zn.ID, Rule: "minimum points",
+				Required: fmt.Sprintf("≥ %d", n), Achieved: fmt.Sprintf("%d", count[z]), Met: count[z] >= n, Source: r.Source})
+		}
+		if r.MinDepthFt > 0 {
+			out = append(out, RuleCheck{Zone: zn.ID, Rule: "minimum depth",
+				Required: fmt.Sprintf("≥ %.1f ft", r.MinDepthFt), Achieved: fmt.Sprintf("%.1f ft", minDepth[z]), Met: count[z] == 0 || minDepth[z] >= r.MinDepthFt-1e-9, Source: r.Source})
+		}
+		if r.SampledShare > 0 {
+			share := 0.0
+			if count[z] > 0 {
+				share = float64(sampled[z]) / float64(count[z])
+			}
+			out = append(out, RuleCheck{Zone: zn.ID, Rule: "sampled share",
+				Required: fmt.Sprintf("≥ %.0f%%", 100*r.SampledShare), Achieved: fmt.Sprintf("%.0f%% (%d of %d)", 100*share, sampled[z], count[z]),
+				Met: share >= r.SampledShare-1e-9, Source: r.Source})
+		}
+	}
+	return out
+}
+
+// pitWarnings flags the excavation safety requirements a test pit of a
+// given depth carries (OSHA 29 CFR 1926 Subpart P).
+func pitWarnings(id string, depthFt float64) []string {
+	var w []string
+	if depthFt >= 4 {
+		w = append(w, fmt.Sprintf("%s: test pit %.1f ft deep — a safe means of egress is required within 25 ft of lateral travel (29 CFR 1926.651(c)(2))", id, depthFt))
+	}
+	if depthFt >= 5 {
+		w = append(w, fmt.Sprintf("%s: test pit %.1f ft deep — no entry without a protective system (sloping, benching or shoring) unless in stable rock (29 CFR 1926.652(a)(1))", id, depthFt))
+	}
+	if depthFt > 20 {
+		w = append(w, fmt.Sprintf("%s: test pit %.1f ft deep — protective system must be designed by a registered professional engineer (29 CFR 1926 Subpart P)", id, depthFt))
+	}
+	return w
+}
+
+func round(v float64, places int) float64 {
+	s := math.Pow(10, float64(places))
+	r := math.Round(v*s) / s
+	if r == 0 {
+		return 0 // no negative zero in output
+	}
+	return r
+}
+
+// sortedKeys returns a map's keys in order.
+func sortedKeys(m map[string]int) []string {
+	out := make([]string, 0, len(m))
+	for k := range m {
+		out = append(out, k)
+	}
+	sort.Strings(out)
+	return out
+}

@@ -1,0 +1,127 @@
+// Package plan runs the whole planning pipeline on plain data: candidates and
+// coverage from the scenario's geometry, one batched question per rig, the
+// priced options, the model, the solve, and the plan read back — item by
+// item, rig by rig and rule by rule.
+package plan
+
+// Plan is the result of planning one scenario. Its JSON form is the plan
+// file documented in optimizer/plan/SCHEMA.md; field order and formatting are
+// stable so the same input gives the same bytes.
+type Plan struct {
+	Schema   string       `json:"schema"`
+	Scenario ScenarioInfo `json:"scenario"`
+	RateBook RateBookInfo `json:"rate_book"`
+
+	Points   []Point     `json:"points"`
+	Estimate []Line      `json:"estimate"`
+	Total    float64     `json:"total"`
+	Rigs     []RigPlan   `json:"rigs"`
+	Finish   int         `json:"field_days"` // days until the last rig is done (rigs in parallel)
+	Rules    []RuleCheck `json:"rules"`
+	Coverage Coverage    `json:"coverage"`
+	Solver   SolverInfo  `json:"solver"`
+	Warnings []string    `json:"warnings"`
+	Cautions []string    `json:"cautions"`
+}
+
+// ScenarioInfo names the scenario a plan was made for.
+type ScenarioInfo struct {
+	Name   string `json:"name"`
+	Title  string `json:"title"`
+	Source string `json:"source"`
+	Demo   bool   `json:"demo"`
+}
+
+// RateBookInfo names the rate book that priced the plan.
+type RateBookInfo struct {
+	Name      string `json:"name"`
+	Title     string `json:"title"`
+	Currency  string `json:"currency"`
+	Effective string `json:"effective"`
+	Region    string `json:"region"`
+	Demo      bool   `json:"demo"`
+}
+
+// Point is one exploration point of the plan.
+type Point struct {
+	ID               string   `json:"id"`
+	Zone             string   `json:"zone"`
+	XFt              float64  `json:"x_ft"`
+	YFt              float64  `json:"y_ft"`
+	Lon              *float64 `json:"lon,omitempty"`
+	Lat              *float64 `json:"lat,omitempty"`
+	Method           string   `json:"method"`
+	Rig              string   `json:"rig"`
+	DepthFt          float64  `json:"depth_ft"`
+	SampleIntervalFt float64  `json:"sample_interval_ft,omitempty"`
+	Hours            float64  `json:"hours"`
+	Cost             float64  `json:"cost"`
+	Required         bool     `json:"required,omitempty"`
+}
+
+// Line is one line of the itemized estimate: quantity × unit price.
+type Line struct {
+	Item        string  `json:"item"`
+	Description string  `json:"description"`
+	Quantity    float64 `json:"quantity"`
+	Unit        string  `json:"unit"`
+	UnitPrice   float64 `json:"unit_price"`
+	Extension   float64 `json:"extension"`
+}
+
+// RigPlan is what one rig does.
+type RigPlan struct {
+	Name      string         `json:"name"`
+	Title     string         `json:"title"`
+	Mobilized bool           `json:"mobilized"`
+	Points    int            `json:"points"`
+	ByMethod  map[string]int `json:"by_method"`
+	Hours     float64        `json:"hours"`
+	MobHours  float64        `json:"mobilization_hours"`
+	FieldDays int            `json:"field_days"`
+}
+
+// RuleCheck tells whether one rule of one zone is met.
+type RuleCheck struct {
+	Zone     string  `json:"zone"`
+	Rule     string  `json:"rule"`
+	Required string  `json:"required"`
+	Achieved string  `json:"achieved"`
+	Met      bool    `json:"met"`
+	Source   string  `json:"source,omitempty"`
+	Value    float64 `json:"-"`
+}
+
+// Coverage summarizes how much of the ground under spacing rules lies within
+// the covering radius of a chosen point.
+type Coverage struct {
+	AreaFt2        float64 `json:"area_ft2"`
+	CoveredFt2     float64 `json:"covered_ft2"`
+	CoveredPercent float64 `json:"covered_percent"`
+}
+
+// SolverInfo reports how the solve ended.
+type SolverInfo struct {
+	Status     string  `json:"status"`
+	Objective  float64 `json:"objective"`
+	Bound      float64 `json:"bound"`
+	Gap        float64 `json:"gap"`
+	Nodes      int     `json:"nodes"`
+	Candidates int     `json:"candidates"`
+	Options    int     `json:"options"`
+	Rows       int     `json:"rows"`
+	Columns    int     `json:"columns"`
+}
+
+// SchemaVersion identifies the plan JSON layout.
+const SchemaVersion = "rigmix.plan/1"
+
+// Cautions are shown with every plan and report: exploration work can hurt
+// people.
+var Cautions = []string{
+	"Locate underground utilities before any drilling or digging: make the one-call notice and have owners mark their lines (OSHA 29 CFR 1926.651(b); ASTM D420-18 §1.3.1).",
+	"Keep drill masts and excavator booms clear of overhead power lines (at least 20 ft; drilling safety guidelines).",
+	"Test pits: nobody enters an excavation 4 ft or deeper without a safe way out (29 CFR 1926.651(c)(2)); 5 ft or deeper needs a protective system — sloping, benching or shoring — unless in stable rock (1926.652(a)(1)); deeper than 20 ft needs a design by a registered professional engineer (Subpart P, Appendices B and F).",
+	"On an environmental site, soil and water brought up are investigation-derived waste: contain, label and dispose of them as the site's rules require.",
+	"This plan is a planning aid. A licensed professional reviews it; local codes and the client's requirements govern.",
+}

@@ -1,0 +1,367 @@
+package plan
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+
+	"github.com/rigmix/rigmix/optimizer/candidates"
+	"github.com/rigmix/rigmix/optimizer/geom"
+	"github.com/rigmix/rigmix/optimizer/mip"
+	"github.com/rigmix/rigmix/optimizer/model"
+	"github.com/rigmix/rigmix/plugins/sdk"
+	"github.com/rigmix/rigmix/ratebooks"
+	"github.com/rigmix/rigmix/scenarios"
+)
+
+// Input is everything a plan is made from, as plain data and interfaces.
+type Input struct {
+	Scenario *scenarios.Scenario
+	RateBook *ratebooks.RateBook
+	// Rigs are the rigs that can be hired, keyed by the name each gives in
+	// Describe. The scenario's rig list selects among them.
+	Rigs map[string]sdk.Rig
+}
+
+// Options steer the solve.
+type Options struct {
+	GapRel    float64 // 0: the scenario's setting
+	TimeLimit float64 // seconds; 0: the scenario's setting
+	Threads   int
+	Progress  func(mip.Progress)
+	Budget    float64 // 0: none
+	MaxDays   float64 // 0: none
+}
+
+// InputError is a problem with the inputs that the user can fix; the CLI
+// exits with code 2 for it.
+type InputError struct{ Msg string }
+
+func (e *InputError) Error() string { return e.Msg }
+
+// BadInput marks the error as the user's to fix.
+func (e *InputError) BadInput() bool { return true }
+
+func inputErrorf(format string, a ...any) error {
+	return &InputError{Msg: fmt.Sprintf(format, a...)}
+}
+
+// DefaultDepthFt is the depth used for a method when a zone gives no depth
+// rule. These are common practice for a first look, not a published rule.
+var DefaultDepthFt = map[sdk.Method]float64{
+	sdk.Boring:  20, // common practice
+	sdk.CPT:     20, // common practice
+	sdk.TestPit: 8,  // common practice
+	sdk.Probe:   4,  // common practice
+}
+
+// allMethods lists the methods in a fixed order.
+var allMethods = []sdk.Method{sdk.Boring, sdk.CPT, sdk.TestPit, sdk.Probe}
+
+// Prepared is the pipeline up to the model: the candidates, the priced
+// options and the model itself. Trade-off analyses re-solve it many times.
+type Prepared struct {
+	In      Input
+	Layout  *candidates.Layout
+	Rigs    []rigData
+	Options []optionData // one per model option
+	Spec    *model.Spec
+	Model   *model.Model
+	ZoneMin []int
+}
+
+type rigData struct {
+	name     string
+	rig      sdk.Rig
+	info     sdk.RigInfo
+	mob      sdk.MobilizeResponse
+	mobCost  float64
+	dayCost  float64
+	profiles map[profileKey]profile
+}
+
+type profileKey struct {
+	zone   int
+	method sdk.Method
+}
+
+type profile struct {
+	answer sdk.Answer
+	move   float64 // hours to move to a point in this zone
+	cost   float64
+}
+
+type optionData struct {
+	point  int
+	zone   int
+	method sdk.Method
+	rig    int
+	depth  float64
+	prof   profile
+}
+
+// Prepare runs the pipeline up to the built model.
+func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
+	sc := in.Scenario
+	if sc == nil || in.RateBook == nil {
+		panic("plan: Prepare needs a scenario and a rate book")
+	}
+	pr := &Prepared{In: in}
+
+	// Rigs offered, in the scenario's order.
+	for _, name := range sc.Rigs {
+		r, ok := in.Rigs[name]
+		if !ok {
+			known := make([]string, 0, len(in.Rigs))
+			for k := range in.Rigs {
+				known = append(known, k)
+			}
+			sort.Strings(known)
+			return nil, inputErrorf("%s: rigs: rig %q is not available (available: %s)", sc.Source, name, strings.Join(known, ", "))
+		}
+		info, err := r.Describe(ctx)
+		if err != nil {
+			return nil, fmt.Errorf("rig %q: describe: %w", name, err)
+		}
+		pr.Rigs = append(pr.Rigs, rigData{name: name, rig: r, info: info, profiles: map[profileKey]profile{}})
+	}
+
+	// Candidates and coverage.
+	zin := make([]candidates.ZoneInput, len(sc.Zones))
+	for z, zn := range sc.Zones {
+		cand := 0.0
+		if zn.Rules.MaxSpacingFt == 0 && zn.Rules.AreaPerPointFt2 > 0 {
+			// No spacing rule: lay candidates at half the spacing of a
+			// square grid with one point per the rule's area.
+			cand = 0.5 * math.Sqrt(zn.Rules.AreaPerPointFt2)
+		}
+		zin[z] = candidates.ZoneInput{
+			ID: zn.ID, Polygon: zn.Polygon,
+			SpacingFt: zn.Rules.MaxSpacingFt, Lattice: string(zn.Rules.Lattice),
+			CandidateSpacingFt: cand,
+			Corners:            zn.Rules.Corners, Required: zn.Rules.RequiredPoints,
+			Weight: zn.Priority,
+		}
+	}
+	nogo := make([]geom.Polygon, len(sc.NoGo))
+	for i, ng := range sc.NoGo {
+		nogo[i] = ng.Polygon
+	}
+	lay, err := candidates.Generate(zin, nogo, candidates.Options{})
+	if err != nil {
+		return nil, inputErrorf("%s: %v", sc.Source, err)
+	}
+	pr.Layout = lay
+
+	// One batched question per rig: every distinct (zone, method) site.
+	for ri := range pr.Rigs {
+		rd := &pr.Rigs[ri]
+		var sites []sdk.Site
+		var keys []profileKey
+		var legs []sdk.MoveLeg
+		for z, zn := range sc.Zones {
+			for _, m := range zoneMethods(zn, rd.info) {
+				keys = append(keys, profileKey{z, m})
+				sites = append(sites, sdk.Site{
+					ID: fmt.Sprintf("%s/%s", zn.ID, m), Method: m,
+					DepthFt:          depthFor(zn, m),
+					SampleIntervalFt: zn.Rules.SampleIntervalFt,
+					Surface:          zn.Ground.Surface, SlopePct: zn.Ground.SlopePct,
+					OverheadFt: zn.Ground.OverheadFt, GroundwaterFt: zn.Ground.GroundwaterFt,
+					RockFt:        zn.Ground.RockFt,
+					Environmental: zn.Use == scenarios.UseEnvironmental,
+				})
+				legs = append(legs, sdk.MoveLeg{DistanceFt: moveDistanceFt(zn), Surface: zn.Ground.Surface, SlopePct: zn.Ground.SlopePct})
+			}
+		}
+		if len(sites) == 0 {
+			continue
+		}
+		ans, err := rd.rig.Assess(ctx, sdk.AssessRequest{Sites: sites})
+		if err != nil {
+			return nil, fmt.Errorf("rig %q: assess: %w", rd.name, err)
+		}
+		if len(ans.Answers) != len(sites) {
+			return nil, fmt.Errorf("rig %q: assess: %d answers for %d sites", rd.name, len(ans.Answers), len(sites))
+		}
+		mv, err := rd.rig.Moves(ctx, sdk.MovesRequest{Legs: legs})
+		if err != nil {
+			return nil, fmt.Errorf("rig %q: moves: %w", rd.name, err)
+		}
+		if len(mv.Hours) != len(legs) {
+			return nil, fmt.Errorf("rig %q: moves: %d answers for %d legs", rd.name, len(mv.Hours), len(legs))
+		}
+		for k, a := range ans.Answers {
+			p := profile{answer: a, move: mv.Hours[k]}
+			if a.Feasible {
+				c, err := price(in.RateBook, a.Quantities, rd.name)
+				if err != nil {
+					return nil, err
+				}
+				p.cost = c
+			}
+			rd.profiles[keys[k]] = p
+		}
+		rd.mob, err = rd.rig.Mobilize(ctx, sdk.MobilizeRequest{DistanceMi: sc.YardMiles})
+		if err != nil {
+			return nil, fmt.Errorf("rig %q: mobilize: %w", rd.name, err)
+		}
+		if rd.mobCost, err = price(in.RateBook, rd.mob.Quantities, rd.name); err != nil {
+			return nil, err
+		}
+		if rd.dayCost, err = price(in.RateBook, rd.info.DayItems, rd.name); err != nil {
+			return nil, err
+		}
+	}
+
+	// Every zone needs at least one way to be explored.
+	for z, zn := range sc.Zones {
+		if err := zoneReachable(pr, z, zn); err != nil {
+			return nil, err
+		}
+	}
+
+	spec := &model.Spec{
+		NumPoints:   len(lay.Candidates),
+		PointZone:   make([]int, len(lay.Candidates)),
+		Required:    make([]bool, len(lay.Candidates)),
+		CoverRows:   lay.RowCells,
+		HoursPerDay: sc.HoursDay,
+		DaysWeight:  0.01, // tie-break: among equally cheap plans, finish first
+		Budget:      opt.Budget,
+		MaxDays:     opt.MaxDays,
+	}
+	for p, c := range lay.Candidates {
+		spec.PointZone[p] = c.Zone
+		spec.Required[p] = c.Required
+		zn := sc.Zones[c.Zone]
+		for ri := range pr.Rigs {
+			rd := &pr.Rigs[ri]
+			for _, m := range allMethods {
+				prof, ok := rd.profiles[profileKey{c.Zone, m}]
+				if !ok || !prof.answer.Feasible {
+					continue
+				}
+				pr.Options = append(pr.Options, optionData{point: p, zone: c.Zone, method: m, rig: ri, depth: depthFor(zn, m), prof: prof})
+				spec.Options = append(spec.Options, model.Option{
+					Point: p, Rig: ri, Sampled: m.Sampled(),
+					Cost: prof.cost, Hours: prof.answer.Hours.Total() + prof.move,
+					Label: fmt.Sprintf("%s_%s", m, rd.name),
+				})
+			}
+		}
+	}
+	pr.ZoneMin = make([]int, len(sc.Zones))
+	for z, zn := range sc.Zones {
+		n := zn.Rules.MinPoints
+		if zn.Rules.AreaPerPointFt2 > 0 {
+			if k := int(math.Ceil(zn.Polygon.Area()/zn.Rules.AreaPerPointFt2 - 1e-9)); k > n {
+				n = k
+			}
+		}
+		pr.ZoneMin[z] = n
+		spec.Zones = append(spec.Zones, model.Zone{Name: zn.Name, MinCount: n, SampledShare: zn.Rules.SampledShare})
+	}
+	for _, rd := range pr.Rigs {
+		spec.Rigs = append(spec.Rigs, model.Rig{Name: rd.name, MobCost: rd.mobCost, MobHours: rd.mob.Hours, DayCost: rd.dayCost})
+	}
+	m, err := model.Build(spec)
+	if err != nil {
+		if errors.Is(err, model.ErrNoOption) {
+			return nil, inputErrorf("%s: %v", sc.Source, err)
+		}
+		return nil, err
+	}
+	pr.Spec, pr.Model = spec, m
+	return pr, nil
+}
+
+// zoneMethods lists the methods a zone allows that a rig performs, in the
+// fixed method order.
+func zoneMethods(zn scenarios.Zone, info sdk.RigInfo) []sdk.Method {
+	var out []sdk.Method
+	for _, m := range allMethods {
+		if len(zn.Rules.Methods) > 0 && !containsMethod(zn.Rules.Methods, m) {
+			continue
+		}
+		for _, ml := range info.Methods {
+			if ml.Method == m {
+				out = append(out, m)
+				break
+			}
+		}
+	}
+	return out
+}
+
+func containsMethod(ms []sdk.Method, m sdk.Method) bool {
+	for _, x := range ms {
+		if x == m {
+			return true
+		}
+	}
+	return false
+}
+
+func depthFor(zn scenarios.Zone, m sdk.Method) float64 {
+	if zn.Rules.MinDepthFt > 0 {
+		return zn.Rules.MinDepthFt
+	}
+	return DefaultDepthFt[m]
+}
+
+// moveDistanceFt is the typical move between neighbouring points of a zone:
+// the rule spacing when there is one, else the side of the area per point.
+func moveDistanceFt(zn scenarios.Zone) float64 {
+	switch {
+	case zn.Rules.MaxSpacingFt > 0:
+		return zn.Rules.MaxSpacingFt
+	case zn.Rules.AreaPerPointFt2 > 0:
+		return math.Sqrt(zn.Rules.AreaPerPointFt2)
+	}
+	return math.Sqrt(zn.Polygon.Area()) / 2
+}
+
+// price multiplies quantities by unit prices; a quantity with no price is an
+// error naming the item.
+func price(rb *ratebooks.RateBook, qs []sdk.Quantity, rig string) (float64, error) {
+	total := 0.0
+	for _, q := range qs {
+		it, ok := rb.Price(q.Item)
+		if !ok {
+			return 0, inputErrorf("%s: rate book %q has no price for item %q (%s), which rig %q reports; add it to the rate book's items", rb.Source, rb.Name, q.Item, q.Unit, rig)
+		}
+		if it.Unit != q.Unit {
+			return 0, inputErrorf("%s: item %q is priced per %q but rig %q reports it in %q", rb.Source, q.Item, it.Unit, rig, q.Unit)
+		}
+		total += q.Amount * it.UnitPrice
+	}
+	return total, nil
+}
+
+// zoneReachable explains, when no offered rig can explore a zone, why each
+// one cannot.
+func zoneReachable(pr *Prepared, z int, zn scenarios.Zone) error {
+	var why []string
+	for _, rd := range pr.Rigs {
+		ms := zoneMethods(zn, rd.info)
+		if len(ms) == 0 {
+			why = append(why, fmt.Sprintf("%s performs none of the methods allowed", rd.name))
+			continue
+		}
+		for _, m := range ms {
+			p := rd.profiles[profileKey{z, m}]
+			if p.answer.Feasible {
+				return nil
+			}
+			why = append(why, fmt.Sprintf("%s (%s): %s", rd.name, m, p.answer.Reason))
+		}
+	}
+	if len(pr.Rigs) == 0 {
+		why = append(why, "no rigs are offered")
+	}
+	return inputErrorf("%s: zone %q cannot be explored by any offered rig: %s", pr.In.Scenario.Source, zn.ID, strings.Join(why, "; "))
+}

@@ -1,0 +1,200 @@
+// Package report renders a plan for people and for other programs: terminal
+// tables, plan JSON, a points CSV and GeoJSON (RFC 7946) for stakeout and GIS.
+// Renderers write to an io.Writer; they never open files.
+package report
+
+import (
+	"bytes"
+	"encoding/csv"
+	"encoding/json"
+	"fmt"
+	"io"
+	"sort"
+	"strconv"
+	"strings"
+	"text/tabwriter"
+
+	"github.com/rigmix/rigmix/optimizer/plan"
+)
+
+// JSON writes the plan as indented JSON (the plan file; schema in
+// optimizer/plan/SCHEMA.md).
+func JSON(w io.Writer, p *plan.Plan) error {
+	b, err := json.MarshalIndent(p, "", "  ")
+	if err != nil {
+		return err
+	}
+	b = append(b, '\n')
+	_, err = w.Write(b)
+	return err
+}
+
+// PointsCSV writes one row per exploration point.
+func PointsCSV(w io.Writer, p *plan.Plan) error {
+	cw := csv.NewWriter(w)
+	_ = cw.Write([]string{"id", "zone", "x_ft", "y_ft", "lon", "lat", "method", "rig", "depth_ft", "sample_interval_ft", "hours", "cost"})
+	for _, pt := range p.Points {
+		lon, lat := "", ""
+		if pt.Lon != nil {
+			lon, lat = ftoa(*pt.Lon), ftoa(*pt.Lat)
+		}
+		_ = cw.Write([]string{pt.ID, pt.Zone, ftoa(pt.XFt), ftoa(pt.YFt), lon, lat, pt.Method, pt.Rig,
+			ftoa(pt.DepthFt), ftoa(pt.SampleIntervalFt), ftoa(pt.Hours), ftoa(pt.Cost)})
+	}
+	cw.Flush()
+	return cw.Error()
+}
+
+// GeoJSON writes the points as an RFC 7946 FeatureCollection. RFC 7946
+// requires WGS 84 longitude and latitude, so a scenario without an origin
+// cannot be written; the error says so.
+func GeoJSON(w io.Writer, p *plan.Plan) error {
+	type geometry struct {
+		Type        string    `json:"type"`
+		Coordinates []float64 `json:"coordinates"`
+	}
+	type feature struct {
+		Type       string         `json:"type"`
+		ID         string         `json:"id"`
+		Geometry   geometry       `json:"geometry"`
+		Properties map[string]any `json:"properties"`
+	}
+	fc := struct {
+		Type     string    `json:"type"`
+		Features []feature `json:"features"`
+	}{Type: "FeatureCollection", Features: []feature{}}
+	for _, pt := range p.Points {
+		if pt.Lon == nil {
+			return fmt.Errorf("report: GeoJSON needs WGS 84 positions, and scenario %q gives no origin: add origin (lon, lat) to the scenario", p.Scenario.Name)
+		}
+		fc.Features = append(fc.Features, feature{
+			Type: "Feature", ID: pt.ID,
+			Geometry: geometry{Type: "Point", Coordinates: []float64{*pt.Lon, *pt.Lat}},
+			Properties: map[string]any{ // encoding/json sorts map keys: stable output
+				"zone": pt.Zone, "method": pt.Method, "rig": pt.Rig, "depth_ft": pt.DepthFt,
+				"sample_interval_ft": pt.SampleIntervalFt, "x_ft": pt.XFt, "y_ft": pt.YFt,
+			},
+		})
+	}
+	b, err := json.MarshalIndent(fc, "", "  ")
+	if err != nil {
+		return err
+	}
+	_, err = w.Write(append(b, '\n'))
+	return err
+}
+
+// Text writes the plan for a terminal: summary, points by method and rig,
+// the itemized estimate, rigs and field days, rules, solver, cautions.
+func Text(w io.Writer, p *plan.Plan) error {
+	var b bytes.Buffer
+	cur := p.RateBook.Currency
+	fmt.Fprintf(&b, "rigmix plan — %s\n", p.Scenario.Title)
+	fmt.Fprintf(&b, "scenario %s (%s)%s\n", p.Scenario.Name, p.Scenario.Source, demoNote(p.Scenario.Demo))
+	fmt.Fprintf(&b, "rate book %s, %s, effective %s%s\n\n", p.RateBook.Name, p.RateBook.Region, p.RateBook.Effective, demoNote(p.RateBook.Demo))
+
+	fmt.Fprintf(&b, "Program: %d points, %s total, %d field days (rigs in parallel), %.1f%% of ruled ground covered\n\n",
+		len(p.Points), money(p.Total, cur), p.Finish, p.Coverage.CoveredPercent)
+
+	b.WriteString("Points by method and rig\n")
+	tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', tabwriter.AlignRight)
+	counts := map[[2]string]int{}
+	for _, pt := range p.Points {
+		counts[[2]string{pt.Method, pt.Rig}]++
+	}
+	keys := make([][2]string, 0, len(counts))
+	for k := range counts {
+		keys = append(keys, k)
+	}
+	sort.Slice(keys, func(i, j int) bool {
+		if keys[i][0] != keys[j][0] {
+			return keys[i][0] < keys[j][0]
+		}
+		return keys[i][1] < keys[j][1]
+	})
+	fmt.Fprintln(tw, "method\trig\tpoints\t")
+	for _, k := range keys {
+		fmt.Fprintf(tw, "%s\t%s\t%d\t\n", k[0], k[1], counts[k])
+	}
+	tw.Flush()
+
+	b.WriteString("\nItemized estimate\n")
+	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', tabwriter.AlignRight)
+	fmt.Fprintf(tw, "item\tdescription\tquantity\tunit\tunit price\textension\t\n")
+	for _, l := range p.Estimate {
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t\n", l.Item, l.Description, ftoa(l.Quantity), l.Unit, money(l.UnitPrice, ""), money(l.Extension, ""))
+	}
+	fmt.Fprintf(tw, "total\t\t\t\t%s\t%s\t\n", cur, money(p.Total, ""))
+	tw.Flush()
+
+	b.WriteString("\nRigs\n")
+	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', tabwriter.AlignRight)
+	fmt.Fprintf(tw, "rig\tmobilized\tpoints\thours on points\tmobilization h\tfield days\t\n")
+	for _, r := range p.Rigs {
+		fmt.Fprintf(tw, "%s\t%s\t%d\t%.1f\t%.1f\t%d\t\n", r.Name, yesNo(r.Mobilized), r.Points, r.Hours, r.MobHours, r.FieldDays)
+	}
+	tw.Flush()
+
+	b.WriteString("\nRules\n")
+	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
+	fmt.Fprintf(tw, "zone\trule\trequired\tachieved\tmet\tsource\n")
+	for _, r := range p.Rules {
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\n", r.Zone, r.Rule, r.Required, r.Achieved, yesNo(r.Met), r.Source)
+	}
+	tw.Flush()
+
+	s := p.Solver
+	fmt.Fprintf(&b, "\nSolver: %s, objective %s, bound %s, gap %.4f%%, %d nodes; model %d rows × %d columns from %d candidates\n",
+		s.Status, ftoa(s.Objective), ftoa(s.Bound), 100*s.Gap, s.Nodes, s.Rows, s.Columns, s.Candidates)
+
+	if len(p.Warnings) > 0 {
+		b.WriteString("\nWarnings\n")
+		for _, w := range p.Warnings {
+			fmt.Fprintf(&b, "  ! %s\n", w)
+		}
+	}
+	b.WriteString("\nCautions\n")
+	for _, c := range p.Cautions {
+		fmt.Fprintf(&b, "  * %s\n", c)
+	}
+	_, err := w.Write(b.Bytes())
+	return err
+}
+
+func demoNote(demo bool) string {
+	if demo {
+		return " — invented demo data"
+	}
+	return ""
+}
+
+func yesNo(b bool) string {
+	if b {
+		return "yes"
+	}
+	return "no"
+}
+
+func ftoa(v float64) string { return strconv.FormatFloat(v, 'f', -1, 64) }
+
+// money formats an amount with thousands separators and two decimals.
+func money(v float64, cur string) string {
+	s := strconv.FormatFloat(v, 'f', 2, 64)
+	neg := strings.HasPrefix(s, "-")
+	s = strings.TrimPrefix(s, "-")
+	intPart, frac := s[:len(s)-3], s[len(s)-3:]
+	var g []string
+	for len(intPart) > 3 {
+		g = append([]string{intPart[len(intPart)-3:]}, g...)
+		intPart = intPart[:len(intPart)-3]
+	}
+	g = append([]string{intPart}, g...)
+	out := strings.Join(g, ",") + frac
+	if neg {
+		out = "-" + out
+	}
+	if cur != "" {
+		out = cur + " " + out
+	}
+	return out
+}
