@@ -1,0 +1,94 @@
+// Package lp is rigmix's linear programming engine: a sparse,
+// bounded-variable primal and dual simplex method on a factorized basis,
+// written in pure Go, that keeps its basis between solves so that the
+// branch and bound of package mip and the trade-off sweeps re-solve warm.
+//
+// # Problem and computational form
+//
+// A Problem is
+//
+//	minimize cᵀx  subject to  RowLo ≤ A x ≤ RowUp,  ColLo ≤ x ≤ ColUp,
+//
+// with A in compressed sparse columns. The solver adds one logical
+// variable s_i per row and works on
+//
+//	A x + s = 0,   ColLo ≤ x ≤ ColUp,   −RowUp ≤ s ≤ −RowLo,
+//
+// (Koberstein 2005, §2.2), so every constraint is a bound on a variable
+// and the logicals give the identity as a starting basis. A basis is m
+// of the n+m variables; the others are nonbasic at their lower bound, at
+// their upper bound, or (free variables) at zero. With B the basis
+// columns and N the rest, the basic solution is x_B = −B⁻¹N x_N, the
+// simplex multipliers are y = B⁻ᵀc_B and the reduced costs d = c − [A I]ᵀy.
+// The basis is optimal when x_B is within its bounds (primal feasible)
+// and every nonbasic d_j has the sign its bound calls for (dual
+// feasible): d_j ≥ 0 at a lower bound, ≤ 0 at an upper, = 0 if free.
+//
+// # Algorithms
+//
+// Dual simplex (dual.go), the workhorse after bound changes: dual
+// steepest-edge pricing (Forrest & Goldfarb 1992), the bound flipping
+// ratio test (Fourer 1994; Koberstein 2005 §3.1.2) with Harris's (1973)
+// two-pass tolerances, cost shifting when the Harris step would leave the
+// entering reduced cost wrong-signed, and a random cost perturbation
+// (fixed seed) against dual degeneracy (Koberstein 2005 §6.2.2.3). Boxed
+// nonbasic variables are always made dual feasible by putting them at the
+// bound their reduced cost calls for.
+//
+// Primal simplex (primal.go), used when the starting basis is not dual
+// feasible (after objective changes, or from scratch when neither
+// feasibility holds): composite phase 1 minimizing the sum of bound
+// violations (Maros 2003, ch. 9), then phase 2; Devex-style pricing;
+// Harris ratio test; bound flips of a boxed entering variable.
+//
+// After either method the perturbation and shifts are removed, the basis
+// is refactorized, x, y and d are recomputed, and the other method cleans
+// up any infeasibility that appears.
+//
+// # Linear algebra
+//
+// The basis is factorized as B = L̃U by a left-looking sparse LU (Gilbert
+// & Peierls 1988) with threshold partial pivoting and a row-count
+// (Markowitz 1957) tie break, columns taken in order of increasing count
+// (lu.go). Basis changes are appended as an eta file in product form
+// (Dantzig & Orchard-Hays 1954; Maros 2003 ch. 8) and the basis is
+// refactorized every 100 changes. A dependent basis found while
+// factorizing is repaired by replacing columns with row logicals. Pivot
+// rows are computed row-wise from the nonzeros of ρ = B⁻ᵀe_r.
+//
+// # Tolerances
+//
+// Primal feasibility FeasTol·max(1, |bound|) with FeasTol 1e-9 by
+// default; dual feasibility OptTol 1e-9; pivots |α| ≥ 1e-7 in the ratio
+// tests (Koberstein 2005 §6.2 lists 1e-7…1e-9 as common practice); LU
+// threshold 0.1 (Duff, Erisman & Reid 1986). No scaling is applied.
+//
+// # Determinism
+//
+// No maps are iterated and no goroutines are used; the perturbation comes
+// from a xorshift generator with a fixed seed reset at every Solve. The
+// same input gives the same output bit for bit.
+//
+// # References
+//
+//   - Bixby, R.E. (2002). Solving real-world linear programs: a decade and
+//     more of progress. Operations Research 50(1), 3–15.
+//   - Dantzig, G.B., Orchard-Hays, W. (1954). The product form for the
+//     inverse in the simplex method. MTAC 8(46), 64–67.
+//   - Duff, I.S., Erisman, A.M., Reid, J.K. (1986). Direct Methods for
+//     Sparse Matrices. Oxford.
+//   - Forrest, J.J., Goldfarb, D. (1992). Steepest-edge simplex algorithms
+//     for linear programming. Mathematical Programming 57, 341–374.
+//   - Fourer, R. (1994). Notes on the dual simplex method. Unpublished.
+//   - Gilbert, J.R., Peierls, T. (1988). Sparse partial pivoting in time
+//     proportional to arithmetic operations. SIAM J. Sci. Stat. Comput.
+//     9(5), 862–874.
+//   - Harris, P.M.J. (1973). Pivot selection methods of the Devex LP code.
+//     Mathematical Programming 5, 1–28.
+//   - Koberstein, A. (2005). The dual simplex method, techniques for a fast
+//     and stable implementation. PhD thesis, Universität Paderborn.
+//   - Maros, I. (2003). Computational Techniques of the Simplex Method.
+//     Kluwer.
+//   - Markowitz, H.M. (1957). The elimination form of the inverse and its
+//     application to linear programming. Management Science 3, 255–269.
+package lp

@@ -1,0 +1,254 @@
+package lp
+
+import "math"
+
+// dualSimplex runs the bounded dual simplex (phase 2) from a dual
+// feasible basis, following Koberstein (2005, Algorithm 4 with the bound
+// flipping ratio test of §3.1.2 and the dual steepest edge pricing of
+// §3.3, after Forrest & Goldfarb 1992).
+//
+// Each iteration:
+//  1. Pricing: pick the basic variable p (position r) with the largest
+//     δ²/w_r, δ its bound violation and w_r ≈ ‖e_rᵀB⁻¹‖² its weight.
+//  2. BTRAN ρ = B⁻ᵀe_r and the pivot row α_j = ρᵀa_j for nonbasic j.
+//  3. Ratio test: with σ = sign(δ) the dual step t ≥ 0 moves each reduced
+//     cost d_j(t) = d_j − tσα_j; breakpoints are where a d_j would change
+//     sign. Passing the breakpoint of a boxed variable flips it to its
+//     other bound and lowers the slope of the dual objective, initially
+//     |δ|, by |α_j|(u_j − l_j) (bound flipping, Fourer 1994; Maros 2003).
+//     The entering q is taken among the breakpoints within Harris's
+//     (1973) tolerance band, by largest |α_q|.
+//  4. FTRAN α_q = B⁻¹a_q (and B⁻¹ of the flipped columns, and τ = B⁻¹ρ
+//     for the weights); update x_B, d, the weights and the eta file.
+func (s *Solver) dualSimplex() (Status, error) {
+	tolD := s.opt.optTol()
+	for {
+		if s.checkStop() {
+			return s.stopStat, nil
+		}
+		if s.lu.numEtas() >= refactorEvery {
+			if err := s.refactor(); err != nil {
+				return 0, err
+			}
+			s.computePrimal()
+			s.computeDual()
+		}
+		// 1. Pricing.
+		r := -1
+		best := 0.0
+		var delta float64
+		for p, j := range s.head {
+			v := s.infeasibility(j)
+			if v == 0 {
+				continue
+			}
+			if sc := v * v / s.dse[p]; sc > best {
+				r, best, delta = p, sc, v
+			}
+		}
+		if r < 0 {
+			return Optimal, nil
+		}
+		p := s.head[r]
+		sigma := 1.0
+		target := s.up[p]
+		if delta < 0 {
+			sigma = -1
+			target = s.lo[p]
+		}
+		// 2. ρ and the pivot row.
+		rho := s.rho
+		for i := range rho {
+			rho[i] = 0
+		}
+		rho[r] = 1
+		s.lu.btran(rho)
+		list := s.pivotRow(rho)
+
+		// 3. Bound flipping ratio test with Harris tolerances.
+		cand := s.rowList[:0]
+		for _, j := range list {
+			if s.lo[j] == s.up[j] {
+				continue
+			}
+			a := sigma * s.rowAlpha[j]
+			switch s.stat[j] {
+			case stLower:
+				if a > pivotTol {
+					cand = append(cand, j)
+				}
+			case stUpper:
+				if a < -pivotTol {
+					cand = append(cand, j)
+				}
+			case stFree:
+				if math.Abs(a) > pivotTol {
+					cand = append(cand, j)
+				}
+			}
+		}
+		slope := math.Abs(delta)
+		q := -1
+		nflip := 0
+		flips := s.flipList[:0]
+		for len(cand) > 0 {
+			tmax := math.Inf(1)
+			for _, j := range cand {
+				a := sigma * s.rowAlpha[j]
+				var t float64
+				switch s.stat[j] {
+				case stLower:
+					t = (s.d[j] + tolD) / a
+				case stUpper:
+					t = (s.d[j] - tolD) / a
+				default:
+					t = (math.Abs(s.d[j]) + tolD) / math.Abs(a)
+				}
+				if t < tmax {
+					tmax = t
+				}
+			}
+			q = -1
+			bestA := 0.0
+			reduction := 0.0
+			k := 0
+			group := s.groupList[:0]
+			for _, j := range cand {
+				a := sigma * s.rowAlpha[j]
+				t := s.d[j] / a
+				if s.stat[j] == stFree {
+					t = math.Abs(s.d[j]) / math.Abs(a)
+				}
+				if t <= tmax {
+					group = append(group, j)
+					if math.Abs(a) > bestA {
+						q, bestA = j, math.Abs(a)
+					}
+					reduction += math.Abs(a) * (s.up[j] - s.lo[j])
+				} else {
+					cand[k] = j
+					k++
+				}
+			}
+			s.groupList = group
+			cand = cand[:k]
+			if slope-reduction > 0 && !math.IsInf(reduction, 1) && len(cand) > 0 {
+				// Pass the whole group: flip them and go on.
+				flips = append(flips, group...)
+				slope -= reduction
+				continue
+			}
+			if slope-reduction > 0 && !math.IsInf(reduction, 1) && len(cand) == 0 {
+				// Every breakpoint passed and the slope stays positive:
+				// the dual is unbounded, the primal infeasible.
+				q = -1
+			}
+			break
+		}
+		s.flipList = flips
+		s.rowList = cand[:0]
+		if q < 0 {
+			return Infeasible, nil
+		}
+		alphaRQ := s.rowAlpha[q]
+		// 4. FTRAN of the entering column; check it against the row.
+		s.ftranCol(q, s.alpha)
+		alpha := s.alpha
+		if math.Abs(alpha[r]-alphaRQ) > 1e-8*(1+math.Abs(alphaRQ)) && s.lu.numEtas() > 0 {
+			// Accuracy lost: refactorize and redo the iteration.
+			if err := s.refactor(); err != nil {
+				return 0, err
+			}
+			s.computePrimal()
+			s.computeDual()
+			continue
+		}
+		alphaRQ = alpha[r]
+
+		// Bound flips: x_B −= B⁻¹ Σ a_j Δx_j.
+		if len(flips) > 0 {
+			fc := s.flipCol
+			for i := range fc {
+				fc[i] = 0
+			}
+			for _, j := range flips {
+				var dx float64
+				if s.stat[j] == stLower {
+					s.stat[j] = stUpper
+					dx = s.up[j] - s.lo[j]
+				} else {
+					s.stat[j] = stLower
+					dx = s.lo[j] - s.up[j]
+				}
+				s.x[j] += dx
+				idx, val := s.column(j)
+				for k, i := range idx {
+					fc[i] += val[k] * dx
+				}
+			}
+			s.lu.ftran(fc)
+			for pos, j := range s.head {
+				s.x[j] -= fc[pos]
+			}
+			nflip += len(flips)
+		}
+
+		// Dual step, with a cost shift if Harris let d_q go wrong-signed.
+		thetaD := s.d[q] / alphaRQ
+		if thetaD*sigma < 0 {
+			s.cost[q] -= s.d[q]
+			s.d[q] = 0
+			thetaD = 0
+		}
+		if thetaD != 0 {
+			for _, j := range list {
+				s.d[j] -= thetaD * s.rowAlpha[j]
+			}
+		}
+		s.d[q] = 0
+		s.d[p] = -thetaD
+
+		// Dual steepest edge weights (Forrest & Goldfarb 1992):
+		// w_r' = w_r/α_r², w_i' = w_i − 2(α_i/α_r)τ_i + (α_i/α_r)² w_r.
+		wr := 0.0
+		for _, v := range rho {
+			wr += v * v
+		}
+		tau := s.tau
+		copy(tau, rho)
+		s.lu.ftran(tau)
+		for i, ai := range alpha {
+			if i == r || ai == 0 {
+				continue
+			}
+			ratio := ai / alphaRQ
+			w := s.dse[i] + ratio*(ratio*wr-2*tau[i])
+			if w < 1e-4 {
+				w = 1e-4
+			}
+			s.dse[i] = w
+		}
+		s.dse[r] = math.Max(wr/(alphaRQ*alphaRQ), 1e-4)
+
+		// Primal step: p goes to its violated bound.
+		thetaP := (s.x[p] - target) / alphaRQ
+		for i, ai := range alpha {
+			if ai != 0 {
+				s.x[s.head[i]] -= thetaP * ai
+			}
+		}
+		s.x[q] += thetaP
+		s.x[p] = target
+
+		// Basis change.
+		if sigma < 0 || s.lo[p] == s.up[p] {
+			s.stat[p] = stLower
+		} else {
+			s.stat[p] = stUpper
+		}
+		s.stat[q] = stBasic
+		s.head[r] = q
+		s.lu.update(r, alpha)
+		s.iters++
+	}
+}

@@ -1,0 +1,313 @@
+package lp
+
+import (
+	"math"
+	"sort"
+)
+
+// luFactor holds a sparse LU factorization of the basis matrix B together
+// with a product-form eta file for the basis changes since (Maros 2003,
+// ch. 8; Dantzig & Orchard-Hays 1954 for the product form).
+//
+// The factorization is left-looking (Gilbert & Peierls 1988): columns of
+// B are taken in order of increasing count (so the logical unit columns
+// come first and stay trivial), each is reduced by the L columns found so
+// far, and its pivot row is chosen by threshold partial pivoting — among
+// the entries within pivotRelTol of the largest, the one in the row of
+// least count, a Markowitz-style tie break that limits fill (Markowitz
+// 1957; Suhl & Suhl 1990 use the same threshold idea).
+//
+// With pivot k in row prow[k] and basis position pcol[k]:
+//
+//	B[:, pcol[k]] = Σ_{j≤k} U[j,k] · L̃_j,   L̃_j = e_{prow[j]} + L_j
+//
+// where L_j has entries only in rows pivoted after j. FTRAN solves
+// L̃ v = a forward and U t = v backward; BTRAN solves the transposes in
+// reverse. Both L and U are stored by columns, which serves FTRAN as
+// scatter (axpy, skipping zero multipliers) and BTRAN as gather (dot).
+type luFactor struct {
+	m    int
+	prow []int // pivot k → row
+	pcol []int // pivot k → basis position
+
+	lStart []int
+	lIdx   []int // row index
+	lVal   []float64
+
+	uStart []int
+	uIdx   []int // earlier pivot index j < k
+	uVal   []float64
+	uDiag  []float64
+
+	// Eta file: each eta replaces basis position etaPos[e]; its column is
+	// the FTRAN'd entering column with pivot etaPiv[e] at that position
+	// and off-pivot entries etaIdx/etaVal[etaStart[e]:etaStart[e+1]].
+	etaPos   []int
+	etaPiv   []float64
+	etaStart []int
+	etaIdx   []int
+	etaVal   []float64
+
+	work    []float64 // length m, kept zero between uses
+	work2   []float64
+	rowPiv  []int // row → pivot index, -1 while unpivoted
+	rowCnt  []int
+	order   []int
+	nnzBase int // nonzeros of L and U after the last factorization
+}
+
+// pivotRelTol is the threshold of threshold partial pivoting: a pivot
+// must be at least this fraction of the largest candidate in its column.
+// 0.1 is the common compromise between stability and sparsity (Duff,
+// Erisman & Reid, Direct Methods for Sparse Matrices, 1986, §7.8).
+const pivotRelTol = 0.1
+
+// singularTol: a reduced column whose largest entry is below this is
+// taken as dependent on the columns before it.
+const singularTol = 1e-9
+
+func newLU(m int) *luFactor {
+	return &luFactor{
+		m:      m,
+		work:   make([]float64, m),
+		work2:  make([]float64, m),
+		rowPiv: make([]int, m),
+		rowCnt: make([]int, m),
+	}
+}
+
+// colFunc returns the nonzeros of the column in basis position p.
+type colFunc func(p int) (idx []int, val []float64)
+
+// factor computes B = L̃U from the m basis columns. It returns the basis
+// positions whose columns were found dependent, each paired with a row
+// that no pivot took; the caller must put that row's logical into the
+// position (the factorization already assumes the unit column e_row
+// there).
+func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
+	m := f.m
+	f.prow = f.prow[:0]
+	f.pcol = f.pcol[:0]
+	f.lStart = append(f.lStart[:0], 0)
+	f.lIdx = f.lIdx[:0]
+	f.lVal = f.lVal[:0]
+	f.uStart = append(f.uStart[:0], 0)
+	f.uIdx = f.uIdx[:0]
+	f.uVal = f.uVal[:0]
+	f.uDiag = f.uDiag[:0]
+	f.clearEtas()
+
+	for i := range f.rowCnt {
+		f.rowCnt[i] = 0
+		f.rowPiv[i] = -1
+	}
+	f.order = f.order[:0]
+	for p := 0; p < m; p++ {
+		idx, _ := col(p)
+		for _, i := range idx {
+			f.rowCnt[i]++
+		}
+		f.order = append(f.order, p)
+	}
+	counts := make([]int, m)
+	for p := 0; p < m; p++ {
+		idx, _ := col(p)
+		counts[p] = len(idx)
+	}
+	sort.SliceStable(f.order, func(a, b int) bool { return counts[f.order[a]] < counts[f.order[b]] })
+
+	w := f.work
+	for _, p := range f.order {
+		idx, val := col(p)
+		for k, i := range idx {
+			w[i] = val[k]
+		}
+		k := len(f.prow)
+		// Reduce by the earlier L columns, in pivot order.
+		ustart := len(f.uIdx)
+		for j := 0; j < k; j++ {
+			v := w[f.prow[j]]
+			if v == 0 {
+				continue
+			}
+			w[f.prow[j]] = 0
+			f.uIdx = append(f.uIdx, j)
+			f.uVal = append(f.uVal, v)
+			for t := f.lStart[j]; t < f.lStart[j+1]; t++ {
+				w[f.lIdx[t]] -= v * f.lVal[t]
+			}
+		}
+		// Choose the pivot among unpivoted rows.
+		maxAbs := 0.0
+		for i := 0; i < m; i++ {
+			if f.rowPiv[i] < 0 {
+				if a := math.Abs(w[i]); a > maxAbs {
+					maxAbs = a
+				}
+			}
+		}
+		if maxAbs < singularTol {
+			// Dependent column: drop what was recorded, clear w.
+			f.uIdx = f.uIdx[:ustart]
+			f.uVal = f.uVal[:ustart]
+			for i := 0; i < m; i++ {
+				w[i] = 0
+			}
+			singPos = append(singPos, p)
+			continue
+		}
+		r := -1
+		best := 0
+		for i := 0; i < m; i++ {
+			if f.rowPiv[i] >= 0 {
+				continue
+			}
+			a := math.Abs(w[i])
+			if a < pivotRelTol*maxAbs {
+				continue
+			}
+			if r < 0 || f.rowCnt[i] < best || (f.rowCnt[i] == best && a > math.Abs(w[r])) {
+				r, best = i, f.rowCnt[i]
+			}
+		}
+		piv := w[r]
+		w[r] = 0
+		f.rowPiv[r] = k
+		f.prow = append(f.prow, r)
+		f.pcol = append(f.pcol, p)
+		f.uDiag = append(f.uDiag, piv)
+		f.uStart = append(f.uStart, len(f.uIdx))
+		for i := 0; i < m; i++ {
+			if w[i] != 0 {
+				if f.rowPiv[i] < 0 {
+					f.lIdx = append(f.lIdx, i)
+					f.lVal = append(f.lVal, w[i]/piv)
+				}
+				w[i] = 0
+			}
+		}
+		f.lStart = append(f.lStart, len(f.lIdx))
+	}
+	// Fill dependent positions with unit columns of unpivoted rows.
+	if len(singPos) > 0 {
+		for i := 0; i < m && len(singRow) < len(singPos); i++ {
+			if f.rowPiv[i] >= 0 {
+				continue
+			}
+			k := len(f.prow)
+			f.rowPiv[i] = k
+			f.prow = append(f.prow, i)
+			f.pcol = append(f.pcol, singPos[len(singRow)])
+			f.uDiag = append(f.uDiag, 1)
+			f.uStart = append(f.uStart, len(f.uIdx))
+			f.lStart = append(f.lStart, len(f.lIdx))
+			singRow = append(singRow, i)
+		}
+	}
+	f.nnzBase = len(f.lIdx) + len(f.uIdx) + m
+	return singPos, singRow
+}
+
+func (f *luFactor) clearEtas() {
+	f.etaPos = f.etaPos[:0]
+	f.etaPiv = f.etaPiv[:0]
+	f.etaStart = append(f.etaStart[:0], 0)
+	f.etaIdx = f.etaIdx[:0]
+	f.etaVal = f.etaVal[:0]
+}
+
+func (f *luFactor) numEtas() int { return len(f.etaPos) }
+
+// etaNnz is the number of nonzeros in the eta file.
+func (f *luFactor) etaNnz() int { return len(f.etaIdx) }
+
+// ftran overwrites a (indexed by rows, length m) with B⁻¹a indexed by
+// basis positions.
+func (f *luFactor) ftran(a []float64) {
+	m := f.m
+	// L̃ v = a.
+	for k := 0; k < m; k++ {
+		v := a[f.prow[k]]
+		if v == 0 {
+			continue
+		}
+		for t := f.lStart[k]; t < f.lStart[k+1]; t++ {
+			a[f.lIdx[t]] -= v * f.lVal[t]
+		}
+	}
+	// U t = v, t into out (indexed by position).
+	out := f.work2
+	for k := m - 1; k >= 0; k-- {
+		r := f.prow[k]
+		v := a[r]
+		if v == 0 {
+			out[f.pcol[k]] = 0
+			continue
+		}
+		a[r] = 0
+		tk := v / f.uDiag[k]
+		out[f.pcol[k]] = tk
+		for t := f.uStart[k]; t < f.uStart[k+1]; t++ {
+			a[f.prow[f.uIdx[t]]] -= f.uVal[t] * tk
+		}
+	}
+	copy(a, out)
+	// Eta file, oldest first.
+	for e := range f.etaPos {
+		r := f.etaPos[e]
+		zr := a[r]
+		if zr == 0 {
+			continue
+		}
+		zr /= f.etaPiv[e]
+		a[r] = zr
+		for t := f.etaStart[e]; t < f.etaStart[e+1]; t++ {
+			a[f.etaIdx[t]] -= f.etaVal[t] * zr
+		}
+	}
+}
+
+// btran overwrites c (indexed by basis positions, length m) with the y
+// (indexed by rows) that solves Bᵀy = c.
+func (f *luFactor) btran(c []float64) {
+	m := f.m
+	for e := len(f.etaPos) - 1; e >= 0; e-- {
+		r := f.etaPos[e]
+		v := c[r]
+		for t := f.etaStart[e]; t < f.etaStart[e+1]; t++ {
+			v -= f.etaVal[t] * c[f.etaIdx[t]]
+		}
+		c[r] = v / f.etaPiv[e]
+	}
+	// Uᵀ s = c (by pivot), s stored in work2 by pivot index.
+	s := f.work2
+	for k := 0; k < m; k++ {
+		v := c[f.pcol[k]]
+		for t := f.uStart[k]; t < f.uStart[k+1]; t++ {
+			v -= f.uVal[t] * s[f.uIdx[t]]
+		}
+		s[k] = v / f.uDiag[k]
+	}
+	// L̃ᵀ y = s, backward.
+	for k := m - 1; k >= 0; k-- {
+		v := s[k]
+		for t := f.lStart[k]; t < f.lStart[k+1]; t++ {
+			v -= f.lVal[t] * c[f.lIdx[t]]
+		}
+		c[f.prow[k]] = v
+	}
+}
+
+// update records that basis position r now holds the column whose FTRAN
+// is alpha (indexed by positions).
+func (f *luFactor) update(r int, alpha []float64) {
+	f.etaPos = append(f.etaPos, r)
+	f.etaPiv = append(f.etaPiv, alpha[r])
+	for i, v := range alpha {
+		if i != r && v != 0 {
+			f.etaIdx = append(f.etaIdx, i)
+			f.etaVal = append(f.etaVal, v)
+		}
+	}
+	f.etaStart = append(f.etaStart, len(f.etaIdx))
+}

@@ -1,0 +1,243 @@
+package lp
+
+import "math"
+
+// primalSimplex runs the bounded primal simplex: phase 1 minimizes the
+// sum of bound violations of the basic variables (the composite
+// piecewise-linear objective of Maros 2003, ch. 9, with costs −1 below
+// the lower bound and +1 above the upper), phase 2 the true objective.
+// The ratio test uses Harris's (1973) two passes; a boxed entering
+// variable that reaches its own opposite bound first is flipped without
+// a basis change. Pricing is Devex (Harris 1973) in reference framework
+// form, reset at each phase start.
+func (s *Solver) primalSimplex() (Status, error) {
+	N := s.n + s.m
+	tolD := s.opt.optTol()
+	y := s.rho
+	devex := make([]float64, N)
+	for j := range devex {
+		devex[j] = 1
+	}
+	lastPhase1 := true
+	for {
+		if s.checkStop() {
+			return s.stopStat, nil
+		}
+		if s.lu.numEtas() >= refactorEvery {
+			if err := s.refactor(); err != nil {
+				return 0, err
+			}
+			s.computePrimal()
+		}
+		// Phase costs on the basis.
+		phase1 := false
+		for p, j := range s.head {
+			v := s.infeasibility(j)
+			switch {
+			case v < 0:
+				y[p] = -1
+				phase1 = true
+			case v > 0:
+				y[p] = 1
+				phase1 = true
+			default:
+				y[p] = 0
+			}
+		}
+		if phase1 != lastPhase1 {
+			for j := range devex {
+				devex[j] = 1
+			}
+			lastPhase1 = phase1
+		}
+		if !phase1 {
+			for p, j := range s.head {
+				y[p] = s.cost[j]
+			}
+		}
+		if s.m > 0 {
+			s.lu.btran(y)
+		}
+		// Pricing over nonbasic variables.
+		q := -1
+		best := 0.0
+		dq := 0.0
+		for j := 0; j < N; j++ {
+			st := s.stat[j]
+			if st == stBasic || s.lo[j] == s.up[j] {
+				continue
+			}
+			var dj float64
+			if !phase1 {
+				dj = s.cost[j]
+			}
+			if j < s.n {
+				for k := s.prob.ColStart[j]; k < s.prob.ColStart[j+1]; k++ {
+					dj -= s.prob.Value[k] * y[s.prob.RowIndex[k]]
+				}
+			} else {
+				dj -= y[j-s.n]
+			}
+			s.d[j] = dj
+			var viol float64
+			switch st {
+			case stLower:
+				viol = -dj
+			case stUpper:
+				viol = dj
+			case stFree:
+				viol = math.Abs(dj)
+			}
+			if viol <= tolD {
+				continue
+			}
+			if sc := viol * viol / devex[j]; sc > best {
+				q, best, dq = j, sc, dj
+			}
+		}
+		if q < 0 {
+			if phase1 {
+				return Infeasible, nil
+			}
+			for _, j := range s.head {
+				s.d[j] = 0
+			}
+			return Optimal, nil
+		}
+		dir := 1.0
+		if dq > 0 {
+			dir = -1
+		}
+		s.ftranCol(q, s.alpha)
+		alpha := s.alpha
+
+		// Harris pass 1: the largest step keeping every basic variable
+		// within its tolerance-widened bounds.
+		tmax := math.Inf(1)
+		rangeQ := s.up[q] - s.lo[q]
+		for i, ai := range alpha {
+			if math.Abs(ai) <= pivotTol {
+				continue
+			}
+			g := -dir * ai // dx_B[i]/dt
+			j := s.head[i]
+			lim := s.stepLimit(j, g, true)
+			if lim < tmax {
+				tmax = lim
+			}
+		}
+		if rangeQ <= tmax {
+			// Bound flip of the entering variable.
+			if math.IsInf(rangeQ, 1) {
+				if phase1 {
+					return 0, ErrNumerical
+				}
+				return Unbounded, nil
+			}
+			step := dir * rangeQ
+			for i, ai := range alpha {
+				if ai != 0 {
+					s.x[s.head[i]] -= step * ai
+				}
+			}
+			s.x[q] += step
+			if s.stat[q] == stLower {
+				s.stat[q] = stUpper
+				s.x[q] = s.up[q]
+			} else {
+				s.stat[q] = stLower
+				s.x[q] = s.lo[q]
+			}
+			s.iters++
+			continue
+		}
+		// Harris pass 2: among the blocking variables within tmax, the
+		// largest |α|.
+		r := -1
+		bestA := 0.0
+		var step float64
+		var toUpper bool
+		for i, ai := range alpha {
+			if math.Abs(ai) <= pivotTol {
+				continue
+			}
+			g := -dir * ai
+			j := s.head[i]
+			lim := s.stepLimit(j, g, false)
+			if lim <= tmax && math.Abs(ai) > bestA {
+				r, bestA, step = i, math.Abs(ai), lim
+				toUpper = s.hitsUpper(j, g)
+			}
+		}
+		if r < 0 {
+			return 0, ErrNumerical
+		}
+		if step < 0 {
+			step = 0
+		}
+		p := s.head[r]
+		for i, ai := range alpha {
+			if ai != 0 {
+				s.x[s.head[i]] -= dir * step * ai
+			}
+		}
+		s.x[q] += dir * step
+		if toUpper {
+			s.x[p] = s.up[p]
+			s.stat[p] = stUpper
+		} else {
+			s.x[p] = s.lo[p]
+			s.stat[p] = stLower
+		}
+		if s.lo[p] == s.up[p] {
+			s.stat[p] = stLower
+		}
+		// Devex reference weights (Forrest & Goldfarb 1992, §3):
+		// w_j = max(w_j, (α_rj/α_rq)² w_q) for the pivot row; the pivot
+		// row is not computed here, so the leaving variable's weight is
+		// set from the entering one, a common simplification.
+		devex[p] = math.Max(devex[q]/(alpha[r]*alpha[r]), 1)
+		s.stat[q] = stBasic
+		s.head[r] = q
+		s.lu.update(r, alpha)
+		s.iters++
+	}
+}
+
+// stepLimit is the step t at which basic variable j, moving at rate g,
+// reaches the bound that blocks it; with widen the bound is relaxed by
+// the primal tolerance (Harris pass 1). In phase 1 an infeasible
+// variable is blocked by the bound it is moving toward.
+func (s *Solver) stepLimit(j int, g float64, widen bool) float64 {
+	x, lo, up := s.x[j], s.lo[j], s.up[j]
+	tl, tu := 0.0, 0.0
+	if widen {
+		tl, tu = s.primalTol(lo), s.primalTol(up)
+	}
+	if g < 0 {
+		switch {
+		case x > up+s.primalTol(up):
+			return (x - up + tu) / -g
+		case x < lo-s.primalTol(lo) || math.IsInf(lo, -1):
+			return math.Inf(1)
+		default:
+			return (x - lo + tl) / -g
+		}
+	}
+	switch {
+	case x < lo-s.primalTol(lo):
+		return (lo - x + tl) / g
+	case x > up+s.primalTol(up) || math.IsInf(up, 1):
+		return math.Inf(1)
+	default:
+		return (up - x + tu) / g
+	}
+}
+
+// hitsUpper tells which bound blocks basic j moving at rate g.
+func (s *Solver) hitsUpper(j int, g float64) bool {
+	if g < 0 {
+		return s.x[j] > s.up[j]+s.primalTol(s.up[j])
+	}
+	return !(s.x[j] < s.lo[j]-s.primalTol(s.lo[j]))
+}

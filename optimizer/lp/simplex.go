@@ -1,0 +1,384 @@
+package lp
+
+import (
+	"context"
+	"errors"
+	"math"
+	"time"
+)
+
+// errStop ends an inner loop because a limit was hit; s.stopStat says
+// which.
+var errStop = errors.New("lp: stopped")
+
+// rngSeed fixes the pseudo-random stream used for cost perturbation so
+// that every solve of the same input takes the same path.
+const rngSeed = 0x9E3779B97F4A7C15
+
+// rand01 returns a number in [0, 1) from a xorshift64* generator
+// (Vigna 2016).
+func (s *Solver) rand01() float64 {
+	s.rng ^= s.rng >> 12
+	s.rng ^= s.rng << 25
+	s.rng ^= s.rng >> 27
+	return float64((s.rng*2685821657736338717)>>11) / (1 << 53)
+}
+
+// Solve solves the current problem starting from the current basis: the
+// dual simplex when the basis is dual feasible (after bound changes), the
+// primal simplex otherwise (after objective changes, or from scratch
+// when neither holds). The returned error is non-nil only for numerical
+// failure; infeasibility, unboundedness and limits are statuses.
+func (s *Solver) Solve() (*Result, error) {
+	s.iters = 0
+	for j := 0; j < s.n+s.m; j++ {
+		if s.lo[j] > s.up[j] {
+			return s.result(Infeasible), nil
+		}
+	}
+	st, err := s.run()
+	if err != nil {
+		return nil, err
+	}
+	return s.result(st), nil
+}
+
+// checkStop reports whether a limit has been reached.
+func (s *Solver) checkStop() bool {
+	if s.opt.MaxIterations > 0 && s.iters >= s.opt.MaxIterations {
+		s.stopStat = IterationLimit
+		return true
+	}
+	if s.iters%16 != 0 {
+		return false
+	}
+	if !s.opt.Deadline.IsZero() && time.Now().After(s.opt.Deadline) {
+		s.stopStat = TimeLimit
+		return true
+	}
+	if ctx := s.opt.Context; ctx != nil {
+		if err := ctx.Err(); err != nil {
+			s.stopStat = Canceled
+			if errors.Is(err, context.DeadlineExceeded) {
+				s.stopStat = TimeLimit
+			}
+			return true
+		}
+	}
+	return false
+}
+
+func (s *Solver) resetCosts() {
+	copy(s.cost, s.prob.Obj)
+	for i := 0; i < s.m; i++ {
+		s.cost[s.n+i] = 0
+	}
+}
+
+// run drives the phases: dual or primal simplex on perturbed costs, then
+// removal of the perturbation and clean-up passes until the basis is
+// both primal and dual feasible for the true data.
+func (s *Solver) run() (Status, error) {
+	s.rng = rngSeed
+	s.resetCosts()
+	if err := s.refactor(); err != nil {
+		return 0, err
+	}
+	s.computePrimal()
+	s.computeDual()
+	perturbed := false
+	for round := 0; round < 8; round++ {
+		var st Status
+		var err error
+		if s.makeDualFeasible() {
+			if !perturbed && s.primalInfeasible() {
+				s.perturbCosts()
+				perturbed = true
+			}
+			st, err = s.dualSimplex()
+		} else {
+			st, err = s.primalSimplex()
+		}
+		if err != nil {
+			return 0, err
+		}
+		if st != Optimal {
+			// Infeasibility (a dual ray) does not depend on the costs, so
+			// it stands despite the perturbation; the primal simplex
+			// runs on the true costs, so Unbounded stands too.
+			return st, nil
+		}
+		// Remove perturbation and shifts, recompute from a fresh factor.
+		s.resetCosts()
+		if err := s.refactor(); err != nil {
+			return 0, err
+		}
+		s.computePrimal()
+		s.computeDual()
+		if !s.primalInfeasible() && s.dualInfeasible() == 0 {
+			return Optimal, nil
+		}
+	}
+	return 0, ErrNumerical
+}
+
+// refactor factorizes the current basis, repairing a singular one by
+// replacing dependent columns with row logicals.
+func (s *Solver) refactor() error {
+	if s.m == 0 {
+		s.needFactor = false
+		return nil
+	}
+	singPos, singRow := s.lu.factor(func(p int) ([]int, []float64) { return s.column(s.head[p]) })
+	for k, p := range singPos {
+		old := s.head[p]
+		s.stat[old] = s.nonbasicStatus(old, s.d[old])
+		lj := s.n + singRow[k]
+		s.head[p] = lj
+		s.stat[lj] = stBasic
+		s.dse[p] = 1
+	}
+	if len(singPos) > 0 {
+		s.computePrimal()
+	}
+	s.needFactor = false
+	return nil
+}
+
+// nonbasicValue returns the value at which nonbasic j rests.
+func (s *Solver) nonbasicValue(j int) float64 {
+	switch s.stat[j] {
+	case stLower:
+		return s.lo[j]
+	case stUpper:
+		return s.up[j]
+	}
+	return 0
+}
+
+// computePrimal sets nonbasic variables to their bounds and solves
+// B x_B = −N x_N.
+func (s *Solver) computePrimal() {
+	rhs := s.alpha
+	for i := range rhs {
+		rhs[i] = 0
+	}
+	for j := 0; j < s.n+s.m; j++ {
+		if s.stat[j] == stBasic {
+			continue
+		}
+		v := s.nonbasicValue(j)
+		s.x[j] = v
+		if v == 0 {
+			continue
+		}
+		idx, val := s.column(j)
+		for k, i := range idx {
+			rhs[i] -= val[k] * v
+		}
+	}
+	if s.m == 0 {
+		return
+	}
+	s.lu.ftran(rhs)
+	for p, j := range s.head {
+		s.x[j] = rhs[p]
+	}
+}
+
+// computeDual solves Bᵀy = c_B into s.rho and sets d = c − [A I]ᵀy.
+func (s *Solver) computeDual() {
+	y := s.rho
+	for p, j := range s.head {
+		y[p] = s.cost[j]
+	}
+	if s.m > 0 {
+		s.lu.btran(y)
+	}
+	for j := 0; j < s.n; j++ {
+		if s.stat[j] == stBasic {
+			s.d[j] = 0
+			continue
+		}
+		v := s.cost[j]
+		for k := s.prob.ColStart[j]; k < s.prob.ColStart[j+1]; k++ {
+			v -= s.prob.Value[k] * y[s.prob.RowIndex[k]]
+		}
+		s.d[j] = v
+	}
+	for i := 0; i < s.m; i++ {
+		j := s.n + i
+		if s.stat[j] == stBasic {
+			s.d[j] = 0
+		} else {
+			s.d[j] = s.cost[j] - y[i]
+		}
+	}
+}
+
+func (s *Solver) primalTol(bound float64) float64 {
+	return s.opt.feasTol() * math.Max(1, math.Abs(bound))
+}
+
+// infeasibility of basic variable j: negative below lo, positive above up.
+func (s *Solver) infeasibility(j int) float64 {
+	if v := s.x[j] - s.lo[j]; v < -s.primalTol(s.lo[j]) {
+		return v
+	}
+	if v := s.x[j] - s.up[j]; v > s.primalTol(s.up[j]) {
+		return v
+	}
+	return 0
+}
+
+func (s *Solver) primalInfeasible() bool {
+	for _, j := range s.head {
+		if s.infeasibility(j) != 0 {
+			return true
+		}
+	}
+	return false
+}
+
+// dualInfeasible counts nonbasic variables whose reduced cost has the
+// wrong sign for their status beyond the optimality tolerance.
+func (s *Solver) dualInfeasible() int {
+	tol := s.opt.optTol()
+	cnt := 0
+	for j := 0; j < s.n+s.m; j++ {
+		if s.lo[j] == s.up[j] {
+			continue
+		}
+		switch s.stat[j] {
+		case stLower:
+			if s.d[j] < -tol {
+				cnt++
+			}
+		case stUpper:
+			if s.d[j] > tol {
+				cnt++
+			}
+		case stFree:
+			if math.Abs(s.d[j]) > tol {
+				cnt++
+			}
+		}
+	}
+	return cnt
+}
+
+// makeDualFeasible moves boxed nonbasic variables to the bound their
+// reduced cost calls for (which keeps them dual feasible at no cost,
+// Koberstein 2005 §4.1) and reports whether the basis is then dual
+// feasible. Moved variables change x_B, which is recomputed.
+func (s *Solver) makeDualFeasible() bool {
+	tol := s.opt.optTol()
+	moved := false
+	ok := true
+	for j := 0; j < s.n+s.m; j++ {
+		st := s.stat[j]
+		if st == stBasic || s.lo[j] == s.up[j] {
+			continue
+		}
+		boxed := !math.IsInf(s.lo[j], -1) && !math.IsInf(s.up[j], 1)
+		switch {
+		case st == stLower && s.d[j] < -tol:
+			if boxed {
+				s.stat[j] = stUpper
+				moved = true
+			} else {
+				ok = false
+			}
+		case st == stUpper && s.d[j] > tol:
+			if boxed {
+				s.stat[j] = stLower
+				moved = true
+			} else {
+				ok = false
+			}
+		case st == stFree && math.Abs(s.d[j]) > tol:
+			ok = false
+		}
+	}
+	if !ok {
+		// Going primal: undo nothing (moves are harmless), but x must
+		// match the statuses.
+		if moved {
+			s.computePrimal()
+		}
+		return false
+	}
+	if moved {
+		s.computePrimal()
+	}
+	return true
+}
+
+// perturbCosts adds a small random amount to the cost of each nonbasic
+// structural in the direction that widens its dual feasibility, to
+// break the dual degeneracy typical of combinatorial LPs (Koberstein
+// 2005 §6.2.2.3; magnitudes after the common practice there: relative
+// 1e-6 plus absolute 1e-7, times a random factor in [1, 2)).
+func (s *Solver) perturbCosts() {
+	for j := 0; j < s.n; j++ {
+		st := s.stat[j]
+		if st == stBasic || st == stFree || s.lo[j] == s.up[j] {
+			continue
+		}
+		xi := (1e-7 + 1e-6*math.Abs(s.cost[j])) * (1 + s.rand01())
+		if st == stLower {
+			s.cost[j] += xi
+			s.d[j] += xi
+		} else {
+			s.cost[j] -= xi
+			s.d[j] -= xi
+		}
+	}
+}
+
+// pivotRow computes α_r = ρᵀ[A I] for the nonbasic variables, from the
+// rows where ρ is nonzero. It returns the list of nonbasic variables with
+// a nonzero entry, values in s.rowAlpha.
+func (s *Solver) pivotRow(rho []float64) []int {
+	list := s.candIdx[:0]
+	for i, r := range rho {
+		if r == 0 {
+			continue
+		}
+		for k := s.rowStart[i]; k < s.rowStart[i+1]; k++ {
+			j := s.rowCol[k]
+			if s.stat[j] == stBasic {
+				continue
+			}
+			if !s.rowMark[j] {
+				s.rowMark[j] = true
+				s.rowAlpha[j] = 0
+				list = append(list, j)
+			}
+			s.rowAlpha[j] += r * s.rowVal[k]
+		}
+	}
+	for _, j := range list {
+		s.rowMark[j] = false
+	}
+	for i, r := range rho {
+		if r != 0 && s.stat[s.n+i] != stBasic {
+			s.rowAlpha[s.n+i] = r
+			list = append(list, s.n+i)
+		}
+	}
+	s.candIdx = list
+	return list
+}
+
+// ftranCol sets out = B⁻¹ a_j.
+func (s *Solver) ftranCol(j int, out []float64) {
+	for i := range out {
+		out[i] = 0
+	}
+	idx, val := s.column(j)
+	for k, i := range idx {
+		out[i] = val[k]
+	}
+	s.lu.ftran(out)
+}
