@@ -18,7 +18,7 @@ type RateBook struct {
 
 // Item is one priced item.
 type Item struct {
-	Code        string  // identifier rigs report quantities in, e.g. "drill-0-50ft"
+	Code        string  // identifier rigs report quantities in, e.g. "drill-0-50"
 	Description string  // words for the estimate line
 	Unit        string  // unit of measure: "ft", "each", "hr", "day", ...
 	UnitPrice   float64 // price per unit in the book's currency

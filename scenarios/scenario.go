@@ -17,6 +17,7 @@ type Scenario struct {
 	Title       string // a line for people
 	Description string
 	Demo        bool   // invented demo data
+	Note        string // provenance note; says so when the data are invented
 	Source      string // file it came from, or "demo:NAME"
 	Units       string // unit the file was written in: "ft" or "m"
 
@@ -29,7 +30,7 @@ type Scenario struct {
 	NoGo     []NoGo
 
 	Rigs       []string // rig names offered (built-in or plugin)
-	RateBook   string   // demo rate-book name or file path (relative to the scenario file)
+	RateBook   string   // demo rate-book name, or a file path already resolved against the scenario file's folder
 	YardMiles  float64  // one-way distance from the rig yard, miles
 	HoursDay   float64  // working hours per field day
 	GapRel     float64  // relative optimality gap the solve stops at
