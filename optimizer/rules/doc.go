@@ -72,7 +72,8 @@
 //	σ'v(d) = γ·dw + (γsat − γw)·(d − dw)  d > dw
 //
 // The stress increase at the centre of a uniformly loaded area, by the 2:1
-// method (load spread at 2 vertical to 1 horizontal; Das):
+// method (load spread at 2 vertical to 1 horizontal; the rectangle form is
+// Das's, the strip and circle forms apply the same spread):
 //
 //	rectangle B × L  Δσ/q = B·L / ((B + z)(L + z))
 //	strip of width B Δσ/q = B / (B + z)

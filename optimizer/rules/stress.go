@@ -35,9 +35,10 @@ type StressMethod int
 
 const (
 	// TwoToOne spreads the load at 2 vertical to 1 horizontal from every
-	// edge: Δσ = qBL/((B+z)(L+z)) for a rectangle, qB/(B+z) for a strip,
-	// qD²/(D+z)² for a circle of diameter D (Das, Principles of Foundation
-	// Engineering, "2:1 method").
+	// edge: Δσ = qBL/((B+z)(L+z)) for a rectangle (Das, Principles of
+	// Foundation Engineering, "2:1 method"). The same spread gives qB/(B+z)
+	// for a strip and qD²/(D+z)² for a circle of diameter D (common
+	// practice; the circle form reproduces the METU CE366 tank answer).
 	TwoToOne StressMethod = iota + 1
 	// Boussinesq integrates Boussinesq's point-load solution for an
 	// elastic half-space over the loaded area, at the centre: Newmark's
