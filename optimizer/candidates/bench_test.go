@@ -1,0 +1,62 @@
+package candidates
+
+import (
+	"fmt"
+	"math"
+	"testing"
+
+	"github.com/rigmix/rigmix/optimizer/geom"
+)
+
+// benchSite is an invented square site of the given acreage (43,560 ft² an
+// acre) with one 100-ft square spacing rule, a building pad with its own
+// 50-ft rule, and a pond as a no-go area — demo geometry, not a real site.
+func benchSite(acres float64) ([]ZoneInput, []geom.Polygon) {
+	side := math.Sqrt(acres * 43560)
+	pad := side / 4
+	zones := []ZoneInput{
+		{ID: "site", Polygon: geom.Polygon{{X: 0, Y: 0}, {X: side, Y: 0}, {X: side, Y: side}, {X: 0, Y: side}}, SpacingFt: 100},
+		{ID: "pad", Polygon: square(side/8, side/8, side/8+pad, side/8+pad), SpacingFt: 50, Corners: true},
+	}
+	pond := square(side*0.6, side*0.6, side*0.8, side*0.7)
+	return zones, []geom.Polygon{pond}
+}
+
+func BenchmarkGenerate(b *testing.B) {
+	for _, acres := range []float64{1, 10, 100, 1000} {
+		b.Run(fmt.Sprintf("acres=%g", acres), func(b *testing.B) {
+			zones, noGo := benchSite(acres)
+			var l *Layout
+			for b.Loop() {
+				var err error
+				if l, err = Generate(zones, noGo, Options{}); err != nil {
+					b.Fatal(err)
+				}
+			}
+			b.ReportMetric(float64(len(l.Candidates)), "candidates")
+			b.ReportMetric(float64(len(l.Cells)+len(l.Uncoverable)), "cells")
+			b.ReportMetric(float64(len(l.RowCells)), "rows")
+		})
+	}
+}
+
+// TestHundredAcres checks the scale target of the brief — a 100-acre site
+// with a 100-ft rule in well under a second — as a plain test, so a
+// regression shows in `go test`, and reports the sizes.
+func TestHundredAcres(t *testing.T) {
+	zones, noGo := benchSite(100)
+	res := testing.Benchmark(func(b *testing.B) {
+		for b.Loop() {
+			if _, err := Generate(zones, noGo, Options{}); err != nil {
+				b.Fatal(err)
+			}
+		}
+	})
+	l, _ := Generate(zones, noGo, Options{})
+	per := res.NsPerOp()
+	t.Logf("100 acres: %d candidates, %d cells (%d uncoverable), %d kept rows, %.1f ms",
+		len(l.Candidates), len(l.Cells)+len(l.Uncoverable), len(l.Uncoverable), len(l.RowCells), float64(per)/1e6)
+	if per > 500e6 {
+		t.Errorf("100-acre layout took %.0f ms, want well under a second", float64(per)/1e6)
+	}
+}

@@ -1,0 +1,129 @@
+package candidates
+
+import (
+	"slices"
+	"testing"
+
+	"github.com/rigmix/rigmix/optimizer/geom"
+)
+
+// checkRows verifies the structure of the reduced rows: each is the set of
+// its named cell, none contains another, and every cell's set contains
+// some kept row (so covering the kept rows covers every cell).
+func checkRows(t *testing.T, l *Layout) {
+	t.Helper()
+	if len(l.RowCells) != len(l.RowCell) {
+		t.Fatalf("%d rows but %d row cells", len(l.RowCells), len(l.RowCell))
+	}
+	subset := func(a, b []int) bool { // a ⊆ b, both ascending
+		j := 0
+		for _, x := range a {
+			for j < len(b) && b[j] < x {
+				j++
+			}
+			if j == len(b) || b[j] != x {
+				return false
+			}
+		}
+		return true
+	}
+	for k, r := range l.RowCells {
+		if !slices.Equal(r, l.Cells[l.RowCell[k]].CoveredBy) || len(r) == 0 {
+			t.Fatalf("row %d %v is not the set of cell %d", k, r, l.RowCell[k])
+		}
+		if k > 0 && l.RowCell[k] <= l.RowCell[k-1] {
+			t.Fatalf("rows not in cell order at %d", k)
+		}
+	}
+	if len(l.RowCells) < 400 {
+		for a := range l.RowCells {
+			for b := range l.RowCells {
+				if a != b && subset(l.RowCells[a], l.RowCells[b]) {
+					t.Fatalf("kept row %d %v is contained in kept row %d %v", a, l.RowCells[a], b, l.RowCells[b])
+				}
+			}
+		}
+	}
+	for ci, c := range l.Cells {
+		ok := false
+		for _, r := range l.RowCells {
+			if subset(r, c.CoveredBy) {
+				ok = true
+				break
+			}
+		}
+		if !ok {
+			t.Fatalf("cell %d set %v contains no kept row", ci, c.CoveredBy)
+		}
+	}
+}
+
+// TestRowReductionBruteForce checks on small layouts that a subset of
+// candidates covers every cell if and only if it meets every kept row,
+// over all 2ⁿ subsets (an exhaustive check, independent of the reduction
+// method).
+func TestRowReductionBruteForce(t *testing.T) {
+	tests := []struct {
+		name  string
+		zones []ZoneInput
+		noGo  []geom.Polygon
+		opt   Options
+	}{
+		{"square", []ZoneInput{{Polygon: square(0, 0, 100, 100), SpacingFt: 100, CandidateSpacingFt: 50}}, nil, Options{}},
+		{"triangle, triangular rule", []ZoneInput{{Polygon: geom.Polygon{{X: 0, Y: 0}, {X: 180, Y: 0}, {X: 40, Y: 130}}, SpacingFt: 90, Lattice: geom.Triangular, CandidateSpacingFt: 60}}, nil, Options{}},
+		{"L with no-go", []ZoneInput{{Polygon: geom.Polygon{{X: 0, Y: 0}, {X: 160, Y: 0}, {X: 160, Y: 60}, {X: 60, Y: 60}, {X: 60, Y: 160}, {X: 0, Y: 160}}, SpacingFt: 80, CandidateSpacingFt: 70}},
+			[]geom.Polygon{square(10, 10, 40, 40)}, Options{BoundaryStep: 1.5}},
+		{"two zones", []ZoneInput{
+			{Polygon: square(0, 0, 80, 60), SpacingFt: 60, CandidateSpacingFt: 60},
+			{Polygon: square(80, 0, 140, 60), SpacingFt: 50, CandidateSpacingFt: 60, Lattice: geom.Triangular},
+		}, nil, Options{BoundaryStep: 1.5}},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			l, err := Generate(tc.zones, tc.noGo, tc.opt)
+			if err != nil {
+				t.Fatal(err)
+			}
+			n := len(l.Candidates)
+			if n > 18 {
+				t.Fatalf("test set-up: %d candidates, too many to enumerate", n)
+			}
+			if len(l.RowCells) >= len(l.Cells) {
+				t.Errorf("reduction kept %d rows of %d cells; expected some removed", len(l.RowCells), len(l.Cells))
+			}
+			checkRows(t, l)
+			meets := func(mask uint32, set []int) bool {
+				for _, j := range set {
+					if mask&(1<<j) != 0 {
+						return true
+					}
+				}
+				return false
+			}
+			feasible := 0
+			for mask := uint32(0); mask < 1<<n; mask++ {
+				all := true
+				for _, c := range l.Cells {
+					if !meets(mask, c.CoveredBy) {
+						all = false
+						break
+					}
+				}
+				rows := true
+				for _, r := range l.RowCells {
+					if !meets(mask, r) {
+						rows = false
+						break
+					}
+				}
+				if all != rows {
+					t.Fatalf("candidate subset %b: covers all cells %v, meets all kept rows %v", mask, all, rows)
+				}
+				if all {
+					feasible++
+				}
+			}
+			t.Logf("%d candidates, %d cells, %d kept rows, %d feasible subsets", n, len(l.Cells), len(l.RowCells), feasible)
+		})
+	}
+}
