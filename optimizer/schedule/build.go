@@ -349,8 +349,12 @@ func Build(jobs []Job, rigs []RigSpec, cal Calendar) (*Schedule, error) {
 	if _, err := validate(jobs, rigs); err != nil {
 		return nil, err
 	}
+	return build(cal, work, planRoutes(jobs, rigs))
+}
+
+// build lays planned routes into days with the calendar's given wet dates.
+func build(cal Calendar, work [7]bool, routes []plannedRoute) (*Schedule, error) {
 	c := newCalx(cal, work)
-	routes := planRoutes(jobs, rigs)
 	s := &Schedule{
 		Start: c.date(0), WorkStart: cal.WorkStart, HoursPerDay: cal.HoursPerDay,
 		WorkDays: workDayList(work),

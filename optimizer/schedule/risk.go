@@ -71,7 +71,8 @@ func Risk(jobs []Job, rigs []RigSpec, cal Calendar, opt Options) (*RiskResult, e
 	if !finite(opt.ProductionCV) || opt.ProductionCV < 0 || opt.ProductionCV > 2 {
 		return nil, bad("options.production_cv", "coefficient of variation %v", "give a value from 0 to 2, e.g. 0.2", opt.ProductionCV)
 	}
-	base, err := Build(jobs, rigs, cal)
+	routes := planRoutes(jobs, rigs)
+	base, err := build(cal, work, routes)
 	if err != nil {
 		return nil, err
 	}
@@ -80,7 +81,6 @@ func Risk(jobs []Job, rigs []RigSpec, cal Calendar, opt Options) (*RiskResult, e
 		Planned: base.Finish, PlannedFieldDays: base.FieldDays,
 	}
 	c := newCalx(cal, work)
-	routes := planRoutes(jobs, rigs)
 	mu, sigma := lognormalParams(opt.ProductionCV)
 	hours := make([]float64, len(jobs))
 	var wet []bool

@@ -1,10 +1,19 @@
 package schedule
 
-import "math"
+import (
+	"math"
+	"math/rand/v2"
+)
 
 // ExactRouteMax is the largest number of points on one rig whose route is
 // found exactly (Held–Karp: 2ⁿ·n² steps, about 0.6 million at 12).
 const ExactRouteMax = 12
+
+// ilsBudget bounds the iterated local search at about 10⁷ move
+// evaluations (a few tenths of a second): each kick costs about ten passes
+// of 2-opt and Or-opt, some 70·n² evaluations, so large routes get few or
+// no kicks and keep their plain local optimum.
+const ilsBudget = 10_000_000
 
 // gainEps is the least improvement a local-search move must make to be
 // taken; it keeps rounding noise from cycling the search.
@@ -65,7 +74,43 @@ func (l *legs) route() []int {
 	if l.n <= ExactRouteMax {
 		return l.heldKarp()
 	}
-	return l.localSearch(l.nearestNeighbour())
+	return l.heuristic()
+}
+
+// heuristic is iterated local search (Lourenço, Martin & Stützle 2003,
+// "Iterated local search", Handbook of Metaheuristics, ch. 11): local search
+// from the nearest-neighbour path, then repeated double-bridge kicks (Martin,
+// Otto & Felten 1991, Complex Systems 5:299–326) each followed by local
+// search, keeping the best path. Kicks come from a PCG stream fixed by the
+// number of points, so the route is deterministic.
+func (l *legs) heuristic() []int {
+	best := l.localSearch(l.nearestNeighbour())
+	n := len(best)
+	if n < 4 {
+		return best
+	}
+	bestCost := l.pathHours(best)
+	rng := rand.New(rand.NewPCG(0x7269676d6978, uint64(n)))
+	kicks := min(20*n, 400, ilsBudget/(70*n*n))
+	for k := 0; k < kicks; k++ {
+		// Cut into A B C D at 0 < a < b < c < n and join as A C B D.
+		a := 1 + rng.IntN(n-2)
+		b := a + 1 + rng.IntN(n-a-1)
+		c := b + rng.IntN(n-b+1)
+		if c == b {
+			c = n
+		}
+		cand := make([]int, 0, n)
+		cand = append(cand, best[:a]...)
+		cand = append(cand, best[b:c]...)
+		cand = append(cand, best[a:b]...)
+		cand = append(cand, best[c:]...)
+		cand = l.localSearch(cand)
+		if cc := l.pathHours(cand); cc < bestCost-gainEps {
+			best, bestCost = cand, cc
+		}
+	}
+	return best
 }
 
 // heldKarp finds the shortest open path from node 0 through all points.
