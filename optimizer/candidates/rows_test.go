@@ -1,6 +1,8 @@
 package candidates
 
 import (
+	"math"
+	"math/rand/v2"
 	"slices"
 	"testing"
 
@@ -126,4 +128,67 @@ func TestRowReductionBruteForce(t *testing.T) {
 			t.Logf("%d candidates, %d cells, %d kept rows, %d feasible subsets", n, len(l.Cells), len(l.RowCells), feasible)
 		})
 	}
+}
+
+// TestRowReductionRandom repeats the exhaustive check on seeded random
+// star-shaped zones (simple by construction: vertices at increasing
+// angles about a centre) with a random no-go square.
+func TestRowReductionRandom(t *testing.T) {
+	rng := rand.New(rand.NewPCG(7, 11))
+	checked := 0
+	for trial := 0; trial < 300 && checked < 40; trial++ {
+		n := 3 + rng.IntN(6)
+		var p geom.Polygon
+		for k := 0; k < n; k++ {
+			a := 2 * math.Pi * (float64(k) + 0.8*rng.Float64()) / float64(n)
+			r := 40 + 80*rng.Float64()
+			p = append(p, geom.Point{X: 150 + r*math.Cos(a), Y: 150 + r*math.Sin(a)})
+		}
+		kind := geom.Square
+		if rng.IntN(2) == 1 {
+			kind = geom.Triangular
+		}
+		s := 50 + 60*rng.Float64()
+		z := ZoneInput{Polygon: p, SpacingFt: s, Lattice: kind, CandidateSpacingFt: s * (0.6 + 0.6*rng.Float64()), Corners: rng.IntN(2) == 1}
+		x, y := 100+100*rng.Float64(), 100+100*rng.Float64()
+		noGo := []geom.Polygon{square(x, y, x+20+30*rng.Float64(), y+20+30*rng.Float64())}
+		l, err := Generate([]ZoneInput{z}, noGo, Options{BoundaryStep: 1 + rng.Float64()})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(l.Candidates) > 16 || len(l.Cells) == 0 {
+			continue
+		}
+		checked++
+		checkRows(t, l)
+		full := make([]uint32, len(l.Cells))
+		for k, c := range l.Cells {
+			for _, j := range c.CoveredBy {
+				full[k] |= 1 << j
+			}
+		}
+		rows := make([]uint32, len(l.RowCells))
+		for k, r := range l.RowCells {
+			for _, j := range r {
+				rows[k] |= 1 << j
+			}
+		}
+		all := func(sets []uint32, mask uint32) bool {
+			for _, s := range sets {
+				if s&mask == 0 {
+					return false
+				}
+			}
+			return true
+		}
+		for mask := uint32(0); mask < 1<<len(l.Candidates); mask++ {
+			if all(full, mask) != all(rows, mask) {
+				t.Fatalf("trial %d: subset %b covers cells %v but kept rows %v", trial, mask, all(full, mask), all(rows, mask))
+			}
+		}
+	}
+	if checked < 20 {
+		t.Fatalf("only %d random layouts small enough to enumerate", checked)
+	}
+	t.Logf("%d random layouts checked exhaustively", checked)
 }
