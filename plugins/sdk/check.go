@@ -1,0 +1,113 @@
+package sdk
+
+import (
+	"fmt"
+	"math"
+	"regexp"
+)
+
+// The checks below are what the host-side shim applies to every answer a
+// plugin sends back. They are exported so that a rig's own tests, and the
+// host for rigs it runs in-process, can apply the same rules.
+
+// namePattern is the shape of a rig name: it is typed in scenario files'
+// rigs: lists, so lower-case words joined by hyphens.
+var namePattern = regexp.MustCompile(`^[a-z][a-z0-9]*(-[a-z0-9]+)*$`)
+
+// CheckInfo reports what is wrong with a rig's description, or nil.
+func CheckInfo(info RigInfo) error {
+	if info.Name == "" {
+		return errNoName
+	}
+	if !namePattern.MatchString(info.Name) {
+		return fmt.Errorf("rig name %q: want lower-case letters and digits joined by hyphens, e.g. \"track-drill\"", info.Name)
+	}
+	if len(info.Methods) == 0 {
+		return fmt.Errorf("rig %q: describe lists no methods", info.Name)
+	}
+	for i, m := range info.Methods {
+		if m.Method == "" {
+			return fmt.Errorf("rig %q: method %d has no name", info.Name, i)
+		}
+		if !finiteNonNeg(m.MaxDepthFt) || m.MaxDepthFt == 0 {
+			return fmt.Errorf("rig %q: method %s: maximum depth %v ft must be a positive number", info.Name, m.Method, m.MaxDepthFt)
+		}
+	}
+	if !finiteNonNeg(info.Access.MaxSlopePct) || !finiteNonNeg(info.Access.MinOverheadFt) {
+		return fmt.Errorf("rig %q: access limits (slope %v %%, overhead %v ft) must be numbers ≥ 0",
+			info.Name, info.Access.MaxSlopePct, info.Access.MinOverheadFt)
+	}
+	return checkQuantities("day item", info.DayItems)
+}
+
+// CheckAssess reports what is wrong with the answers to req, or nil: one
+// answer per site, in order, with matching IDs, hours and amounts finite and
+// not negative, and a reason for every infeasible answer.
+func CheckAssess(req AssessRequest, resp AssessResponse) error {
+	if len(resp.Answers) != len(req.Sites) {
+		return fmt.Errorf("%d answers for %d sites; want one answer per site", len(resp.Answers), len(req.Sites))
+	}
+	for i, a := range resp.Answers {
+		want := req.Sites[i].ID
+		if a.ID != want {
+			return fmt.Errorf("answer %d has ID %q, want %q (answers must come back in request order)", i, a.ID, want)
+		}
+		h := a.Hours
+		for _, part := range []struct {
+			name string
+			v    float64
+		}{{"setup", h.Setup}, {"advance", h.Advance}, {"sampling", h.Sampling}, {"grouting", h.Grouting}, {"teardown", h.Teardown}} {
+			if !finiteNonNeg(part.v) {
+				return fmt.Errorf("site %q: %s hours %v must be a finite number ≥ 0", a.ID, part.name, part.v)
+			}
+		}
+		if !a.Feasible && a.Reason == "" {
+			return fmt.Errorf("site %q: infeasible answer gives no reason", a.ID)
+		}
+		if err := checkQuantities(fmt.Sprintf("site %q: quantity", a.ID), a.Quantities); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// CheckMobilize reports what is wrong with a mobilization answer, or nil.
+func CheckMobilize(resp MobilizeResponse) error {
+	if !finiteNonNeg(resp.Hours) {
+		return fmt.Errorf("hours %v must be a finite number ≥ 0", resp.Hours)
+	}
+	return checkQuantities("quantity", resp.Quantities)
+}
+
+// CheckMoves reports what is wrong with the answers to a moves request, or
+// nil: one finite, non-negative number of hours per leg.
+func CheckMoves(req MovesRequest, resp MovesResponse) error {
+	if len(resp.Hours) != len(req.Legs) {
+		return fmt.Errorf("%d answers for %d legs; want one per leg", len(resp.Hours), len(req.Legs))
+	}
+	for i, h := range resp.Hours {
+		if !finiteNonNeg(h) {
+			return fmt.Errorf("leg %d: hours %v must be a finite number ≥ 0", i, h)
+		}
+	}
+	return nil
+}
+
+func checkQuantities(what string, qs []Quantity) error {
+	for i, q := range qs {
+		if q.Item == "" {
+			return fmt.Errorf("%s %d has no item code", what, i)
+		}
+		if q.Unit == "" {
+			return fmt.Errorf("%s %s has no unit", what, q.Item)
+		}
+		if !finiteNonNeg(q.Amount) {
+			return fmt.Errorf("%s %s: amount %v must be a finite number ≥ 0", what, q.Item, q.Amount)
+		}
+	}
+	return nil
+}
+
+func finiteNonNeg(v float64) bool {
+	return !math.IsNaN(v) && !math.IsInf(v, 0) && v >= 0
+}
