@@ -162,7 +162,11 @@ func (d *decoder) check(p string, f float64, b bound) error {
 		return d.errf(p, b.hint, "must be ≥ %s%s, got %s", fmtNum(b.min), u, fmtNum(f))
 	}
 	if f > b.max {
-		return d.errf(p, b.hint, "must be ≤ %s%s, got %s (is the unit right?)", fmtNum(b.max), u, fmtNum(f))
+		hint := b.hint
+		if b.unit == "ft" || b.unit == "m" || b.unit == "ft²" || b.unit == "m²" {
+			hint = "is the unit right? " + hint
+		}
+		return d.errf(p, hint, "must be ≤ %s%s, got %s", fmtNum(b.max), u, fmtNum(f))
 	}
 	return nil
 }
@@ -276,7 +280,22 @@ func (d *decoder) choice(m map[string]any, field, key string, known []string) (s
 	return "", true, d.errf(join(field, key), suggestOneOf(s, known), "unknown value %q", s)
 }
 
+// synonyms maps words users write to the scenario's own words.
+var synonyms = map[string]string{
+	"building": "structure", "bldg": "structure", "foundation": "structure",
+	"parking": "pavement", "road": "pavement", "paving": "pavement", "lot": "pavement",
+	"contaminated": "environmental", "env": "environmental",
+	"cut": "slope", "embankment": "fill", "landscape": "open",
+	"feet": "ft", "foot": "ft", "meters": "m", "metres": "m", "meter": "m", "metre": "m",
+	"spt": "boring", "drill": "boring", "borehole": "boring", "cptu": "cpt", "pit": "test_pit",
+	"test-pit": "test_pit", "dcp": "probe", "hexagonal": "triangular",
+	"hard": "firm", "dry": "firm", "muddy": "wet", "saturated": "wet",
+}
+
 func suggestOneOf(s string, known []string) string {
+	if n, ok := synonyms[strings.ToLower(s)]; ok && contains(known, n) {
+		return fmt.Sprintf("did you mean %s? one of: %s", n, strings.Join(known, ", "))
+	}
 	if n := nearest(s, known); n != "" {
 		return fmt.Sprintf("did you mean %s? one of: %s", n, strings.Join(known, ", "))
 	}
@@ -399,12 +418,15 @@ func (d *decoder) checkPolygon(poly geom.Polygon, p string) error {
 			return d.errf(p, "remove the repeated vertex", "vertices %d and %d are the same point", i, j)
 		}
 	}
-	if area(poly) <= onEdgeTolFt {
-		return d.errf(p, "the vertices must enclose an area", "has no area (its vertices lie on one line)")
-	}
 	if i, j := selfIntersection(poly); i >= 0 {
 		return d.errf(p, "list the vertices in order around the outline so that no two edges cross",
 			"is self-intersecting: edge %d–%d meets edge %d–%d", i, (i+1)%len(poly), j, (j+1)%len(poly))
+	}
+	if area(poly) <= onEdgeTolFt {
+		return d.errf(p, "the vertices must enclose an area", "has no area (its vertices lie on one line)")
+	}
+	if k := foldBack(poly); k >= 0 {
+		return d.errf(p, "list the vertices in order around the outline", "turns straight back on itself at vertex %d", k)
 	}
 	return nil
 }
@@ -578,7 +600,7 @@ func (d *decoder) decode(m map[string]any) (*Scenario, error) {
 		return nil, err
 	}
 	if a := area(s.Boundary); a > maxBoundaryFt2 {
-		return nil, d.errf("boundary", "is the unit right?", "encloses %.0f acres; at most %.0f", a/43560, maxBoundaryFt2/43560)
+		return nil, d.errf("boundary", "is the unit right? units: is "+d.unit, "encloses %.0f acres; at most %.0f", a/43560, maxBoundaryFt2/43560)
 	}
 
 	zl, ok, err := d.list(m, "", "zones")
@@ -656,7 +678,7 @@ func (d *decoder) decode(m map[string]any) (*Scenario, error) {
 		return nil, err
 	}
 	if !ok {
-		return nil, d.errf("yard_miles", "give the one-way road miles from the rig yard to the site, e.g. yard_miles: 35 (or set "+EnvVar("yard_miles")+")", "missing")
+		return nil, d.errf("yard_miles", "give the one-way road miles from the rig yard to the site, e.g. yard_miles: 35, or set "+EnvVar("yard_miles"), "missing")
 	}
 	s.YardMiles = yard
 
@@ -979,8 +1001,12 @@ func (d *decoder) crossCheck(s *Scenario) error {
 		}
 		if coveredBy(z.Polygon, hits) {
 			sort.Strings(names)
+			what := "no-go area " + names[0] + " leaves"
+			if len(names) > 1 {
+				what = "no-go areas " + strings.Join(names, ", ") + " leave"
+			}
 			return d.errf(fmt.Sprintf("zones[%d]", i), "shrink the no-go area or drop the zone",
-				"no-go area %s leaves no ground to explore in zone %s", strings.Join(names, ", "), z.ID)
+				"%s no ground to explore in zone %s", what, z.ID)
 		}
 		for k, pt := range z.Rules.RequiredPoints {
 			for _, n := range s.NoGo {

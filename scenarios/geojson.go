@@ -19,46 +19,24 @@ import (
 // the loader projects the ring to the scenario's local frame in feet about
 // the scenario's origin.
 
-// WGS 84 ellipsoid (NIMA TR8350.2, 3rd ed., 2000, Table 3.1).
-const (
-	wgs84A        = 6378137.0             // semi-major axis, m
-	wgs84F        = 1 / 298.257223563     // flattening
-	wgs84E2       = wgs84F * (2 - wgs84F) // first eccentricity squared
-	metersPerFoot = 0.3048                // international foot (1959), exact
-)
+// maxProjectFt is how far from the origin (in feet, 5 miles) a GeoJSON
+// vertex may lie: a site is a few thousand feet across, so a vertex farther
+// out means a wrong origin or a wrong layer.
+const maxProjectFt = 26400
 
-// maxProjectFt is how far from the origin (in feet, about 3 km) a GeoJSON
-// vertex may lie. See projectFt for the error this bounds.
-const maxProjectFt = 10000
+// metersPerFoot is the international foot (1959), exact.
+const metersPerFoot = geom.MetersPerFoot
 
 // projectFt maps WGS 84 longitude and latitude (degrees) to the local frame
-// (feet, X east, Y north) by a local equirectangular projection about the
-// origin, scaled with the ellipsoid's radii of curvature at the origin's
-// latitude φ0: X = N(φ0)·cos φ0·Δλ, Y = M(φ0)·Δφ, with
-// M = a(1−e²)/(1−e² sin²φ0)^{3/2} (meridian) and N = a/√(1−e² sin²φ0)
-// (prime vertical); see Snyder, Map Projections — A Working Manual (USGS
-// Professional Paper 1395, 1987), eqs. 4-18 and 4-20 for M and N.
-//
-// Accuracy: the projection ignores how the length of a degree of longitude
-// changes away from φ0 and the curvature of parallels; both errors grow
-// with the square of the distance d from the origin, about
-// d²·tan φ0 / R. At d = 1 km and φ0 = 60° that is about 0.3 m (1 ft); at
-// 45° about 0.16 m. Sites are a few thousand feet across, so with the
-// origin on or near the site the error is well under survey stakeout
-// tolerance for exploration points. Vertices farther than maxProjectFt
-// from the origin are rejected.
-//
-// Results are rounded to 0.001 ft so files load to the same numbers on
-// every platform.
+// in feet with the project's one frame, geom.LocalFrame (a transverse
+// Mercator projection about the origin's meridian, scale 1 there), so that
+// points read from GeoJSON and points written back to GeoJSON use the same
+// mapping. Its distances are right to under 1 ppm within 5 miles of the
+// origin (see geom.LocalFrame). Results are rounded to 0.001 ft so files
+// load to the same numbers on every platform.
 func projectFt(o LonLat, lon, lat float64) geom.Point {
-	phi0 := o.Lat * math.Pi / 180
-	s := math.Sin(phi0)
-	w := 1 - wgs84E2*s*s
-	m := wgs84A * (1 - wgs84E2) / (w * math.Sqrt(w))
-	n := wgs84A / math.Sqrt(w)
-	x := n * math.Cos(phi0) * (lon - o.Lon) * math.Pi / 180 / metersPerFoot
-	y := m * (lat - o.Lat) * math.Pi / 180 / metersPerFoot
-	return geom.Point{X: round3(x), Y: round3(y)}
+	p := geom.LocalFrame{OriginLon: o.Lon, OriginLat: o.Lat}.ToLocal(lon, lat)
+	return geom.Point{X: round3(p.X), Y: round3(p.Y)}
 }
 
 func round3(v float64) float64 {
@@ -183,7 +161,11 @@ func featureRing(data []byte, property, want string, fail func(problem, hint str
 		return nil, fail(fmt.Sprintf("feature %q has no ring", want), "a Polygon needs an exterior ring")
 	}
 	if len(rings) > 1 {
-		return nil, fail(fmt.Sprintf("feature %q has %d holes", want, len(rings)-1), "draw each hole as a no-go area instead")
+		holes := "a hole"
+		if len(rings) > 2 {
+			holes = fmt.Sprintf("%d holes", len(rings)-1)
+		}
+		return nil, fail(fmt.Sprintf("feature %q has %s", want, holes), "draw each hole as a no-go area instead")
 	}
 	ring := rings[0]
 	out := make([][2]float64, 0, len(ring))

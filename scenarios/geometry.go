@@ -119,16 +119,21 @@ func selfIntersection(p geom.Polygon) (int, int) {
 			}
 		}
 	}
-	// Neighbouring edges that fold back onto each other also make the
-	// ring non-simple.
+	return -1, -1
+}
+
+// foldBack returns the index of the first vertex where the ring turns
+// straight back on itself (its two edges overlap), or -1.
+func foldBack(p geom.Polygon) int {
+	n := len(p)
 	for i := 0; i < n; i++ {
 		a, b, c := p[i], p[(i+1)%n], p[(i+2)%n]
 		if math.Abs(cross(a, b, c)) <= onEdgeTolFt*math.Hypot(c.X-b.X, c.Y-b.Y) &&
 			(b.X-a.X)*(c.X-b.X)+(b.Y-a.Y)*(c.Y-b.Y) < 0 {
-			return i, (i + 1) % n
+			return (i + 1) % n
 		}
 	}
-	return -1, -1
+	return -1
 }
 
 // interiorPoint returns a point strictly inside a simple polygon: the
