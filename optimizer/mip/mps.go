@@ -21,7 +21,10 @@ import (
 //
 // Conventions, as in CPLEX, CBC and GLPK:
 //   - the first N row is the objective; a right-hand side given for it is
-//     the objective constant with opposite sign (ObjOffset = -rhs); further
+//     the objective constant with opposite sign (ObjOffset = -rhs, the
+//     CPLEX and CBC reading; GLPK 5.0 reads +rhs); a column named
+//     RIGMIX_OBJ_CONSTANT fixed at 1 with no matrix entries, as WriteMPS
+//     writes the constant, is folded into ObjOffset; further
 //     N rows are kept as free rows (both bounds infinite) so that a
 //     problem written by WriteMPS reads back with the same rows;
 //   - a column has bounds [0, +∞) unless BOUNDS says otherwise, integer
@@ -446,6 +449,18 @@ func (rd *mpsReader) problem() (*Problem, error) {
 		}
 		q.RowLo[i], q.RowUp[i] = lo, up
 	}
+	// Fold the objective-constant column written by WriteMPS back into
+	// ObjOffset: named objConstCol, fixed at 1, no matrix entries.
+	if j, ok := rd.colIndex[objConstCol]; ok {
+		if c := rd.cols[j]; len(c.rows) == 0 && c.lo == 1 && c.up == 1 && !c.integer {
+			p.ObjOffset += c.obj
+			rd.cols = append(rd.cols[:j:j], rd.cols[j+1:]...)
+			n--
+			q.NumCols = n
+			q.Obj, q.ColLo, q.ColUp = q.Obj[:n], q.ColLo[:n], q.ColUp[:n]
+			q.ColStart, p.Integer, p.ColNames = q.ColStart[:n+1], p.Integer[:n], p.ColNames[:n]
+		}
+	}
 	for j, c := range rd.cols {
 		q.Obj[j] = c.obj
 		q.ColLo[j], q.ColUp[j] = c.lo, c.up
@@ -481,8 +496,12 @@ func (rd *mpsReader) problem() (*Problem, error) {
 // upper bound of a MARKER integer column). Names are taken from p when they
 // are all present, non-empty, free of white space and unique; otherwise
 // generated names C1..Cn and R1..Rm are used for all columns or rows.
-// ObjOffset is written as a right-hand side of the objective row with
-// opposite sign, the convention of CPLEX, CBC and GLPK.
+// A nonzero ObjOffset is written as a column named objConstCol, fixed at
+// 1, whose objective coefficient is the offset: CBC reads a right-hand
+// side on the objective row as minus the constant (the CPLEX convention)
+// while GLPK 5.0 reads it as plus the constant, so a fixed column is the
+// only form both read alike. ReadMPS folds that column back into
+// ObjOffset.
 func WriteMPS(w io.Writer, p *Problem) error {
 	if err := p.Validate(); err != nil {
 		return err
@@ -504,7 +523,7 @@ func WriteMPS(w io.Writer, p *Problem) error {
 	}
 	bw := bufio.NewWriter(w)
 	num := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
-	fmt.Fprintf(bw, "NAME %s\nROWS\n N %s\n", name, objName)
+	fmt.Fprintf(bw, "NAME %s\nROWS\n  N  %s\n", name, objName)
 	for i := 0; i < q.NumRows; i++ {
 		lo, up := q.RowLo[i], q.RowUp[i]
 		t := "G"
@@ -516,7 +535,7 @@ func WriteMPS(w io.Writer, p *Problem) error {
 		case math.IsInf(lo, -1):
 			t = "L"
 		}
-		fmt.Fprintf(bw, " %s %s\n", t, rowNames[i])
+		fmt.Fprintf(bw, "  %s  %s\n", t, rowNames[i])
 	}
 	bw.WriteString("COLUMNS\n")
 	inInt := false
@@ -524,27 +543,27 @@ func WriteMPS(w io.Writer, p *Problem) error {
 	for j := 0; j < q.NumCols; j++ {
 		if p.Integer[j] != inInt {
 			if p.Integer[j] {
-				fmt.Fprintf(bw, " MARKER%d 'MARKER' 'INTORG'\n", marker)
+				fmt.Fprintf(bw, "  MARKER%d  'MARKER'  'INTORG'\n", marker)
 			} else {
-				fmt.Fprintf(bw, " MARKER%d 'MARKER' 'INTEND'\n", marker)
+				fmt.Fprintf(bw, "  MARKER%d  'MARKER'  'INTEND'\n", marker)
 			}
 			marker++
 			inInt = p.Integer[j]
 		}
 		if q.Obj[j] != 0 || q.ColStart[j] == q.ColStart[j+1] {
-			fmt.Fprintf(bw, " %s %s %s\n", colNames[j], objName, num(q.Obj[j]))
+			fmt.Fprintf(bw, "  %s  %s  %s\n", colNames[j], objName, num(q.Obj[j]))
 		}
 		for k := q.ColStart[j]; k < q.ColStart[j+1]; k++ {
-			fmt.Fprintf(bw, " %s %s %s\n", colNames[j], rowNames[q.RowIndex[k]], num(q.Value[k]))
+			fmt.Fprintf(bw, "  %s  %s  %s\n", colNames[j], rowNames[q.RowIndex[k]], num(q.Value[k]))
 		}
 	}
 	if inInt {
-		fmt.Fprintf(bw, " MARKER%d 'MARKER' 'INTEND'\n", marker)
+		fmt.Fprintf(bw, "  MARKER%d  'MARKER'  'INTEND'\n", marker)
+	}
+	if p.ObjOffset != 0 {
+		fmt.Fprintf(bw, "  %s  %s  %s\n", objConstCol, objName, num(p.ObjOffset))
 	}
 	bw.WriteString("RHS\n")
-	if p.ObjOffset != 0 {
-		fmt.Fprintf(bw, " RHS %s %s\n", objName, num(-p.ObjOffset))
-	}
 	for i := 0; i < q.NumRows; i++ {
 		lo, up := q.RowLo[i], q.RowUp[i]
 		var b float64
@@ -557,7 +576,7 @@ func WriteMPS(w io.Writer, p *Problem) error {
 			b = lo
 		}
 		if b != 0 {
-			fmt.Fprintf(bw, " RHS %s %s\n", rowNames[i], num(b))
+			fmt.Fprintf(bw, "  RHS  %s  %s\n", rowNames[i], num(b))
 		}
 	}
 	wroteRanges := false
@@ -570,7 +589,7 @@ func WriteMPS(w io.Writer, p *Problem) error {
 			bw.WriteString("RANGES\n")
 			wroteRanges = true
 		}
-		fmt.Fprintf(bw, " RNG %s %s\n", rowNames[i], num(up-lo))
+		fmt.Fprintf(bw, "  RNG  %s  %s\n", rowNames[i], num(up-lo))
 	}
 	bw.WriteString("BOUNDS\n")
 	for j := 0; j < q.NumCols; j++ {
@@ -578,26 +597,33 @@ func WriteMPS(w io.Writer, p *Problem) error {
 		c := colNames[j]
 		switch {
 		case lo == up:
-			fmt.Fprintf(bw, " FX BND %s %s\n", c, num(lo))
+			fmt.Fprintf(bw, "  FX  BND  %s  %s\n", c, num(lo))
 			continue
 		case math.IsInf(lo, -1) && math.IsInf(up, 1):
-			fmt.Fprintf(bw, " FR BND %s\n", c)
+			fmt.Fprintf(bw, "  FR  BND  %s\n", c)
 			continue
 		}
 		if math.IsInf(lo, -1) {
-			fmt.Fprintf(bw, " MI BND %s\n", c)
+			fmt.Fprintf(bw, "  MI  BND  %s\n", c)
 		} else if lo != 0 || p.Integer[j] {
-			fmt.Fprintf(bw, " LO BND %s %s\n", c, num(lo))
+			fmt.Fprintf(bw, "  LO  BND  %s  %s\n", c, num(lo))
 		}
 		if !math.IsInf(up, 1) {
-			fmt.Fprintf(bw, " UP BND %s %s\n", c, num(up))
+			fmt.Fprintf(bw, "  UP  BND  %s  %s\n", c, num(up))
 		} else if p.Integer[j] {
-			fmt.Fprintf(bw, " PL BND %s\n", c)
+			fmt.Fprintf(bw, "  PL  BND  %s\n", c)
 		}
+	}
+	if p.ObjOffset != 0 {
+		fmt.Fprintf(bw, "  FX  BND  %s  1\n", objConstCol)
 	}
 	bw.WriteString("ENDATA\n")
 	return bw.Flush()
 }
+
+// objConstCol names the fixed column that carries the objective constant
+// in files written by WriteMPS.
+const objConstCol = "RIGMIX_OBJ_CONSTANT"
 
 // mpsNames returns names usable in free MPS: the given ones when all are
 // valid and unique, otherwise prefix1..prefixN.
@@ -608,7 +634,7 @@ func mpsNames(given []string, n int, prefix string) []string {
 		if !ok {
 			break
 		}
-		if s == "" || strings.IndexFunc(s, unicode.IsSpace) >= 0 || s[0] == '*' || seen[s] || strings.EqualFold(s, "'MARKER'") {
+		if s == "" || strings.IndexFunc(s, unicode.IsSpace) >= 0 || s[0] == '*' || seen[s] || strings.EqualFold(s, "'MARKER'") || s == objConstCol {
 			ok = false
 		}
 		seen[s] = true
