@@ -25,6 +25,17 @@ const DefaultDemo = "valley-2026"
 // (each), time (hr, day) and lump sum (ls).
 var units = []string{"day", "each", "ft", "hr", "km", "ls", "m", "mi"}
 
+// unitSynonyms maps units as estimators often write them to ours.
+var unitSynonyms = map[string]string{
+	"ea": "each", "no": "each", "nr": "each", "pcs": "each",
+	"lf": "ft", "feet": "ft", "foot": "ft", "vf": "ft",
+	"hour": "hr", "hours": "hr", "hrs": "hr", "h": "hr",
+	"days": "day", "d": "day",
+	"mile": "mi", "miles": "mi",
+	"lump": "ls", "lump-sum": "ls", "lump sum": "ls", "lumpsum": "ls",
+	"meter": "m", "metre": "m", "meters": "m", "metres": "m",
+}
+
 const (
 	maxFileBytes = 8 << 20
 	maxItems     = 10000
@@ -275,12 +286,9 @@ func (p *parser) book(root *yaml.Node) (*RateBook, error) {
 	seen := map[string]int{}
 	for i, n := range items.Content {
 		path := fmt.Sprintf("items[%d]", i)
-		it, err := p.item(n, path, b.Currency)
+		it, err := p.item(n, path, b.Currency, seen)
 		if err != nil {
 			return nil, err
-		}
-		if j, dup := seen[it.Code]; dup {
-			return nil, p.errf(path+".code", "price each item once", "duplicate code %q (also items[%d])", it.Code, j)
 		}
 		seen[it.Code] = i
 		b.Items = append(b.Items, it)
@@ -288,7 +296,7 @@ func (p *parser) book(root *yaml.Node) (*RateBook, error) {
 	return b, nil
 }
 
-func (p *parser) item(n *yaml.Node, path, currency string) (Item, error) {
+func (p *parser) item(n *yaml.Node, path, currency string, seen map[string]int) (Item, error) {
 	var it Item
 	m, err := p.fields(n, path, itemKeys)
 	if err != nil {
@@ -299,6 +307,9 @@ func (p *parser) item(n *yaml.Node, path, currency string) (Item, error) {
 	}
 	if !codeRE.MatchString(it.Code) {
 		return it, p.errf(path+".code", "lower-case letters, digits, '.', '_' and '-', e.g. drill-0-50", "%q is not a valid item code", it.Code)
+	}
+	if j, dup := seen[it.Code]; dup {
+		return it, p.errf(path+".code", "price each item once", "duplicate code %q (also items[%d])", it.Code, j)
 	}
 	if it.Description, err = p.text(m, path, "description", true, "words for the estimate line"); err != nil {
 		return it, err
@@ -312,7 +323,9 @@ func (p *parser) item(n *yaml.Node, path, currency string) (Item, error) {
 	}
 	if !known {
 		hint := "one of: " + strings.Join(units, ", ")
-		if n := nearest(it.Unit, units); n != "" {
+		if n, ok := unitSynonyms[strings.ToLower(strings.TrimSuffix(it.Unit, "."))]; ok {
+			hint = "did you mean " + n + "? " + hint
+		} else if n := nearest(it.Unit, units); n != "" {
 			hint = "did you mean " + n + "? " + hint
 		}
 		return it, p.errf(path+".unit", hint, "unknown unit %q", it.Unit)
