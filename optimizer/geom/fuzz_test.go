@@ -138,3 +138,41 @@ func FuzzLattice(f *testing.F) {
 		}
 	})
 }
+
+// FuzzPolygonPair checks Inside and Overlaps of two simple polygons
+// against sampled points: a point strictly inside both forces Overlaps;
+// Inside forces every sample of p into q; Overlaps is symmetric.
+func FuzzPolygonPair(f *testing.F) {
+	f.Add([]byte{4, 0, 0, 30, 0, 30, 20, 0, 20, 4, 10, 10, 40, 10, 40, 15, 10, 15})
+	f.Add([]byte{4, 0, 0, 30, 0, 30, 20, 0, 20, 4, 30, 0, 40, 0, 40, 20, 30, 20})
+	f.Add([]byte{3, 5, 5, 25, 5, 25, 25, 8, 0, 0, 30, 0, 30, 30, 20, 30, 20, 10, 10, 10, 10, 30, 0, 30})
+	f.Fuzz(func(t *testing.T, data []byte) {
+		p, _ := polygonFromBytes(data)
+		skip := 1 + 2*len(p)
+		if skip > len(data) {
+			return
+		}
+		q, _ := polygonFromBytes(data[skip:])
+		if p.IsSimple() != nil || q.IsSimple() != nil {
+			return
+		}
+		ov := p.Overlaps(q)
+		if ov != q.Overlaps(p) {
+			t.Fatalf("Overlaps not symmetric for %v and %v", p, q)
+		}
+		in := p.Inside(q)
+		if in && !ov {
+			t.Fatalf("%v inside %v but not overlapping", p, q)
+		}
+		b := p.Bounds()
+		s := math.Max(b.Width(), b.Height()) / 15
+		for _, x := range p.Lattice(Square, s, Point{0.123, 0.456}) {
+			if in && !q.Contains(x) {
+				t.Fatalf("%v inside %v, yet its point %v is not in q", p, q, x)
+			}
+			if !ov && p.DistanceToBoundary(x) > 1e-6 && q.Contains(x) && q.DistanceToBoundary(x) > 1e-6 {
+				t.Fatalf("%v and %v do not overlap, yet %v is inside both", p, q, x)
+			}
+		}
+	})
+}
