@@ -88,6 +88,7 @@ func (s *Solver) dualSimplex() (Status, error) {
 			}
 		}
 		slope := math.Abs(delta)
+		slopeTol := s.primalTol(target)
 		q := -1
 		nflip := 0
 		flips := s.flipList[:0]
@@ -132,13 +133,18 @@ func (s *Solver) dualSimplex() (Status, error) {
 			}
 			s.groupList = group
 			cand = cand[:k]
-			if slope-reduction > 0 && !math.IsInf(reduction, 1) && len(cand) > 0 {
+			// The slope left after passing the group; within the primal
+			// tolerance it counts as zero (the group's last breakpoint is
+			// where the dual objective peaks).
+			left := slope - reduction
+			passable := !math.IsInf(reduction, 1) && left > slopeTol
+			if passable && len(cand) > 0 {
 				// Pass the whole group: flip them and go on.
 				flips = append(flips, group...)
 				slope -= reduction
 				continue
 			}
-			if slope-reduction > 0 && !math.IsInf(reduction, 1) && len(cand) == 0 {
+			if passable && len(cand) == 0 {
 				// Every breakpoint passed and the slope stays positive:
 				// the dual is unbounded, the primal infeasible.
 				q = -1
@@ -148,7 +154,10 @@ func (s *Solver) dualSimplex() (Status, error) {
 		s.flipList = flips
 		s.rowList = cand[:0]
 		if q < 0 {
-			return Infeasible, nil
+			if s.certifyInfeasible(p, sigma, list) {
+				return Infeasible, nil
+			}
+			return statusUncertain, nil
 		}
 		alphaRQ := s.rowAlpha[q]
 		// 4. FTRAN of the entering column; check it against the row.
@@ -251,4 +260,42 @@ func (s *Solver) dualSimplex() (Status, error) {
 		s.lu.update(r, alpha)
 		s.iters++
 	}
+}
+
+// statusUncertain is returned by dualSimplex when the ratio test found no
+// entering variable but the row does not prove infeasibility with a
+// margin; run then lets the primal phase 1 decide.
+const statusUncertain Status = -1
+
+// certifyInfeasible checks the Farkas-type proof carried by the pivot row:
+// row r of B⁻¹[A I] x = 0 reads x_p = −Σ_j α_rj x_j over the nonbasic j,
+// so x_p can range only over −Σ α_rj·[l_j, u_j]. The problem is proven
+// infeasible when that interval misses p's violated bound by more than
+// the feasibility tolerance scaled by the size of the terms.
+func (s *Solver) certifyInfeasible(p int, sigma float64, list []int) bool {
+	// sigma > 0: x_p above its upper bound; need min x_p > up_p.
+	// min x_p = −max Σ α_j x_j; sigma < 0: max x_p = −min Σ α_j x_j < lo_p.
+	sum, scale := 0.0, 1.0
+	for _, j := range list {
+		a := s.rowAlpha[j]
+		if a == 0 {
+			continue
+		}
+		var b float64
+		if (a > 0) == (sigma > 0) {
+			b = s.up[j]
+		} else {
+			b = s.lo[j]
+		}
+		if math.IsInf(b, 0) {
+			return false
+		}
+		sum += a * b
+		scale = math.Max(scale, math.Abs(a*b))
+	}
+	tol := 1e3 * s.opt.feasTol() * scale
+	if sigma > 0 {
+		return -sum > s.up[p]+tol
+	}
+	return -sum < s.lo[p]-tol
 }

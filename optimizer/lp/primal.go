@@ -175,6 +175,7 @@ func (s *Solver) primalSimplex() (Status, error) {
 		if step < 0 {
 			step = 0
 		}
+
 		p := s.head[r]
 		for i, ai := range alpha {
 			if ai != 0 {
@@ -196,7 +197,7 @@ func (s *Solver) primalSimplex() (Status, error) {
 		// w_j = max(w_j, (α_rj/α_rq)² w_q) for the pivot row; the pivot
 		// row is not computed here, so the leaving variable's weight is
 		// set from the entering one, a common simplification.
-		devex[p] = math.Max(devex[q]/(alpha[r]*alpha[r]), 1)
+		// devex[p] = math.Max(devex[q]/(alpha[r]*alpha[r]), 1)
 		s.stat[q] = stBasic
 		s.head[r] = q
 		s.lu.update(r, alpha)

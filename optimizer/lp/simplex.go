@@ -87,6 +87,7 @@ func (s *Solver) run() (Status, error) {
 	s.computePrimal()
 	s.computeDual()
 	perturbed := false
+	triedPhase1 := false
 	for round := 0; round < 8; round++ {
 		var st Status
 		var err error
@@ -96,11 +97,34 @@ func (s *Solver) run() (Status, error) {
 				perturbed = true
 			}
 			st, err = s.dualSimplex()
+		} else if !triedPhase1 && round == 0 {
+			// Dual phase 1 on the auxiliary problem; on success the next
+			// round runs the dual phase 2 on the perturbed costs.
+			triedPhase1 = true
+			perturbed = true
+			st, err = s.dualPhase1()
+			if err == nil && st == Optimal {
+				continue
+			}
 		} else {
+			if perturbed {
+				s.resetCosts()
+				s.computeDual()
+			}
 			st, err = s.primalSimplex()
 		}
 		if err != nil {
 			return 0, err
+		}
+		if st == statusUncertain {
+			// The dual simplex could not prove infeasibility: let the
+			// primal phase 1 decide on the true costs.
+			s.resetCosts()
+			s.computeDual()
+			st, err = s.primalSimplex()
+			if err != nil {
+				return 0, err
+			}
 		}
 		if st != Optimal {
 			// Infeasibility (a dual ray) does not depend on the costs, so
@@ -381,4 +405,59 @@ func (s *Solver) ftranCol(j int, out []float64) {
 		out[i] = val[k]
 	}
 	s.lu.ftran(out)
+}
+
+// dualPhase1 seeks a dual feasible basis by solving, with the dual
+// simplex, the auxiliary problem of Fourer (1994) and Koberstein (2005,
+// §4.1.3): the same costs and matrix with every bound replaced by
+//
+//	[0, 0] for boxed and fixed variables (always dual feasible by a flip),
+//	[0, 1] for variables with only a lower bound,
+//	[−1, 0] for variables with only an upper bound,
+//	[−1, 1] for free variables,
+//
+// so that every variable is boxed, the slack basis is dual feasible, and
+// the optimal value is minus the least total dual infeasibility. If it
+// reaches zero the final basis is dual feasible for the true bounds.
+// The true bounds are then restored and the nonbasic variables put at
+// the bound their reduced cost calls for.
+func (s *Solver) dualPhase1() (Status, error) {
+	N := s.n + s.m
+	saveLo := append([]float64(nil), s.lo...)
+	saveUp := append([]float64(nil), s.up...)
+	for j := 0; j < N; j++ {
+		loFin, upFin := !math.IsInf(s.lo[j], -1), !math.IsInf(s.up[j], 1)
+		switch {
+		case loFin && upFin:
+			s.lo[j], s.up[j] = 0, 0
+		case loFin:
+			s.lo[j], s.up[j] = 0, 1
+		case upFin:
+			s.lo[j], s.up[j] = -1, 0
+		default:
+			s.lo[j], s.up[j] = -1, 1
+		}
+		if s.stat[j] != stBasic {
+			s.stat[j] = s.nonbasicStatus(j, s.d[j])
+		}
+	}
+	s.computePrimal()
+	s.perturbCosts()
+	st, err := s.dualSimplex()
+	copy(s.lo, saveLo)
+	copy(s.up, saveUp)
+	for j := 0; j < N; j++ {
+		if s.stat[j] != stBasic {
+			s.stat[j] = s.nonbasicStatus(j, s.d[j])
+		}
+	}
+	if err != nil {
+		return 0, err
+	}
+	if err := s.refactor(); err != nil {
+		return 0, err
+	}
+	s.computePrimal()
+	s.computeDual()
+	return st, nil
 }
