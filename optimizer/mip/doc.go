@@ -1,0 +1,73 @@
+// Package mip is rigmix's exact mixed-integer linear programming engine,
+// written in Go on top of the simplex code of package lp. It solves
+//
+//	minimize    cᵀx + ObjOffset
+//	subject to  RowLo ≤ A x ≤ RowUp
+//	            ColLo ≤ x ≤ ColUp,   x_j integer for j with Integer[j]
+//
+// # Method
+//
+// Presolve (presolve.go) removes fixed and empty columns, empty, free
+// and redundant rows and turns singleton rows into bounds; these rules
+// are exact for every MIP. When the problem is pure set covering (every
+// row Σ x_j ≥ 1 with unit coefficients, binary columns, nonnegative
+// costs) it also removes dominated rows, dominated columns and columns
+// priced out by the rule of Beasley (1987): column j goes when c_j is at
+// least the sum over its rows of the cheapest other column covering the
+// row. Solutions are mapped back to the original columns.
+//
+// Branch and bound (Land and Doig 1960) runs on the LP relaxation, one
+// warm-started bounded dual simplex (package lp) for the whole tree:
+// moving to a node changes column bounds only, so the previous optimal
+// basis stays dual feasible and each node starts from it (open nodes keep
+// a snapshot of their parent's basis). Node selection is best bound with
+// depth-first plunges while the child's bound is within half the gap of
+// the best open node. Branching is reliability branching (Achterberg,
+// Koch and Martin 2005; Achterberg 2007, §5.3): pseudocost scores by the
+// product rule, with iteration-limited strong branching on candidates
+// whose pseudocosts have fewer than a few observations; a strong-branching
+// child that is infeasible or cannot beat the incumbent tightens the
+// node's bounds instead. Reduced-cost fixing is applied globally with the
+// root LP and locally in every node (Achterberg 2007, §7.7). When every
+// feasible objective value is a multiple of a known g (integer costs on
+// integer columns only), bounds are rounded up to multiples of g, which
+// prunes nodes whose bound lies within g of the incumbent.
+//
+// Primal heuristics: for covering, the greedy rule of Chvátal (1979) with
+// redundant-column removal and 1-opt exchanges, an LP-guided greedy at
+// nodes; for every MIP, nearest rounding (with an LP over the continuous
+// columns) and fractional diving on the LP (Achterberg 2007, §9.1). Every
+// candidate is checked against all rows and bounds before it is accepted,
+// so the heuristics are safe on general MIPs.
+//
+// For set covering the root also runs Lagrangian relaxation of the
+// covering rows with subgradient optimization (Beasley 1990): it gives a
+// lower bound close to the LP bound within milliseconds, good covers
+// through the Lagrangian heuristic, and fixes columns by Lagrangian
+// reduced costs. On many OR-Library instances this alone proves
+// optimality.
+//
+// Options.GapRel stops the search when (incumbent − bound)/max(1,|incumbent|)
+// ≤ GapRel; such a result has status Optimal (the default GapRel 1e-9
+// means proven optimal). Results are deterministic: the search is
+// sequential, ties are broken by index or creation order, and only
+// time or node limits and cancellation depend on the clock.
+//
+// # References
+//
+//   - A. H. Land and A. G. Doig (1960), An automatic method of solving
+//     discrete programming problems, Econometrica 28:497–520.
+//   - V. Chvátal (1979), A greedy heuristic for the set-covering problem,
+//     Mathematics of Operations Research 4:233–235.
+//   - J. E. Beasley (1987), An algorithm for set covering problem,
+//     European Journal of Operational Research 31:85–93.
+//   - J. E. Beasley (1990), A Lagrangian heuristic for set-covering
+//     problems, Naval Research Logistics 37:151–164.
+//   - T. Achterberg, T. Koch and A. Martin (2005), Branching rules
+//     revisited, Operations Research Letters 33:42–54.
+//   - T. Achterberg (2007), Constraint Integer Programming, PhD thesis,
+//     TU Berlin (SCIP).
+//
+// Files in free MPS format are read and written by ReadMPS and WriteMPS;
+// OR-Library set-covering files by ReadORLibSetCover.
+package mip
