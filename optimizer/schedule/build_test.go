@@ -449,3 +449,29 @@ func TestForeverWetIsAnError(t *testing.T) {
 		t.Errorf("Risk on a calendar wet every day: %v, want an InputError", err)
 	}
 }
+
+// TestBuildDaylightSaving: clock times stay on the wall clock across the
+// change to daylight saving time (US, Sunday 14 March 2027).
+func TestBuildDaylightSaving(t *testing.T) {
+	loc, err := time.LoadLocation("America/Chicago")
+	if err != nil {
+		t.Skip("no time zone database:", err)
+	}
+	rig := RigSpec{Name: "r", SpeedFtPerHr: map[string]float64{Firm: 600}}
+	jobs := []Job{{ID: "1", Rig: "r", Hours: 8, Surface: Firm}, {ID: "2", Rig: "r", Hours: 8, Surface: Firm}}
+	cal := testCalendar()
+	cal.Start = time.Date(2027, 3, 12, 0, 0, 0, 0, loc) // Friday before the change
+	s, err := Build(jobs, []RigSpec{rig}, cal)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, d := range s.Rigs[0].Days {
+		e := d.Entries[0]
+		if hhmm(e.Start) != "07:00" || hhmm(e.End) != "15:00" {
+			t.Errorf("%s: %s–%s, want 07:00–15:00 wall clock", d.Date.Format(dateLayout), hhmm(e.Start), hhmm(e.End))
+		}
+	}
+	if got := s.Rigs[0].Last.Format(dateLayout); got != "2027-03-15" {
+		t.Errorf("last day %s, want Monday 2027-03-15", got)
+	}
+}

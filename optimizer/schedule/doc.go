@@ -58,4 +58,22 @@
 // percentiles (Hyndman & Fan 1996, "Sample quantiles in statistical
 // packages", Am. Stat. 50(4):361–365, definition 1), so each is a value that
 // occurred in a run and P50 ≤ P80 always.
+//
+// # Calling it
+//
+// The command layer builds one Job per plan point and one RigSpec per
+// mobilized rig, a Calendar from its flags or config, then calls Build and
+// the renderers it needs, and Risk with Options when a weather risk is asked.
+// Errors that are the caller's input are *InputError (BadInput() reports
+// true; map them to exit code 2); errors.As finds them. Everything else is a
+// failure to write.
+//
+//	s, err := schedule.Build(jobs, rigs, cal)
+//	if err != nil { ... }
+//	schedule.WriteText(os.Stdout, s)
+//	schedule.WriteCSV(csvFile, s)
+//	schedule.WriteGanttSVG(svgFile, s)
+//	schedule.WriteStakeoutCSV(stakeFile, s)
+//	r, err := schedule.Risk(jobs, rigs, cal, schedule.Options{Seed: 1, Runs: 1000, ProductionCV: 0.2})
+//	schedule.WriteRiskText(os.Stdout, r)
 package schedule
