@@ -18,3 +18,21 @@ func benchRoute(b *testing.B, n int) {
 func BenchmarkRoute50(b *testing.B)  { benchRoute(b, 50) }
 func BenchmarkRoute200(b *testing.B) { benchRoute(b, 200) }
 func BenchmarkRoute400(b *testing.B) { benchRoute(b, 400) }
+
+// BenchmarkRisk300 is 1000 Monte Carlo runs of 300 points on two rigs.
+func BenchmarkRisk300(b *testing.B) {
+	rng := rand.New(rand.NewPCG(20261201, 99))
+	jobs := randomJobs(rng, "tire-drill", 300, 3000, 3000)
+	for i := range jobs[150:] {
+		jobs[150+i].Rig = "track-drill"
+	}
+	cal := testCalendar()
+	for m := range cal.WetProbByMonth {
+		cal.WetProbByMonth[m] = 0.2
+	}
+	for b.Loop() {
+		if _, err := Risk(jobs, []RigSpec{tireRig(), trackRig()}, cal, Options{Seed: 1, ProductionCV: 0.2}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

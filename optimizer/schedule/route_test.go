@@ -1,6 +1,7 @@
 package schedule
 
 import (
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -21,12 +22,7 @@ func randomJobs(rng *rand.Rand, rig string, n int, w, h float64) []Job {
 	return js
 }
 
-func itoa(i int) string {
-	if i < 10 {
-		return "0" + string(rune('0'+i))
-	}
-	return string(rune('0'+i/10)) + string(rune('0'+i%10))
-}
+func itoa(i int) string { return fmt.Sprintf("%03d", i) }
 
 func ptrs(js []Job) []*Job {
 	out := make([]*Job, len(js))
