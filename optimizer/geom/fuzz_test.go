@@ -65,6 +65,13 @@ func FuzzPolygon(f *testing.F) {
 				}
 			}
 		}
+		tiles := 0.0
+		for _, c := range SquareLattice(c.Expand(s), s, c.Min) {
+			tiles += p.ClipToRect(Rect{c, Point{c.X + s, c.Y + s}}).Area()
+		}
+		if !near(tiles, p.Area(), 1e-9*p.Area()) {
+			t.Fatalf("clipped tiles sum to %v, area %v, polygon %v", tiles, p.Area(), p)
+		}
 		for _, q := range p.PointsAlongBoundary(3) {
 			if !p.Contains(q) {
 				t.Fatalf("boundary point %v not contained in %v", q, p)
