@@ -272,9 +272,11 @@ func (n noGoSet) index(p geom.Point) int {
 // candidate spacing are merged into the first.
 //
 // Cells are a square lattice of spacing CellFraction × SpacingFt centred
-// in the zone's box; a zone too thin for any lattice cell gets cells along
-// its boundary instead. The cells share the zone's area equally, so a
-// zone's cells (covered and uncoverable) sum to its shoelace area.
+// in the zone's box; a cell stands for the part of the zone in the square
+// of side CellFraction × SpacingFt around it, scaled so that a zone's
+// cells (covered and uncoverable) sum to its shoelace area exactly. A zone
+// too thin for any lattice cell gets cells along its boundary instead,
+// sharing its area equally.
 //
 // Cost: O(N log N) in the number of candidates and cells N, plus
 // O(rows × vertices) for the scan-line lattice clipping; the covering
@@ -319,18 +321,33 @@ func Generate(zones []ZoneInput, noGo []geom.Polygon, opt Options) (*Layout, err
 			pts[k] = c.P
 		}
 		grid := geom.NewGrid(pts, zp.radius)
-		cellPts := z.Polygon.Lattice(geom.Square, zp.cellSpace, centredOrigin(geom.Square, z.Polygon.Bounds(), zp.cellSpace))
-		if len(cellPts) == 0 {
+		origin := centredOrigin(geom.Square, z.Polygon.Bounds(), zp.cellSpace)
+		cellPts := z.Polygon.Lattice(geom.Square, zp.cellSpace, origin)
+		var areas []float64
+		if len(cellPts) > 0 {
+			areas = cellAreas(z.Polygon, cellPts, zp.cellSpace, origin)
+		} else {
 			cellPts = z.Polygon.PointsAlongBoundary(zp.cellSpace)
+			areas = make([]float64, len(cellPts))
+			for k := range areas {
+				areas[k] = 1
+			}
 		}
-		share := zp.area / float64(len(cellPts))
+		// Scale the raw areas so the zone's cells sum to its area: the
+		// ground of squares whose centre falls outside the polygon is
+		// spread over the rest in proportion.
+		var raw float64
+		for _, a := range areas {
+			raw += a
+		}
+		scale := zp.area / raw
 		out.Cells = slices.Grow(out.Cells, len(cellPts))
 		// Within the covering radius, widened by a billionth so a cell
 		// exactly at the radius by construction is not lost to rounding.
 		r := zp.radius * (1 + 1e-9)
 		var sum float64
 		for k, q := range cellPts {
-			a := share
+			a := areas[k] * scale
 			if k == len(cellPts)-1 {
 				a = zp.area - sum // the last cell absorbs the rounding
 			}
@@ -352,6 +369,62 @@ func Generate(zones []ZoneInput, noGo []geom.Polygon, opt Options) (*Layout, err
 	}
 	out.RowCells, out.RowCell = reduceRows(out.Cells, len(out.Candidates))
 	return out, nil
+}
+
+// cellAreas returns, for each cell centre of a square lattice of spacing c
+// through origin, the area of the polygon inside the cell's c × c square.
+// Squares no edge reaches are whole (c²); the others are clipped exactly
+// (geom.Polygon.ClipToRect). The squares an edge reaches are found row band
+// by row band from the edge's x-extent within the band, a conservative
+// superset, so the cost is O(vertices × bands crossed + boundary cells ×
+// vertices) rather than a clip per cell.
+func cellAreas(p geom.Polygon, centres []geom.Point, c float64, origin geom.Point) []float64 {
+	h := c / 2
+	type key struct{ i, j int64 }
+	idx := func(v, o float64) float64 { return (v - o) / c }
+	touched := make(map[key]bool)
+	const eps = 1e-9
+	for _, e := range p.Edges() {
+		ylo, yhi := math.Min(e.A.Y, e.B.Y), math.Max(e.A.Y, e.B.Y)
+		j0 := math.Ceil(idx(ylo-h, origin.Y) - eps)
+		j1 := math.Floor(idx(yhi+h, origin.Y) + eps)
+		for j := j0; j <= j1; j++ {
+			b0, b1 := origin.Y+j*c-h, origin.Y+j*c+h
+			// The edge's x-extent within the band [b0, b1].
+			var xlo, xhi float64
+			if e.A.Y == e.B.Y {
+				xlo, xhi = math.Min(e.A.X, e.B.X), math.Max(e.A.X, e.B.X)
+			} else {
+				t0 := (b0 - e.A.Y) / (e.B.Y - e.A.Y)
+				t1 := (b1 - e.A.Y) / (e.B.Y - e.A.Y)
+				if t0 > t1 {
+					t0, t1 = t1, t0
+				}
+				t0, t1 = math.Max(0, t0), math.Min(1, t1)
+				if t0 > t1 {
+					continue
+				}
+				x0 := e.A.X + t0*(e.B.X-e.A.X)
+				x1 := e.A.X + t1*(e.B.X-e.A.X)
+				xlo, xhi = math.Min(x0, x1), math.Max(x0, x1)
+			}
+			i0 := math.Ceil(idx(xlo-h, origin.X) - eps)
+			i1 := math.Floor(idx(xhi+h, origin.X) + eps)
+			for i := i0; i <= i1; i++ {
+				touched[key{int64(i), int64(j)}] = true
+			}
+		}
+	}
+	areas := make([]float64, len(centres))
+	for k, q := range centres {
+		ki := key{int64(math.Round(idx(q.X, origin.X))), int64(math.Round(idx(q.Y, origin.Y)))}
+		if touched[ki] {
+			areas[k] = p.ClipToRect(geom.Rect{Min: geom.Point{X: q.X - h, Y: q.Y - h}, Max: geom.Point{X: q.X + h, Y: q.Y + h}}).Area()
+		} else {
+			areas[k] = c * c
+		}
+	}
+	return areas
 }
 
 // zoneCandidates returns one zone's candidates in order.

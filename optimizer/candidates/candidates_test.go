@@ -300,3 +300,55 @@ func TestDeterminism(t *testing.T) {
 	checkCoverage(t, l1, []float64{75 / math.Sqrt(3), 120 / math.Sqrt2})
 	checkRows(t, l1)
 }
+
+func TestCellAreasClipped(t *testing.T) {
+	// Hand computation: a 210 × 100 ft zone, 100-ft rule, cells every
+	// 25 ft. Columns: ceil(210/25) = 9 centred at 5, 30, …, 205, so the
+	// end squares reach 17.5 ft into the zone; rows: 4 centred at 12.5 …
+	// 87.5, tiling the height. End-column cells 17.5 × 25 = 437.5 ft²,
+	// others 625 ft²; per row 2·437.5 + 7·625 = 5,250, ×4 = 21,000 =
+	// 210 × 100 (shoelace formula), so no scaling.
+	l, err := Generate([]ZoneInput{{ID: "strip", Polygon: square(0, 0, 210, 100), SpacingFt: 100}}, nil, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(l.Cells) != 36 {
+		t.Fatalf("%d cells, want 36", len(l.Cells))
+	}
+	for _, c := range l.Cells {
+		want := 625.0
+		if c.P.X < 10 || c.P.X > 200 {
+			want = 437.5
+		}
+		if !near(c.AreaFt2, want) {
+			t.Errorf("cell at %v: %v ft², want %v", c.P, c.AreaFt2, want)
+		}
+	}
+}
+
+func TestCellAreasMatchFullClipping(t *testing.T) {
+	// The band marking only decides which cells to clip; clipping every
+	// cell must give the same areas.
+	star := geom.Polygon{}
+	for k := 0; k < 14; k++ {
+		r := 400.0
+		if k%2 == 1 {
+			r = 150
+		}
+		a := float64(k)*math.Pi/7 + 0.1
+		star = append(star, geom.Point{X: 500 + r*math.Cos(a), Y: 500 + r*math.Sin(a)})
+	}
+	for _, p := range []geom.Polygon{star, {{X: 0, Y: 0}, {X: 300, Y: 0}, {X: 300, Y: 300}, {X: 200, Y: 300}, {X: 200, Y: 100}, {X: 100, Y: 100}, {X: 100, Y: 300}, {X: 0, Y: 300}}} {
+		for _, c := range []float64{13, 25, 61} {
+			o := centredOrigin(geom.Square, p.Bounds(), c)
+			centres := p.Lattice(geom.Square, c, o)
+			got := cellAreas(p, centres, c, o)
+			for k, q := range centres {
+				want := p.ClipToRect(geom.Rect{Min: geom.Point{X: q.X - c/2, Y: q.Y - c/2}, Max: geom.Point{X: q.X + c/2, Y: q.Y + c/2}}).Area()
+				if math.Abs(got[k]-want) > 1e-9*c*c {
+					t.Fatalf("cell %v spacing %v: area %v, full clipping %v", q, c, got[k], want)
+				}
+			}
+		}
+	}
+}
