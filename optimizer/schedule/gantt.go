@@ -85,6 +85,17 @@ func WriteGanttSVG(w io.Writer, s *Schedule) error {
 	fmt.Fprintf(bw, `<text x="8" y="16" font-size="13" font-weight="bold" fill="%s">Field schedule %s to %s, %d field days</text>`+"\n",
 		ganttTextInk, s.Start.Format(dateLayout), s.Finish.Format(dateLayout), s.FieldDays)
 
+	// Wet days any rig saw, marked over the lanes so a standby bar can be
+	// read against its cause.
+	wet := map[int]bool{}
+	for _, r := range s.Rigs {
+		for _, d := range r.Days {
+			if d.Wet {
+				wet[civilDays(s.Start, d.Date)] = true
+			}
+		}
+	}
+
 	// Day columns: days off shaded, month names where a month starts,
 	// day numbers (only Mondays when columns are narrow).
 	for i := 0; i < n; i++ {
@@ -96,6 +107,9 @@ func WriteGanttSVG(w io.Writer, s *Schedule) error {
 		fmt.Fprintf(bw, `<line x1="%s" y1="%s" x2="%s" y2="%s" stroke="%s" stroke-width="0.5"/>`+"\n", f(x), f(ganttTop-12), f(x), f(ganttTop+lanesH), ganttGridInk)
 		if i == 0 || d.Day() == 1 {
 			fmt.Fprintf(bw, `<text x="%s" y="36" fill="%s">%s</text>`+"\n", f(x+2), ganttTextInk, d.Format("Jan 2006"))
+		}
+		if wet[i] {
+			fmt.Fprintf(bw, `<text x="%s" y="%s" text-anchor="middle" font-size="8" font-style="italic" fill="%s">wet</text>`+"\n", f(x+dw/2), f(ganttTop-17), ganttStandbyInk)
 		}
 		if dw >= 14 || d.Weekday() == 1 {
 			fmt.Fprintf(bw, `<text x="%s" y="%s" text-anchor="middle" font-size="9" fill="%s">%d</text>`+"\n", f(x+dw/2), f(ganttTop-4), ganttTextInk, d.Day())
