@@ -179,3 +179,29 @@ func TestRiskGivenWetDatesAlwaysWet(t *testing.T) {
 		t.Errorf("given wet date: least standby %v h, P50 days %d; want 10 h and 3 days", r.StandbyHours[0], r.P50FieldDays)
 	}
 }
+
+// TestRiskMonthlyProbability: April certain wet, other months dry. A rig
+// without wet access needing ten full days from Monday 29 March 2027 works
+// 29–31 March, stands by every working day of April 2027 (22: thirty days
+// less eight weekend days) and finishes the other seven in May, on Tuesday
+// 11 May (calendar arithmetic).
+func TestRiskMonthlyProbability(t *testing.T) {
+	rig := RigSpec{Name: "tire", SpeedFtPerHr: map[string]float64{Firm: 1000}, StandbyRate: 100}
+	var jobs []Job
+	for i := 0; i < 10; i++ {
+		jobs = append(jobs, Job{ID: itoa(i), Rig: "tire", Hours: 10, Surface: Firm})
+	}
+	cal := testCalendar()
+	cal.Start = time.Date(2027, 3, 29, 0, 0, 0, 0, time.UTC)
+	cal.WetProbByMonth[time.April-1] = 1
+	r, err := Risk(jobs, []RigSpec{rig}, cal, Options{Seed: 9, Runs: 10})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := r.P50Finish.Format(dateLayout); got != "2027-05-11" || r.P80Finish.Format(dateLayout) != got {
+		t.Errorf("P50/P80 finish %s/%s, want 2027-05-11", got, r.P80Finish.Format(dateLayout))
+	}
+	if r.P50StandbyHours != 220 || r.P80StandbyCost != 22000 || r.P50FieldDays != 32 {
+		t.Errorf("standby %v h, cost %v, %d field days; want 220 h, 22000, 32 days", r.P50StandbyHours, r.P80StandbyCost, r.P50FieldDays)
+	}
+}
