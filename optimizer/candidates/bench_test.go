@@ -23,13 +23,20 @@ func benchSite(acres float64) ([]ZoneInput, []geom.Polygon) {
 }
 
 func BenchmarkGenerate(b *testing.B) {
-	for _, acres := range []float64{1, 10, 100, 1000} {
-		b.Run(fmt.Sprintf("acres=%g", acres), func(b *testing.B) {
-			zones, noGo := benchSite(acres)
+	for _, tc := range []struct {
+		acres float64
+		opt   Options
+		name  string
+	}{
+		{1, Options{}, ""}, {10, Options{}, ""}, {100, Options{}, ""}, {1000, Options{}, ""},
+		{100, Options{CellFraction: 0.125}, ",cells=s/8"},
+	} {
+		b.Run(fmt.Sprintf("acres=%g%s", tc.acres, tc.name), func(b *testing.B) {
+			zones, noGo := benchSite(tc.acres)
 			var l *Layout
 			for b.Loop() {
 				var err error
-				if l, err = Generate(zones, noGo, Options{}); err != nil {
+				if l, err = Generate(zones, noGo, tc.opt); err != nil {
 					b.Fatal(err)
 				}
 			}
