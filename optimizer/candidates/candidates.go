@@ -12,8 +12,9 @@
 // model of Toregas, Swain, ReVelle and Bergman, "The location of emergency
 // service facilities", Operations Research 19(6), 1971, with the covering
 // rows reduced by the classical row-domination rule (a row whose candidate
-// set contains another row's set is implied by it; Garfinkel and
-// Nemhauser, Integer Programming, 1972, ch. 8).
+// set contains another row's set is implied by it; a standard set-covering
+// reduction, e.g. Garfinkel and Nemhauser, Integer Programming, 1972 —
+// from memory).
 //
 // The package takes plain data and gives plain data: no files, no
 // scenario types. Output is deterministic, in zone order and lattice order.

@@ -8,7 +8,8 @@ import "math"
 // 2 ppm, 0.01 ft in a mile.
 const MetersPerFoot = 0.3048
 
-// WGS 84 ellipsoid (NIMA TR8350.2, 3rd ed., Table 3.1).
+// WGS 84 defining parameters a and 1/f (NIMA TR8350.2, 3rd ed., defining
+// parameters table; table number from memory).
 const (
 	wgs84A = 6378137.0         // semi-major axis, m
 	wgs84F = 1 / 298.257223563 // flattening

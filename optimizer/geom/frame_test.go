@@ -9,7 +9,7 @@ import (
 //
 //	M(φ) = a(1−e²) / (1 − e² sin²φ)^{3/2}
 //
-// (Torge & Müller, Geodesy, 4th ed., §4.2.2) from lat0 to lat1 degrees by
+// (the standard ellipsoid formula, written here from memory) from lat0 to lat1 degrees by
 // Simpson's rule, independently of the projection code.
 func meridianArcM(lat0, lat1 float64) float64 {
 	const a, f = 6378137.0, 1 / 298.257223563
@@ -133,8 +133,8 @@ func TestLocalFrameRoundTrip(t *testing.T) {
 	// East of the origin along the parallel, X is nearly the parallel's
 	// arc and Y rises poleward by about x² tan φ / (2ν): transverse
 	// Mercator draws parallels concave toward the pole (Snyder, Map
-	// Projections — A Working Manual, USGS PP 1395, eq. 8-10, leading
-	// term of y with A = Δλ cos φ).
+	// Projections — A Working Manual, USGS PP 1395, transverse Mercator
+	// series for y, leading term with A = Δλ cos φ; from memory).
 	f := LocalFrame{-71.3, 45}
 	p := f.ToLocal(-71.2, 45)
 	nuFt := 6378137.0 / math.Sqrt(1-0.00669437999014*0.5) / MetersPerFoot // ν at 45°, e² of WGS 84

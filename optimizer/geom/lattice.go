@@ -22,8 +22,8 @@ func ValidLattice(kind string) bool { return kind == Square || kind == Triangula
 // largest distance from any point of the plane to its nearest lattice
 // point. For a square lattice it is half the diagonal of a square, s/√2;
 // for a triangular lattice it is the circumradius of an equilateral
-// triangle of side s, s/√3 (plane geometry; Conway & Sloane, Sphere
-// Packings, Lattices and Groups, ch. 2, covering radius of Z² and A₂).
+// triangle of side s, s/√3 (plane geometry: the farthest points from the
+// lattice are the centres of its squares or triangles).
 // It panics for an unknown kind.
 func CoveringRadius(kind string, spacing float64) float64 {
 	switch kind {

@@ -79,8 +79,9 @@ func (p Polygon) Perimeter() float64 {
 	return s
 }
 
-// Centroid returns the centre of area (the first moments over the area,
-// O'Rourke, Computational Geometry in C, 2nd ed., §1.3.6). A ring with no
+// Centroid returns the centre of area: the area-weighted mean of the
+// centroids of the triangles fanned from vertex 0 (signed areas, so it
+// holds for concave rings). A ring with no
 // area returns the mean of its vertices; an empty ring the zero point.
 func (p Polygon) Centroid() Point {
 	if len(p) == 0 {
@@ -157,8 +158,7 @@ func (p Polygon) DistanceToBoundary(q Point) float64 {
 // BoundaryTolFt of the boundary count as inside, so a boring staked on a
 // zone's edge belongs to the zone. Off the boundary it applies the even–odd
 // (crossing number) rule with half-open edges, which for a simple polygon
-// is the same as the non-zero winding rule (O'Rourke, Computational Geometry
-// in C, 2nd ed., §7.4). O(n) in the number of vertices.
+// is the same as the non-zero winding rule (the Jordan curve theorem). O(n) in the number of vertices.
 func (p Polygon) Contains(q Point) bool {
 	if len(p) == 0 {
 		return false
