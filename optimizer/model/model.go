@@ -131,7 +131,12 @@ func Build(s *Spec) (*Model, error) {
 	// Coverage rows.
 	for i, row := range s.CoverRows {
 		var cols []int
+		seen := map[int]bool{}
 		for _, p := range row {
+			if seen[p] {
+				continue // a point listed twice counts once
+			}
+			seen[p] = true
 			for _, o := range byPoint[p] {
 				cols = append(cols, m.XCol[o])
 			}
