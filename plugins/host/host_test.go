@@ -400,3 +400,30 @@ func assertGone(t *testing.T, pids []int) {
 	}
 	assertNoNewChildren(t, map[int]bool{})
 }
+
+// One Assess call carries a whole batch; 20,000 sites with 300-byte IDs
+// make a request of about 7 MB, past the 4 MiB a gRPC server accepts by
+// default, so this fails unless the plugin raises it (sdk.GRPCServer).
+func TestLargeBatch(t *testing.T) {
+	opt := testOptions()
+	opt.Builtins = []string{"tire-drill"}
+	f, err := Open(context.Background(), opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	r, _ := f.Rig("tire-drill")
+	sites := make([]sdk.Site, 20000)
+	for i := range sites {
+		sites[i] = sdk.Site{ID: strings.Repeat("x", 300) + strconv.Itoa(i), Method: sdk.Boring, DepthFt: float64(10 + i%140), Surface: sdk.Firm, Environmental: i%2 == 0}
+	}
+	start := time.Now()
+	resp, err := r.Assess(context.Background(), sdk.AssessRequest{Sites: sites})
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("20,000 sites in one call: %s", time.Since(start))
+	if len(resp.Answers) != len(sites) || resp.Answers[19999].ID != sites[19999].ID {
+		t.Errorf("%d answers", len(resp.Answers))
+	}
+}

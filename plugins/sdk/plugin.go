@@ -49,6 +49,19 @@ func (p *RigPlugin) GRPCClient(_ context.Context, _ *plugin.GRPCBroker, c *grpc.
 	return &grpcClient{client: proto.NewRigClient(c)}, nil
 }
 
+// MaxMessageBytes bounds one gRPC message a rig plugin receives. gRPC's
+// server default of 4 MiB would cap one Assess batch at some tens of
+// thousands of sites, and the contract is one round trip per batch.
+// (go-plugin's host side already accepts messages up to 2 GiB.)
+const MaxMessageBytes = 256 << 20
+
+// GRPCServer makes the plugin's gRPC server with a MaxMessageBytes receive
+// limit; Serve uses it, and a rig that calls plugin.Serve itself should too.
+func GRPCServer(opts []grpc.ServerOption) *grpc.Server {
+	opts = append(opts, grpc.MaxRecvMsgSize(MaxMessageBytes), grpc.MaxSendMsgSize(MaxMessageBytes))
+	return grpc.NewServer(opts...)
+}
+
 // Serve runs r as a rig plugin over go-plugin's gRPC protocol and returns
 // when the host tells the plugin to stop. Call it from a rig executable's
 // main; it needs the handshake cookie the host sets, and prints a short
@@ -59,6 +72,6 @@ func Serve(r Rig) {
 		Plugins: map[string]plugin.Plugin{
 			PluginName: &RigPlugin{Impl: r},
 		},
-		GRPCServer: plugin.DefaultGRPCServer,
+		GRPCServer: GRPCServer,
 	})
 }

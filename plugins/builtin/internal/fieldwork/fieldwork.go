@@ -69,16 +69,11 @@ func BandFootage(depthFt float64) []float64 {
 	return out
 }
 
-// DefaultSampleIntervalFt is the split-barrel sampling interval used when a
-// site gives none: every 5 ft (TxDOT LRFD Geotechnical Manual: "every 5 ft
-// from 5 ft"; ASTM D1586 sets the test, not the interval).
-const DefaultSampleIntervalFt = 5.0
-
-// ContinuousSampleIntervalFt, given as a site's interval, asks for
-// continuous sampling: 24-in split barrels driven one after another, one
-// every 2 ft (ASTM D1586 allows barrel halves 18–30 in long; continuous
-// sampling in the top 15–20 ft is common practice per the TxDOT manual).
-const ContinuousSampleIntervalFt = 2.0
+// DefaultSampleIntervalFt and ContinuousSampleIntervalFt: see package sdk.
+const (
+	DefaultSampleIntervalFt    = sdk.DefaultSampleIntervalFt
+	ContinuousSampleIntervalFt = sdk.ContinuousSampleIntervalFt
+)
 
 // firstSamplesFt are the two shallow samples taken before the regular
 // interval starts: at 2.5 ft (just below topsoil) and 5 ft (common practice).
