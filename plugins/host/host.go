@@ -80,6 +80,7 @@ var _ sdk.Rig = (*Rig)(nil)
 // launch is one rig to start.
 type launch struct {
 	label  string // for errors: `built-in rig "tire-drill"` or `rig plugin file "/x/y"`
+	short  string // for log lines: the built-in's name or the file's base name
 	path   string // plugin file; "" for a built-in
 	cmd    *exec.Cmd
 	secure *plugin.SecureConfig
@@ -99,6 +100,12 @@ func Open(ctx context.Context, opt Options) (*Fleet, error) {
 	if err != nil {
 		return nil, err
 	}
+	// One logger for all children: its sub-loggers share a lock, so lines
+	// from rigs starting in parallel do not interleave in opt.Stderr.
+	logger := hclog.NewNullLogger()
+	if opt.Stderr != nil {
+		logger = hclog.New(&hclog.LoggerOptions{Name: "rig", Output: opt.Stderr, Level: hclog.Debug})
+	}
 
 	rigs := make([]*Rig, len(launches))
 	errs := make([]error, len(launches))
@@ -107,7 +114,7 @@ func Open(ctx context.Context, opt Options) (*Fleet, error) {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			rigs[i], errs[i] = start(ctx, l, opt)
+			rigs[i], errs[i] = start(ctx, l, opt, logger.Named(l.short))
 		}()
 	}
 	wg.Wait()
@@ -157,7 +164,7 @@ func plan(opt Options) ([]launch, error) {
 			continue
 		}
 		seen[name] = true
-		out = append(out, launch{label: fmt.Sprintf("built-in rig %q", name), cmd: opt.SelfCommand(name)})
+		out = append(out, launch{label: fmt.Sprintf("built-in rig %q", name), short: name, cmd: opt.SelfCommand(name)})
 	}
 	files, err := Discover(opt.PluginDir)
 	if err != nil {
@@ -165,8 +172,8 @@ func plan(opt Options) ([]launch, error) {
 	}
 	pinned := map[string]bool{}
 	for _, path := range files {
-		l := launch{label: fmt.Sprintf("rig plugin file %q", path), path: path, cmd: exec.Command(path)}
 		base := filepath.Base(path)
+		l := launch{label: fmt.Sprintf("rig plugin file %q", path), short: base, path: path, cmd: exec.Command(path)}
 		if hexSum, ok := opt.Pins[base]; ok {
 			pinned[base] = true
 			sum, err := hex.DecodeString(strings.TrimSpace(hexSum))
@@ -199,11 +206,7 @@ func selfCommand(name string) *exec.Cmd {
 	return exec.Command(exe, "rig-serve", name)
 }
 
-func start(ctx context.Context, l launch, opt Options) (*Rig, error) {
-	out, level := opt.Stderr, hclog.Debug
-	if out == nil {
-		out, level = io.Discard, hclog.Off
-	}
+func start(ctx context.Context, l launch, opt Options, logger hclog.Logger) (*Rig, error) {
 	client := plugin.NewClient(&plugin.ClientConfig{
 		HandshakeConfig:  sdk.HandshakeConfig,
 		Plugins:          sdk.PluginMap,
@@ -212,7 +215,7 @@ func start(ctx context.Context, l launch, opt Options) (*Rig, error) {
 		AllowedProtocols: []plugin.Protocol{plugin.ProtocolGRPC},
 		Managed:          true,
 		StartTimeout:     opt.CallTimeout,
-		Logger:           hclog.New(&hclog.LoggerOptions{Name: "rig", Output: out, Level: level}),
+		Logger:           logger,
 	})
 	fail := func(format string, args ...any) (*Rig, error) {
 		client.Kill()

@@ -158,6 +158,9 @@ func TestPluginDir(t *testing.T) {
 		children := pids(t, f)
 		f.Close()
 		assertGone(t, children)
+		if !strings.Contains(logs.String(), "rig.hand-crew") {
+			t.Errorf("plugin logs in Options.Stderr lack the rig's name:\n%s", logs.String())
+		}
 	})
 
 	t.Run("pin mismatch refuses to run", func(t *testing.T) {

@@ -115,7 +115,7 @@ func (h Hours) Total() float64 {
 
 // Quantity is an amount of one rate-book item.
 type Quantity struct {
-	Item   string  // rate-book item code, e.g. "drill-0-50ft"
+	Item   string  // rate-book item code, e.g. "drill-0-50"
 	Unit   string  // unit of measure, e.g. "ft", "each", "hr"
 	Amount float64 // how many units
 	Note   string  // optional explanation for the estimate line
