@@ -78,6 +78,7 @@ func TestBadInput(t *testing.T) {
 		{"required_point_outside", "zones[0].rules.required_points[0]", "[250, 100] is outside the zone", ""},
 		{"unknown_rate_book", "rate_book", `no demo rate book named "valey-2026"`, "did you mean valley-2026?"},
 		{"missing_rate_book_file", "rate_book", "cannot read", ""},
+		{"rate_book_device", "rate_book", "cannot read /dev/zero", ""},
 		{"hours_per_day", "hours_per_day", "must be ≤ 24 h, got 30", ""},
 		{"missing_yard_miles", "yard_miles", "missing", "RIGMIX_YARD_MILES"},
 		{"duplicate_rig", "rigs[2]", `"tire-drill" listed twice`, ""},
