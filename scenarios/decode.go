@@ -7,6 +7,7 @@ import (
 	"sort"
 	"strconv"
 	"strings"
+	"time"
 
 	"github.com/rigmix/rigmix/optimizer/geom"
 	"github.com/rigmix/rigmix/plugins/sdk"
@@ -75,6 +76,11 @@ type decoder struct {
 	ftPer    float64 // feet per file unit
 	origin   *LonLat
 	readFile func(rel string) ([]byte, string, error) // for GeoJSON
+	// rawText holds the text of each scalar as written in the file, by
+	// field path, so text fields keep what the user wrote (an id "01",
+	// a title that YAML would read as a date) rather than YAML's typed
+	// reading of it. Overridden keys are left out.
+	rawText map[string]string
 }
 
 func (d *decoder) errf(field, hint, format string, args ...any) error {
@@ -238,9 +244,14 @@ func (d *decoder) str(m map[string]any, field, key, hint string) (string, bool, 
 	switch t := raw.(type) {
 	case string:
 		s = t
-	case int, int64, uint64, float64, bool:
-		// A plain scalar such as an id written 12 reads as text.
-		s = fmt.Sprint(t)
+	case int, int64, uint64, float64, bool, time.Time:
+		// A plain scalar such as an id written 01 or a title written as
+		// a date reads as text, as written.
+		if txt, ok := d.rawText[p]; ok {
+			s = txt
+		} else {
+			s = fmt.Sprint(t)
+		}
 	default:
 		return "", true, d.errf(p, hint, "must be text, got %s", fmtVal(raw))
 	}

@@ -141,6 +141,11 @@ func Parse(data []byte, source string, overrides map[string]any) (*Scenario, err
 		}
 		v.Set(k, overrides[k])
 	}
+	d.rawText = map[string]string{}
+	scalarText(&doc, "", d.rawText)
+	for k := range overrides {
+		delete(d.rawText, k)
+	}
 	s, err := d.decode(v.AllSettings())
 	if err != nil {
 		return nil, err
@@ -191,4 +196,32 @@ func readRegular(p string) ([]byte, error) {
 		return nil, fmt.Errorf("larger than %d MB", maxFileBytes>>20)
 	}
 	return io.ReadAll(io.LimitReader(f, maxFileBytes+1))
+}
+
+// scalarText records the written text of every scalar in the document by
+// field path ("zones[0].id").
+func scalarText(n *yaml.Node, path string, out map[string]string) {
+	if n.Kind == yaml.AliasNode && n.Alias != nil {
+		n = n.Alias
+	}
+	switch n.Kind {
+	case yaml.DocumentNode:
+		for _, c := range n.Content {
+			scalarText(c, path, out)
+		}
+	case yaml.MappingNode:
+		for i := 0; i+1 < len(n.Content); i += 2 {
+			if k := n.Content[i].Value; k == "<<" {
+				scalarText(n.Content[i+1], path, out)
+			} else {
+				scalarText(n.Content[i+1], join(path, k), out)
+			}
+		}
+	case yaml.SequenceNode:
+		for i, c := range n.Content {
+			scalarText(c, fmt.Sprintf("%s[%d]", path, i), out)
+		}
+	case yaml.ScalarNode:
+		out[path] = n.Value
+	}
 }
