@@ -230,3 +230,73 @@ func TestRandomAgainstGonum(t *testing.T) {
 		})
 	}
 }
+
+// rescale returns p with row i multiplied by 10^ri and column j
+// represented in units 10^cj times larger (x_j = 10^cj x'_j), exponents
+// drawn from [−k, k]; the optimal value is unchanged.
+func rescale(rng *rand.Rand, p *Problem, k int) *Problem {
+	q := cloneProblem(p)
+	q.Value = append([]float64(nil), p.Value...)
+	rf := make([]float64, p.NumRows)
+	for i := range rf {
+		rf[i] = math.Pow(10, float64(rng.IntN(2*k+1)-k))
+		q.RowLo[i] *= rf[i]
+		q.RowUp[i] *= rf[i]
+	}
+	for j := 0; j < p.NumCols; j++ {
+		cf := math.Pow(10, float64(rng.IntN(2*k+1)-k))
+		q.Obj[j] *= cf
+		q.ColLo[j] /= cf
+		q.ColUp[j] /= cf
+		for t := p.ColStart[j]; t < p.ColStart[j+1]; t++ {
+			q.Value[t] *= rf[p.RowIndex[t]] * cf
+		}
+	}
+	return q
+}
+
+// TestBadlyScaled solves random LPs whose rows and columns are rescaled
+// by powers of 10 up to 10^±3 and compares with gonum's lp.Simplex on the
+// unscaled original (the optimal value is invariant under the rescaling).
+func TestBadlyScaled(t *testing.T) {
+	rng := rand.New(rand.NewPCG(99, 1))
+	compared := 0
+	for k := 0; k < 150; k++ {
+		p := randomLP(rng, 1+rng.IntN(10), 1+rng.IntN(12), 0.5, 0.15)
+		q := rescale(rng, p, 5)
+		c, a, b, c0 := toGonumStandard(p)
+		if rr, cc := a.Dims(); rr > cc || rr == 0 {
+			continue
+		}
+		f, _, gerr := glp.Simplex(c, a, b, 1e-10, nil)
+		var want Status
+		switch {
+		case gerr == nil:
+			want = Optimal
+		case errors.Is(gerr, glp.ErrInfeasible):
+			want = Infeasible
+		case errors.Is(gerr, glp.ErrUnbounded):
+			want = Unbounded
+		default:
+			continue
+		}
+		r, err := Solve(q, Options{})
+		if err != nil {
+			t.Fatalf("instance %d: %v", k, err)
+		}
+		compared++
+		if r.Status != want {
+			t.Errorf("instance %d: status %v, gonum on the unscaled problem says %v", k, r.Status, want)
+			continue
+		}
+		if want == Optimal {
+			if math.Abs(r.Obj-(f+c0)) > 1e-6*math.Max(1, math.Abs(r.Obj)) {
+				t.Errorf("instance %d: objective %.10g, gonum %.10g", k, r.Obj, f+c0)
+			}
+			checkKKT(t, q, r, 1e-6)
+		}
+	}
+	if compared < 100 {
+		t.Errorf("only %d instances compared", compared)
+	}
+}

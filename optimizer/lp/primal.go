@@ -11,6 +11,7 @@ import "math"
 // a basis change. Pricing is Devex (Harris 1973) in reference framework
 // form, reset at each phase start.
 func (s *Solver) primalSimplex() (Status, error) {
+	const phase1Factor = 100
 	N := s.n + s.m
 	tolD := s.opt.optTol()
 	y := s.rho
@@ -30,9 +31,16 @@ func (s *Solver) primalSimplex() (Status, error) {
 			s.computePrimal()
 		}
 		// Phase costs on the basis.
+		// Phase 1 only for violations well beyond the tolerance: the
+		// Harris ratio test lets basic variables stray by up to the
+		// tolerance, and round-off would otherwise bounce the method
+		// between the phases; small leftovers go to the dual clean-up.
 		phase1 := false
 		for p, j := range s.head {
 			v := s.infeasibility(j)
+			if math.Abs(v) <= phase1Factor*s.primalTol(s.x[j]) {
+				v = 0
+			}
 			switch {
 			case v < 0:
 				y[p] = -1
@@ -72,8 +80,8 @@ func (s *Solver) primalSimplex() (Status, error) {
 				dj = s.cost[j]
 			}
 			if j < s.n {
-				for k := s.prob.ColStart[j]; k < s.prob.ColStart[j+1]; k++ {
-					dj -= s.prob.Value[k] * y[s.prob.RowIndex[k]]
+				for k := s.colStart[j]; k < s.colStart[j+1]; k++ {
+					dj -= s.colVal[k] * y[s.colRow[k]]
 				}
 			} else {
 				dj -= y[j-s.n]
@@ -116,12 +124,12 @@ func (s *Solver) primalSimplex() (Status, error) {
 		tmax := math.Inf(1)
 		rangeQ := s.up[q] - s.lo[q]
 		for i, ai := range alpha {
-			if math.Abs(ai) <= pivotTol {
+			if math.Abs(ai) <= zeroTol {
 				continue
 			}
 			g := -dir * ai // dx_B[i]/dt
 			j := s.head[i]
-			lim := s.stepLimit(j, g, true)
+			lim := s.stepLimit(j, g, true, phase1)
 			if lim < tmax {
 				tmax = lim
 			}
@@ -158,15 +166,15 @@ func (s *Solver) primalSimplex() (Status, error) {
 		var step float64
 		var toUpper bool
 		for i, ai := range alpha {
-			if math.Abs(ai) <= pivotTol {
+			if math.Abs(ai) <= zeroTol {
 				continue
 			}
 			g := -dir * ai
 			j := s.head[i]
-			lim := s.stepLimit(j, g, false)
+			lim := s.stepLimit(j, g, false, phase1)
 			if lim <= tmax && math.Abs(ai) > bestA {
 				r, bestA, step = i, math.Abs(ai), lim
-				toUpper = s.hitsUpper(j, g)
+				toUpper = s.hitsUpper(j, g, phase1)
 			}
 		}
 		if r < 0 {
@@ -207,9 +215,11 @@ func (s *Solver) primalSimplex() (Status, error) {
 
 // stepLimit is the step t at which basic variable j, moving at rate g,
 // reaches the bound that blocks it; with widen the bound is relaxed by
-// the primal tolerance (Harris pass 1). In phase 1 an infeasible
-// variable is blocked by the bound it is moving toward.
-func (s *Solver) stepLimit(j int, g float64, widen bool) float64 {
+// the primal tolerance (Harris pass 1). In phase 1 a variable that
+// violates a bound is blocked only by the bound it is moving toward; in
+// phase 2 every basic variable counts as feasible, so one that sits a
+// little outside its bound blocks at once if it moves further out.
+func (s *Solver) stepLimit(j int, g float64, widen, phase1 bool) float64 {
 	x, lo, up := s.x[j], s.lo[j], s.up[j]
 	tl, tu := 0.0, 0.0
 	if widen {
@@ -217,28 +227,28 @@ func (s *Solver) stepLimit(j int, g float64, widen bool) float64 {
 	}
 	if g < 0 {
 		switch {
-		case x > up+s.primalTol(up):
+		case phase1 && x > up+s.primalTol(up):
 			return (x - up + tu) / -g
-		case x < lo-s.primalTol(lo) || math.IsInf(lo, -1):
+		case phase1 && x < lo-s.primalTol(lo) || math.IsInf(lo, -1):
 			return math.Inf(1)
 		default:
-			return (x - lo + tl) / -g
+			return math.Max(x-lo+tl, 0) / -g
 		}
 	}
 	switch {
-	case x < lo-s.primalTol(lo):
+	case phase1 && x < lo-s.primalTol(lo):
 		return (lo - x + tl) / g
-	case x > up+s.primalTol(up) || math.IsInf(up, 1):
+	case phase1 && x > up+s.primalTol(up) || math.IsInf(up, 1):
 		return math.Inf(1)
 	default:
-		return (up - x + tu) / g
+		return math.Max(up-x+tu, 0) / g
 	}
 }
 
 // hitsUpper tells which bound blocks basic j moving at rate g.
-func (s *Solver) hitsUpper(j int, g float64) bool {
+func (s *Solver) hitsUpper(j int, g float64, phase1 bool) bool {
 	if g < 0 {
-		return s.x[j] > s.up[j]+s.primalTol(s.up[j])
+		return phase1 && s.x[j] > s.up[j]+s.primalTol(s.up[j])
 	}
-	return !(s.x[j] < s.lo[j]-s.primalTol(s.lo[j]))
+	return !(phase1 && s.x[j] < s.lo[j]-s.primalTol(s.lo[j]))
 }

@@ -17,9 +17,17 @@ func (s *Solver) result(st Status) *Result {
 		ReducedCost: make([]float64, n),
 		Iterations:  s.iters,
 	}
-	copy(res.Dual, s.rho[:m])
+	for i := 0; i < m; i++ {
+		res.Dual[i] = s.rho[i] * s.rowScale[i]
+	}
 	for j := 0; j < n; j++ {
-		xj := s.x[j]
+		xj := s.x[j] * s.colScale[j]
+		switch {
+		case s.stat[j] == stLower || (s.stat[j] == stUpper && s.prob.ColLo[j] == s.prob.ColUp[j]):
+			xj = s.prob.ColLo[j] // exact, free of scaling round-off
+		case s.stat[j] == stUpper:
+			xj = s.prob.ColUp[j]
+		}
 		res.X[j] = xj
 		res.Obj += s.prob.Obj[j] * xj
 		dj := s.prob.Obj[j]

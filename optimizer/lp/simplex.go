@@ -69,7 +69,7 @@ func (s *Solver) checkStop() bool {
 }
 
 func (s *Solver) resetCosts() {
-	copy(s.cost, s.prob.Obj)
+	copy(s.cost, s.obj)
 	for i := 0; i < s.m; i++ {
 		s.cost[s.n+i] = 0
 	}
@@ -225,8 +225,8 @@ func (s *Solver) computeDual() {
 			continue
 		}
 		v := s.cost[j]
-		for k := s.prob.ColStart[j]; k < s.prob.ColStart[j+1]; k++ {
-			v -= s.prob.Value[k] * y[s.prob.RowIndex[k]]
+		for k := s.colStart[j]; k < s.colStart[j+1]; k++ {
+			v -= s.colVal[k] * y[s.colRow[k]]
 		}
 		s.d[j] = v
 	}

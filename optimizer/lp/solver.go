@@ -31,7 +31,16 @@ type Solver struct {
 	m, n int
 	prob Problem // private copy
 
-	// CSR copy of A, for computing pivot rows from a sparse ρ.
+	// Scaled copy of A by columns (R A C, Koberstein 2005 §6.1), the
+	// scaled costs C c, and the scale factors (powers of 2).
+	colStart []int
+	colRow   []int
+	colVal   []float64
+	obj      []float64
+	rowScale []float64 // r_i
+	colScale []float64 // c_j: x_j = c_j x'_j
+
+	// CSR copy of the scaled A, for computing pivot rows from a sparse ρ.
 	rowStart []int
 	rowCol   []int
 	rowVal   []float64
@@ -91,8 +100,19 @@ func New(p *Problem, opt Options) (*Solver, error) {
 		RowIndex: append([]int(nil), p.RowIndex...),
 		Value:    append([]float64(nil), p.Value...),
 	}
-	// Row-wise copy.
+	s.rowScale, s.colScale = scaleFactors(p)
 	nnz := p.ColStart[n]
+	s.colStart = s.prob.ColStart
+	s.colRow = s.prob.RowIndex
+	s.colVal = make([]float64, nnz)
+	s.obj = make([]float64, n)
+	for j := 0; j < n; j++ {
+		s.obj[j] = p.Obj[j] * s.colScale[j]
+		for k := p.ColStart[j]; k < p.ColStart[j+1]; k++ {
+			s.colVal[k] = p.Value[k] * s.rowScale[p.RowIndex[k]] * s.colScale[j]
+		}
+	}
+	// Row-wise copy.
 	s.rowStart = make([]int, m+1)
 	for _, i := range p.RowIndex {
 		s.rowStart[i+1]++
@@ -107,7 +127,7 @@ func New(p *Problem, opt Options) (*Solver, error) {
 		for k := p.ColStart[j]; k < p.ColStart[j+1]; k++ {
 			i := p.RowIndex[k]
 			s.rowCol[next[i]] = j
-			s.rowVal[next[i]] = p.Value[k]
+			s.rowVal[next[i]] = s.colVal[k]
 			next[i]++
 		}
 	}
@@ -121,10 +141,10 @@ func New(p *Problem, opt Options) (*Solver, error) {
 	s.head = make([]int, m)
 	s.dse = make([]float64, m)
 	for j := 0; j < n; j++ {
-		s.lo[j], s.up[j] = p.ColLo[j], p.ColUp[j]
+		s.lo[j], s.up[j] = p.ColLo[j]/s.colScale[j], p.ColUp[j]/s.colScale[j]
 	}
 	for i := 0; i < m; i++ {
-		s.lo[n+i], s.up[n+i] = -p.RowUp[i], -p.RowLo[i]
+		s.lo[n+i], s.up[n+i] = -p.RowUp[i]*s.rowScale[i], -p.RowLo[i]*s.rowScale[i]
 	}
 	s.lu = newLU(m)
 	s.rho = make([]float64, m)
@@ -145,7 +165,7 @@ func New(p *Problem, opt Options) (*Solver, error) {
 // bound nearest zero (a free one at zero).
 func (s *Solver) slackBasis() {
 	for j := 0; j < s.n; j++ {
-		s.stat[j] = s.nonbasicStatus(j, s.prob.Obj[j])
+		s.stat[j] = s.nonbasicStatus(j, s.obj[j])
 	}
 	for i := 0; i < s.m; i++ {
 		s.head[i] = s.n + i
@@ -203,7 +223,7 @@ func (s *Solver) checkRow(i int) {
 func (s *Solver) SetColBounds(j int, lo, up float64) {
 	s.checkCol(j)
 	s.prob.ColLo[j], s.prob.ColUp[j] = lo, up
-	s.lo[j], s.up[j] = lo, up
+	s.lo[j], s.up[j] = lo/s.colScale[j], up/s.colScale[j]
 	s.fixNonbasic(j)
 }
 
@@ -217,7 +237,7 @@ func (s *Solver) ColBounds(j int) (lo, up float64) {
 func (s *Solver) SetRowBounds(i int, lo, up float64) {
 	s.checkRow(i)
 	s.prob.RowLo[i], s.prob.RowUp[i] = lo, up
-	s.lo[s.n+i], s.up[s.n+i] = -up, -lo
+	s.lo[s.n+i], s.up[s.n+i] = -up*s.rowScale[i], -lo*s.rowScale[i]
 	s.fixNonbasic(s.n + i)
 }
 
@@ -231,6 +251,7 @@ func (s *Solver) RowBounds(i int) (lo, up float64) {
 func (s *Solver) SetObj(j int, c float64) {
 	s.checkCol(j)
 	s.prob.Obj[j] = c
+	s.obj[j] = c * s.colScale[j]
 }
 
 // Obj returns the objective coefficient of column j.
@@ -296,8 +317,8 @@ func (s *Solver) SetBasis(b *Basis) error {
 // column returns the nonzeros of variable j's column in [A I].
 func (s *Solver) column(j int) ([]int, []float64) {
 	if j < s.n {
-		a, b := s.prob.ColStart[j], s.prob.ColStart[j+1]
-		return s.prob.RowIndex[a:b], s.prob.Value[a:b]
+		a, b := s.colStart[j], s.colStart[j+1]
+		return s.colRow[a:b], s.colVal[a:b]
 	}
 	i := j - s.n
 	return s.unit[i : i+1 : i+1], unitVal[:]

@@ -72,6 +72,10 @@ const (
 	// pivotTol is the smallest |α| accepted as a pivot in the ratio
 	// tests (Koberstein 2005, §6.2.2.2: 1e-7).
 	pivotTol = 1e-7
+	// zeroTol: smaller entries of a transformed column are taken as
+	// round-off of zero in the primal ratio test, where skipping a real
+	// small entry would let a basic variable run far past its bound.
+	zeroTol = 1e-12
 	// refactorEvery is the number of basis updates after which the basis
 	// is refactorized from scratch (product-form eta file length);
 	// 100 is the common practice value (Maros 2003, §8.2).
