@@ -150,3 +150,29 @@ func lpEmpty() (q lpProblem) {
 	q.Obj, q.ColLo, q.ColUp, q.RowLo, q.RowUp = []float64{}, []float64{}, []float64{}, []float64{}, []float64{}
 	return q
 }
+
+// TestTwoThreadsDeterministic: with Threads 2 the result must not depend
+// on timing (two runs agree exactly) and must reach the same optimum as
+// one thread (OR-Library optimum from OPTIMA.tsv).
+func TestTwoThreadsDeterministic(t *testing.T) {
+	dir := dataDir(t, "orlib-scp")
+	for _, name := range []string{"scpe2", "scp61"} {
+		p := loadORLib(t, dir, name)
+		want := orlibOptima(t, dir)[name]
+		var runs [2]Result
+		for k := range runs {
+			res, err := Solve(context.Background(), p, Options{Threads: 2})
+			if err != nil {
+				t.Fatal(err)
+			}
+			res.Elapsed = 0
+			runs[k] = *res
+		}
+		if !reflect.DeepEqual(runs[0], runs[1]) {
+			t.Errorf("%s: two 2-thread runs differ: %v/%d nodes vs %v/%d nodes", name, runs[0].Obj, runs[0].Nodes, runs[1].Obj, runs[1].Nodes)
+		}
+		if runs[0].Status != Optimal || runs[0].Obj != want {
+			t.Errorf("%s: 2 threads give %v %v, want optimal %v", name, runs[0].Status, runs[0].Obj, want)
+		}
+	}
+}

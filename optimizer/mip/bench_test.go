@@ -45,7 +45,7 @@ func TestORLibBenchmark(t *testing.T) {
 	for _, name := range names {
 		p := loadORLib(t, dir, name)
 		start := time.Now()
-		res, err := Solve(context.Background(), p, Options{TimeLimit: 120 * time.Second})
+		res, err := Solve(context.Background(), p, Options{TimeLimit: 120 * time.Second, Threads: *orlibThreads})
 		ours := time.Since(start)
 		if err != nil {
 			t.Fatalf("%s: %v", name, err)

@@ -82,64 +82,69 @@ func (e *engine) branch(nd *node, r *lp.Result, z float64) (j int, downBound, up
 	sort.SliceStable(cands, func(a, b int) bool { return cands[a].pcScore > cands[b].pcScore })
 	best, bestScore := -1, -1.0
 	bestDown, bestUp := z, z
-	var basis *lp.Basis
 	sbDone, noImprove := 0, 0
-	for _, c := range cands {
-		if c.reliable || sbDone >= sbCandidates || noImprove >= sbLookahead {
+	var basis, basis2 *lp.Basis
+	pre := map[int]*sbResult{}
+	for ci, c := range cands {
+		res := pre[ci]
+		if res == nil && (c.reliable || sbDone >= sbCandidates || noImprove >= sbLookahead) {
 			if c.pcScore > bestScore {
 				best, bestScore = c.j, c.pcScore
 				bestDown, bestUp = z, z
 			}
 			continue
 		}
-		if basis == nil {
-			basis = e.s.Basis()
-		}
-		sbDone++
-		xj := r.X[c.j]
-		lo, up := e.clo[c.j], e.cup[c.j]
-		var obj [2]float64
-		var feasible, exact [2]bool
-		for d := 0; d < 2; d++ {
-			if d == 0 {
-				e.s.SetColBounds(c.j, lo, math.Floor(xj))
-			} else {
-				e.s.SetColBounds(c.j, math.Ceil(xj), up)
+		if res == nil {
+			if basis == nil {
+				basis = e.s.Basis()
+				if e.s2 != nil && e.s2ok {
+					basis2 = e.s2.Basis()
+				}
 			}
-			res, err := e.solveLP(sbIterLimit)
-			e.s.SetColBounds(c.j, lo, up)
-			_ = e.s.SetBasis(basis)
-			if err != nil {
-				return 0, 0, 0, nil, false, err
-			}
-			switch res.Status {
-			case lp.Infeasible:
-				obj[d] = math.Inf(1)
-			case lp.Optimal:
-				obj[d] = math.Max(res.Obj, z)
-				feasible[d], exact[d] = true, true
-				// An integral child solution is a feasible point.
-				integral := true
-				for k := 0; k < e.n; k++ {
-					if e.p.Integer[k] && isFrac(res.X[k]) {
-						integral = false
+			// With a second solver, evaluate the next unreliable
+			// candidate at the same time; results are used in candidate
+			// order, so the search does not depend on timing.
+			next := -1
+			if basis2 != nil && sbDone+1 < sbCandidates {
+				for k := ci + 1; k < len(cands); k++ {
+					if !cands[k].reliable {
+						next = k
 						break
 					}
 				}
-				if integral {
-					e.setIncumbent(append([]float64(nil), res.X...))
-				}
-			default:
-				// Iteration limit: the dual objective so far is a
-				// valid lower bound of the child only for an exact dual
-				// simplex; use it as an estimate, never to prune.
-				obj[d] = math.Max(res.Obj, z)
-				feasible[d] = true
 			}
-			if e.checkStop() {
-				return c.j, z, z, nil, false, nil
+			var other *sbResult
+			done := make(chan struct{})
+			if next >= 0 {
+				go func() {
+					other = e.strongBranch(e.s2, basis2, cands[next].j, r.X[cands[next].j], z)
+					close(done)
+				}()
+			} else {
+				close(done)
+			}
+			res = e.strongBranch(e.s, basis, c.j, r.X[c.j], z)
+			<-done
+			if other != nil {
+				pre[next] = other
 			}
 		}
+		sbDone++
+		e.lpIter += res.iters
+		if res.err != nil {
+			return 0, 0, 0, nil, false, res.err
+		}
+		for d := 0; d < 2; d++ {
+			if res.sol[d] != nil {
+				e.setIncumbent(res.sol[d])
+			}
+		}
+		if e.checkStop() {
+			return c.j, z, z, nil, false, nil
+		}
+		obj, feasible, exact := res.obj, res.feasible, res.exact
+		xj := r.X[c.j]
+		lo, up := e.clo[c.j], e.cup[c.j]
 		if feasible[0] {
 			e.updatePseudocost(c.j, 0, c.frac, obj[0]-z)
 		}
@@ -174,4 +179,64 @@ func (e *engine) branch(nd *node, r *lp.Result, z float64) (j int, downBound, up
 	// Child bounds come only from strong-branching LPs solved to
 	// optimality; an iteration-limited value is an estimate.
 	return best, bestDown, bestUp, nil, false, nil
+}
+
+// sbResult is the outcome of strong branching on one column.
+type sbResult struct {
+	obj             [2]float64 // child LP values (down, up); +Inf: infeasible
+	feasible, exact [2]bool    // exact: solved to optimality
+	sol             [2][]float64
+	iters           int
+	err             error
+}
+
+// strongBranch solves the two children of column j on solver s with an
+// iteration limit and restores s (bounds and basis) afterwards. It reads
+// but never changes the engine, so two calls on two solvers may run at
+// the same time.
+func (e *engine) strongBranch(s *lp.Solver, basis *lp.Basis, j int, xj, z float64) *sbResult {
+	res := &sbResult{}
+	lo, up := e.clo[j], e.cup[j]
+	s.SetOptions(e.lpOptions(sbIterLimit))
+	for d := 0; d < 2; d++ {
+		if d == 0 {
+			s.SetColBounds(j, lo, math.Floor(xj))
+		} else {
+			s.SetColBounds(j, math.Ceil(xj), up)
+		}
+		r, err := s.Solve()
+		s.SetColBounds(j, lo, up)
+		_ = s.SetBasis(basis)
+		if r != nil {
+			res.iters += r.Iterations
+		}
+		if err != nil {
+			res.err = err
+			return res
+		}
+		switch r.Status {
+		case lp.Infeasible:
+			res.obj[d] = math.Inf(1)
+		case lp.Optimal:
+			res.obj[d] = math.Max(r.Obj, z)
+			res.feasible[d], res.exact[d] = true, true
+			integral := true
+			for k := 0; k < e.n; k++ {
+				if e.p.Integer[k] && isFrac(r.X[k]) {
+					integral = false
+					break
+				}
+			}
+			if integral {
+				// An integral child solution is a feasible point.
+				res.sol[d] = append([]float64(nil), r.X...)
+			}
+		default:
+			// Iteration or time limit: the objective so far is an
+			// estimate only, never used to prune.
+			res.obj[d] = math.Max(r.Obj, z)
+			res.feasible[d] = true
+		}
+	}
+	return res
 }

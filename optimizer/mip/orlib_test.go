@@ -15,8 +15,9 @@ import (
 )
 
 var (
-	orlibAll  = flag.Bool("orlib.all", false, "also solve OR-Library set-covering sets 5, A, B, C and D (long)")
-	orlibOnly = flag.String("orlib.only", "", "comma-separated instance names to solve instead of the default sets (e.g. scp41,scpa1)")
+	orlibAll     = flag.Bool("orlib.all", false, "also solve OR-Library set-covering sets 5, A, B, C and D (long)")
+	orlibThreads = flag.Int("orlib.threads", 1, "Options.Threads for the OR-Library runs")
+	orlibOnly    = flag.String("orlib.only", "", "comma-separated instance names to solve instead of the default sets (e.g. scp41,scpa1)")
 )
 
 // orlibOptima reads OPTIMA.tsv: optimal values of the OR-Library
@@ -94,7 +95,7 @@ func TestORLibSetCover(t *testing.T) {
 			}
 			p := loadORLib(t, dir, name)
 			start := time.Now()
-			res, err := Solve(context.Background(), p, Options{TimeLimit: 120 * time.Second})
+			res, err := Solve(context.Background(), p, Options{TimeLimit: 120 * time.Second, Threads: *orlibThreads})
 			if err != nil {
 				t.Fatal(err)
 			}

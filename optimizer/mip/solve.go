@@ -128,6 +128,7 @@ type node struct {
 	bound   float64 // lower bound (parent LP value or better)
 	changes []boundChange
 	basis   *lp.Basis
+	basis2  *lp.Basis // snapshot of the second solver (Threads ≥ 2)
 	depth   int
 	seq     int
 	// branching that created the node, for pseudocost updates
@@ -175,9 +176,11 @@ type engine struct {
 	cover  *coverData
 
 	s              *lp.Solver
-	glo, gup       []float64 // global bounds (root, tightened by fixing)
-	clo, cup       []float64 // bounds currently set in s
-	touched        []int     // columns whose bounds in s differ from global
+	s2             *lp.Solver // second solver for parallel strong branching
+	s2ok           bool       // s2 holds the optimal basis of the current node
+	glo, gup       []float64  // global bounds (root, tightened by fixing)
+	clo, cup       []float64  // bounds currently set in s
+	touched        []int      // columns whose bounds in s differ from global
 	isTouched      []bool
 	gran           float64 // feasible objective values are multiples of gran (0: unknown)
 	rowsOf         [][]int // row lists by column (for feasibility checks)
@@ -339,6 +342,12 @@ func (e *engine) run() (Status, error) {
 	if err != nil {
 		return 0, fmt.Errorf("mip: %w", err)
 	}
+	if e.opt.Threads >= 2 {
+		e.s2, err = lp.New(q, e.lpOptions(0))
+		if err != nil {
+			return 0, fmt.Errorf("mip: %w", err)
+		}
+	}
 	e.glo = append([]float64(nil), q.ColLo...)
 	e.gup = append([]float64(nil), q.ColUp...)
 	e.clo = append([]float64(nil), q.ColLo...)
@@ -440,7 +449,7 @@ func (e *engine) lagrangeFix(lr *lagrangeResult) {
 	}
 	for j := 0; j < e.n; j++ {
 		if e.clo[j] != e.glo[j] || e.cup[j] != e.gup[j] {
-			e.s.SetColBounds(j, e.glo[j], e.gup[j])
+			e.setBounds(j, e.glo[j], e.gup[j])
 			e.clo[j], e.cup[j] = e.glo[j], e.gup[j]
 		}
 	}
@@ -477,7 +486,7 @@ func (e *engine) apply(nd *node) bool {
 		}
 		e.isTouched[j] = false
 		if e.clo[j] != e.glo[j] || e.cup[j] != e.gup[j] {
-			e.s.SetColBounds(j, e.glo[j], e.gup[j])
+			e.setBounds(j, e.glo[j], e.gup[j])
 			e.clo[j], e.cup[j] = e.glo[j], e.gup[j]
 		}
 	}
@@ -489,7 +498,7 @@ func (e *engine) apply(nd *node) bool {
 			e.touched = append(e.touched, c.j)
 		}
 		if e.clo[c.j] != w[0] || e.cup[c.j] != w[1] {
-			e.s.SetColBounds(c.j, w[0], w[1])
+			e.setBounds(c.j, w[0], w[1])
 			e.clo[c.j], e.cup[c.j] = w[0], w[1]
 		}
 	}
@@ -497,6 +506,38 @@ func (e *engine) apply(nd *node) bool {
 	// them for untouched columns: handled in lagrangeFix/rootFix which
 	// write them through.
 	return true
+}
+
+// setBounds changes the bounds of column j in the solver(s).
+func (e *engine) setBounds(j int, lo, up float64) {
+	e.s.SetColBounds(j, lo, up)
+	if e.s2 != nil {
+		e.s2.SetColBounds(j, lo, up)
+	}
+}
+
+// solveNode solves the node LP; with a second solver it solves the same
+// LP there at the same time, so that both start strong branching from
+// the node's optimal basis.
+func (e *engine) solveNode() (*lp.Result, error) {
+	if e.s2 == nil {
+		return e.solveLP(0)
+	}
+	var r2 *lp.Result
+	var err2 error
+	done := make(chan struct{})
+	e.s2.SetOptions(e.lpOptions(0))
+	go func() {
+		r2, err2 = e.s2.Solve()
+		close(done)
+	}()
+	r, err := e.solveLP(0)
+	<-done
+	e.s2ok = err2 == nil && r2 != nil && r2.Status == lp.Optimal
+	if r2 != nil {
+		e.lpIter += r2.Iterations
+	}
+	return r, err
 }
 
 // solveLP solves the current LP and accounts its iterations.
@@ -579,8 +620,11 @@ func (e *engine) search(root *node) (Status, error) {
 		if nd.basis != nil {
 			_ = e.s.SetBasis(nd.basis)
 		}
+		if nd.basis2 != nil && e.s2 != nil {
+			_ = e.s2.SetBasis(nd.basis2)
+		}
 		e.nodes++
-		r, err := e.solveLP(0)
+		r, err := e.solveNode()
 		if err != nil {
 			if errors.Is(err, lp.ErrNumerical) {
 				// Re-solve from the slack basis is not exposed; skip
@@ -686,11 +730,15 @@ func (e *engine) search(root *node) (Status, error) {
 			changes: append(append([]boundChange(nil), base...), boundChange{j, e.glo[j], math.Floor(xj)})}
 		up := &node{bound: math.Max(z, upBound), depth: nd.depth + 1, brVar: j, brDir: 1, brFrac: fj, parentZ: z,
 			changes: append(append([]boundChange(nil), base...), boundChange{j, math.Ceil(xj), e.gup[j]})}
-		var basis *lp.Basis
+		var basis, basis2 *lp.Basis
 		if e.storedBases < maxStoredBases {
 			basis = e.s.Basis()
+			if e.s2 != nil {
+				basis2 = e.s2.Basis()
+			}
 		}
 		down.basis, up.basis = basis, basis
+		down.basis2, up.basis2 = basis2, basis2
 		// Dive into the child with the better bound; ties: up (covering
 		// problems profit from taking a column).
 		first, second := up, down
@@ -714,7 +762,7 @@ func (e *engine) search(root *node) (Status, error) {
 			limit = best + 0.5*(e.incObj-best)
 		}
 		if first.bound <= limit {
-			first.basis = nil // the solver's current basis is the parent's
+			first.basis, first.basis2 = nil, nil // the solvers' current bases are the parent's
 			next = first
 		} else {
 			e.pushNode(first)
@@ -789,7 +837,7 @@ func (e *engine) rootReducedCostFix() {
 	if changed {
 		for j := 0; j < e.n; j++ {
 			if !e.isTouched[j] && (e.clo[j] != e.glo[j] || e.cup[j] != e.gup[j]) {
-				e.s.SetColBounds(j, e.glo[j], e.gup[j])
+				e.setBounds(j, e.glo[j], e.gup[j])
 				e.clo[j], e.cup[j] = e.glo[j], e.gup[j]
 			}
 		}
