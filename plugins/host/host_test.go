@@ -430,3 +430,31 @@ func TestLargeBatch(t *testing.T) {
 		t.Errorf("%d answers", len(resp.Answers))
 	}
 }
+
+// A plugin that never completes the handshake is given up on after the
+// call timeout and killed, and the error names it.
+func TestPluginThatHangs(t *testing.T) {
+	dir := t.TempDir()
+	script := filepath.Join(dir, "silent")
+	if err := os.WriteFile(script, []byte("#!/bin/sh\nexec sleep 30\n"), 0o755); err != nil {
+		t.Fatal(err)
+	}
+	opt := testOptions()
+	opt.PluginDir = dir
+	opt.CallTimeout = 500 * time.Millisecond
+	before := childPIDs(t)
+	start := time.Now()
+	f, err := Open(context.Background(), opt)
+	if err == nil {
+		f.Close()
+		t.Fatal("Open accepted a plugin that never answered")
+	}
+	if d := time.Since(start); d > 10*time.Second {
+		t.Errorf("Open took %s to give up", d)
+	}
+	if !strings.Contains(err.Error(), script) {
+		t.Errorf("error %q does not name %s", err, script)
+	}
+	t.Logf("error for a plugin that hangs: %v", err)
+	assertNoNewChildren(t, before)
+}
