@@ -80,8 +80,15 @@ func insideOrOn(poly geom.Polygon, p geom.Point) bool {
 	return onBoundary(poly, p) || strictlyInside(poly, p)
 }
 
-// segmentsTouch reports whether closed segments ab and cd share a point.
+// segmentsTouch reports whether closed segments ab and cd share a point
+// (within onEdgeTolFt).
 func segmentsTouch(a, b, c, d geom.Point) bool {
+	// Bounding-box rejection first: most pairs of a ring's edges are far
+	// apart, and this keeps the O(n²) simplicity check fast on long rings.
+	if math.Max(a.X, b.X)+onEdgeTolFt < math.Min(c.X, d.X) || math.Max(c.X, d.X)+onEdgeTolFt < math.Min(a.X, b.X) ||
+		math.Max(a.Y, b.Y)+onEdgeTolFt < math.Min(c.Y, d.Y) || math.Max(c.Y, d.Y)+onEdgeTolFt < math.Min(a.Y, b.Y) {
+		return false
+	}
 	d1, d2 := cross(c, d, a), cross(c, d, b)
 	d3, d4 := cross(a, b, c), cross(a, b, d)
 	if ((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0)) {
@@ -109,17 +116,41 @@ func segmentsCross(a, b, c, d geom.Point) bool {
 // or -1, -1 for a simple ring.
 func selfIntersection(p geom.Polygon) (int, int) {
 	n := len(p)
-	for i := 0; i < n; i++ {
-		for j := i + 1; j < n; j++ {
+	// Sweep over edges sorted by their left end: only edges whose x-ranges
+	// overlap are tested, so long rings of short edges cost about
+	// O(n log n) rather than O(n²).
+	type span struct {
+		lo, hi float64
+		i      int
+	}
+	spans := make([]span, n)
+	for i := range p {
+		a, b := p[i], p[(i+1)%n]
+		spans[i] = span{math.Min(a.X, b.X), math.Max(a.X, b.X), i}
+	}
+	sort.Slice(spans, func(x, y int) bool {
+		if spans[x].lo != spans[y].lo {
+			return spans[x].lo < spans[y].lo
+		}
+		return spans[x].i < spans[y].i
+	})
+	bi, bj := -1, -1
+	for x := range spans {
+		for y := x + 1; y < n && spans[y].lo <= spans[x].hi+onEdgeTolFt; y++ {
+			i, j := min(spans[x].i, spans[y].i), max(spans[x].i, spans[y].i)
 			if j == i+1 || (i == 0 && j == n-1) {
 				continue // neighbours share a vertex by construction
 			}
 			if segmentsTouch(p[i], p[(i+1)%n], p[j], p[(j+1)%n]) {
-				return i, j
+				// Report the first pair in index order, whatever the
+				// sweep order, so messages are the same for every run.
+				if bi < 0 || i < bi || (i == bi && j < bj) {
+					bi, bj = i, j
+				}
 			}
 		}
 	}
-	return -1, -1
+	return bi, bj
 }
 
 // foldBack returns the index of the first vertex where the ring turns

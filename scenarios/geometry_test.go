@@ -1,6 +1,8 @@
 package scenarios
 
 import (
+	"math"
+	"math/rand"
 	"testing"
 
 	"github.com/rigmix/rigmix/optimizer/geom"
@@ -88,5 +90,66 @@ func TestCoveredBy(t *testing.T) {
 	}
 	if coveredBy(zone, nil) {
 		t.Error("no no-go areas cover nothing")
+	}
+}
+
+// BenchmarkSimpleRing times the simplicity check on a 10,000-vertex ring,
+// the most a polygon may have.
+func BenchmarkSimpleRing(b *testing.B) {
+	const n = 10000
+	p := make(geom.Polygon, n)
+	for i := range p {
+		a := 2 * math.Pi * float64(i) / n
+		p[i] = geom.Point{X: 1000 * math.Cos(a), Y: 1000 * math.Sin(a)}
+	}
+	for b.Loop() {
+		if i, _ := selfIntersection(p); i >= 0 {
+			b.Fatal("circle reported self-intersecting")
+		}
+	}
+}
+
+// TestSelfIntersectionSweep compares the sweep with the plain all-pairs
+// check on seeded random rings, many of them self-intersecting.
+func TestSelfIntersectionSweep(t *testing.T) {
+	brute := func(p geom.Polygon) (int, int) {
+		n := len(p)
+		for i := 0; i < n; i++ {
+			for j := i + 1; j < n; j++ {
+				if j == i+1 || (i == 0 && j == n-1) {
+					continue
+				}
+				if segmentsTouch(p[i], p[(i+1)%n], p[j], p[(j+1)%n]) {
+					return i, j
+				}
+			}
+		}
+		return -1, -1
+	}
+	rng := rand.New(rand.NewSource(7))
+	simple := 0
+	for k := 0; k < 2000; k++ {
+		n := 3 + rng.Intn(12)
+		p := make(geom.Polygon, n)
+		for i := range p {
+			if k%2 == 0 { // star-shaped around the origin: often simple
+				a := 2 * math.Pi * (float64(i) + rng.Float64()*0.9) / float64(n)
+				r := 10 + 90*rng.Float64()
+				p[i] = geom.Point{X: math.Round(r * math.Cos(a)), Y: math.Round(r * math.Sin(a))}
+			} else { // random vertices on a coarse grid: touching cases
+				p[i] = geom.Point{X: float64(rng.Intn(6)), Y: float64(rng.Intn(6))}
+			}
+		}
+		gi, gj := selfIntersection(p)
+		wi, wj := brute(p)
+		if gi != wi || gj != wj {
+			t.Fatalf("ring %v: sweep (%d, %d), all pairs (%d, %d)", p, gi, gj, wi, wj)
+		}
+		if gi < 0 {
+			simple++
+		}
+	}
+	if simple == 0 || simple == 2000 {
+		t.Errorf("%d of 2000 rings simple; the test needs both kinds", simple)
 	}
 }
