@@ -95,6 +95,17 @@ func LoadDemo(name string) (*RateBook, error) {
 	return Parse(data, "demo:"+name)
 }
 
+// Open loads a rate book named the way a scenario's rate_book names it: a
+// demo rate book's name, or else a file path.
+func Open(ref string) (*RateBook, error) {
+	for _, n := range Demos() {
+		if n == ref {
+			return LoadDemo(n)
+		}
+	}
+	return Load(ref)
+}
+
 // Load reads and validates a rate-book file.
 func Load(path string) (*RateBook, error) {
 	data, err := readRegular(path)

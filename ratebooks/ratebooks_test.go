@@ -211,3 +211,17 @@ func FuzzParse(f *testing.F) {
 		_ = b.Check(StandardCodes())
 	})
 }
+
+func TestOpen(t *testing.T) {
+	b, err := Open(filepath.Join("testdata", "good.yaml"))
+	if err != nil || b.Name != "test-rates" {
+		t.Errorf("Open(file) = %v, %v", b, err)
+	}
+	b, err = Open("coastal-2026")
+	if err != nil || b.Source != "demo:coastal-2026" {
+		t.Errorf("Open(demo) = %v, %v", b, err)
+	}
+	if _, err := Open("coastal-2025"); err == nil {
+		t.Error("Open of an unknown name succeeded")
+	}
+}

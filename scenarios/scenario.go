@@ -4,6 +4,14 @@
 //
 // All lengths in a loaded Scenario are in feet and all areas in square feet,
 // whatever unit the file was written in; names carry the unit.
+//
+// The file format is documented key by key in REFERENCE.md beside this
+// file. Keys are checked strictly (a misspelt key is an error naming the
+// nearest known key); settings are merged through viper, in rising
+// precedence: defaults, the file, RIGMIX_* environment variables, and the
+// overrides map the command line passes. Every problem with the input is a
+// *FieldError naming the file, the field path, what is wrong and what
+// would be right.
 package scenarios
 
 import (
