@@ -76,6 +76,7 @@ func TestBadInput(t *testing.T) {
 		{"geojson_line", "zones[1].geojson", "is a LineString, not a Polygon", ""},
 		{"geojson_twin", "zones[1].geojson", `2 features have id = "twin"`, ""},
 		{"required_point_outside", "zones[0].rules.required_points[0]", "[250, 100] is outside the zone", ""},
+		{"required_point_in_nogo", "zones[0].rules.required_points[0]", "point lies in no-go area well", ""},
 		{"unknown_rate_book", "rate_book", `no demo rate book named "valey-2026"`, "did you mean valley-2026?"},
 		{"missing_rate_book_file", "rate_book", "cannot read", ""},
 		{"rate_book_device", "rate_book", "cannot read /dev/zero", ""},
