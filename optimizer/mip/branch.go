@@ -131,9 +131,6 @@ func (e *engine) branch(nd *node, r *lp.Result, z float64) (j int, downBound, up
 		}
 		sbDone++
 		e.lpIter += res.iters
-		if res.err != nil {
-			return 0, 0, 0, nil, false, res.err
-		}
 		for d := 0; d < 2; d++ {
 			if res.sol[d] != nil {
 				e.setIncumbent(res.sol[d])
@@ -187,7 +184,6 @@ type sbResult struct {
 	feasible, exact [2]bool    // exact: solved to optimality
 	sol             [2][]float64
 	iters           int
-	err             error
 }
 
 // strongBranch solves the two children of column j on solver s with an
@@ -211,8 +207,10 @@ func (e *engine) strongBranch(s *lp.Solver, basis *lp.Basis, j int, xj, z float6
 			res.iters += r.Iterations
 		}
 		if err != nil {
-			res.err = err
-			return res
+			// Numerical trouble in a strong-branching LP: no
+			// information from this child.
+			res.obj[d] = z
+			continue
 		}
 		switch r.Status {
 		case lp.Infeasible:

@@ -197,6 +197,11 @@ func TestAgainstExternalSolvers(t *testing.T) {
 		p.Name = fmt.Sprintf("general%d", k)
 		probs = append(probs, p)
 	}
+	for k := 0; k < 6; k++ {
+		p := planLikeMIP(rng, 25+rng.IntN(20), 3+rng.IntN(2))
+		p.Name = fmt.Sprintf("planlike%d", k)
+		probs = append(probs, p)
+	}
 	if d := orlibDirIfPresent(); d != "" {
 		for _, name := range []string{"scp41", "scp61", "scpe1"} {
 			probs = append(probs, loadORLib(t, d, name))
@@ -208,6 +213,7 @@ func TestAgainstExternalSolvers(t *testing.T) {
 		if err != nil {
 			t.Fatalf("%s: %v", p.Name, err)
 		}
+		t.Logf("%s: ours %v %v, %d nodes, %v", p.Name, res.Status, res.Obj, res.Nodes, res.Elapsed.Round(time.Millisecond))
 		for _, s := range solvers {
 			ext := s.run(t, file, 120*time.Second)
 			switch {
@@ -249,3 +255,109 @@ func orlibDirIfPresent() string {
 }
 
 var _ = bufio.NewScanner
+
+// mipBuilder assembles a Problem row by row (test helper).
+type mipBuilder struct {
+	cost   []float64
+	lo, up []float64
+	isInt  []bool
+	rows   []map[int]float64
+	rlo    []float64
+	rup    []float64
+}
+
+func (b *mipBuilder) col(cost, lo, up float64, integer bool) int {
+	b.cost = append(b.cost, cost)
+	b.lo = append(b.lo, lo)
+	b.up = append(b.up, up)
+	b.isInt = append(b.isInt, integer)
+	return len(b.cost) - 1
+}
+
+func (b *mipBuilder) row(coef map[int]float64, lo, up float64) {
+	b.rows = append(b.rows, coef)
+	b.rlo = append(b.rlo, lo)
+	b.rup = append(b.rup, up)
+}
+
+func (b *mipBuilder) problem() *Problem {
+	n, m := len(b.cost), len(b.rows)
+	p := &Problem{Integer: b.isInt}
+	q := &p.LP
+	q.NumRows, q.NumCols = m, n
+	q.Obj, q.ColLo, q.ColUp, q.RowLo, q.RowUp = b.cost, b.lo, b.up, b.rlo, b.rup
+	q.ColStart = make([]int, n+1)
+	for j := 0; j < n; j++ {
+		for i := 0; i < m; i++ {
+			if v, ok := b.rows[i][j]; ok {
+				q.RowIndex = append(q.RowIndex, i)
+				q.Value = append(q.Value, v)
+			}
+		}
+		q.ColStart[j+1] = len(q.RowIndex)
+	}
+	return p
+}
+
+// planLikeMIP builds a random problem with the row types of an
+// exploration-program model (invented data): candidate points chosen by
+// binaries must cover every zone, a rig must be hired (binary, with a
+// mobilization cost) for any of its points to be used (linking
+// y ≤ z), each rig's field days are an integer variable with
+// Σ hours ≤ 8·days, a share of the chosen points must be of the first
+// kind, and a minimum count of points is required.
+func planLikeMIP(rng *rand.Rand, cands, rigs int) *Problem {
+	b := &mipBuilder{}
+	zones := 6 + rng.IntN(6)
+	rigCol := make([]int, rigs)
+	dayCol := make([]int, rigs)
+	for r := 0; r < rigs; r++ {
+		rigCol[r] = b.col(float64(500+rng.IntN(1500)), 0, 1, true)
+		dayCol[r] = b.col(float64(800+rng.IntN(700)), 0, 30, true)
+	}
+	y := make([]int, cands)
+	rigOf := make([]int, cands)
+	hours := make([]float64, cands)
+	cover := make([]map[int]float64, zones)
+	for z := range cover {
+		cover[z] = map[int]float64{}
+	}
+	for c := 0; c < cands; c++ {
+		rigOf[c] = rng.IntN(rigs)
+		y[c] = b.col(float64(100+rng.IntN(900)), 0, 1, true)
+		hours[c] = float64(2 + rng.IntN(9))
+		for z := 0; z < zones; z++ {
+			if rng.IntN(4) == 0 {
+				cover[z][y[c]] = 1
+			}
+		}
+		b.row(map[int]float64{y[c]: 1, rigCol[rigOf[c]]: -1}, math.Inf(-1), 0)
+	}
+	for z := 0; z < zones; z++ {
+		if len(cover[z]) > 0 {
+			b.row(cover[z], 1, math.Inf(1))
+		}
+	}
+	for r := 0; r < rigs; r++ {
+		row := map[int]float64{dayCol[r]: -8}
+		for c := 0; c < cands; c++ {
+			if rigOf[c] == r {
+				row[y[c]] = hours[c]
+			}
+		}
+		b.row(row, math.Inf(-1), 0)
+	}
+	share := map[int]float64{}
+	count := map[int]float64{}
+	for c := 0; c < cands; c++ {
+		count[y[c]] = 1
+		if c%3 == 0 {
+			share[y[c]] = 0.7 // 1 − 0.3: at least 30 % of chosen points of the first kind
+		} else {
+			share[y[c]] = -0.3
+		}
+	}
+	b.row(share, 0, math.Inf(1))
+	b.row(count, float64(3+rng.IntN(5)), math.Inf(1))
+	return b.problem()
+}

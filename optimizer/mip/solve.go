@@ -540,19 +540,31 @@ func (e *engine) solveNode() (*lp.Result, error) {
 	return r, err
 }
 
-// solveLP solves the current LP and accounts its iterations.
+// solveLP solves the current LP and accounts its iterations. When the
+// simplex reports numerical trouble it is rebuilt once from scratch with
+// the same bounds (a fresh factorization from the slack basis) and the
+// LP solved again.
 func (e *engine) solveLP(iterLimit int) (*lp.Result, error) {
 	e.s.SetOptions(e.lpOptions(iterLimit))
 	r, err := e.s.Solve()
 	if r != nil {
 		e.lpIter += r.Iterations
 	}
-	if err != nil && !errors.Is(err, lp.ErrNumerical) {
-		return nil, fmt.Errorf("mip: LP relaxation: %w", err)
+	if err != nil && errors.Is(err, lp.ErrNumerical) {
+		if s, err2 := lp.New(&e.p.LP, e.lpOptions(iterLimit)); err2 == nil {
+			for j := 0; j < e.n; j++ {
+				lo, up := e.s.ColBounds(j)
+				s.SetColBounds(j, lo, up)
+			}
+			e.s = s
+			r, err = e.s.Solve()
+			if r != nil {
+				e.lpIter += r.Iterations
+			}
+		}
 	}
 	if err != nil {
-		// Numerical trouble: restart from the slack basis once.
-		return nil, err
+		return nil, fmt.Errorf("mip: LP relaxation: %w", err)
 	}
 	return r, nil
 }
@@ -626,12 +638,6 @@ func (e *engine) search(root *node) (Status, error) {
 		e.nodes++
 		r, err := e.solveNode()
 		if err != nil {
-			if errors.Is(err, lp.ErrNumerical) {
-				// Re-solve from the slack basis is not exposed; skip
-				// the node only if it cannot matter: treat as an open
-				// problem and stop rather than return a wrong answer.
-				return 0, err
-			}
 			return 0, err
 		}
 		isRoot := !rootSeen
@@ -685,12 +691,21 @@ func (e *engine) search(root *node) (Status, error) {
 			x := append([]float64(nil), r.X...)
 			if e.setIncumbent(x) {
 				e.rootReducedCostFix()
+			} else if _, ok := e.evaluate(append([]float64(nil), r.X...)); !ok && e.p.hasContinuous() {
+				// The LP point is integral within intTol but rounding it
+				// breaks a row by more than feasTol: re-solve the
+				// continuous part with the integers fixed.
+				for j := 0; j < e.n; j++ {
+					if e.p.Integer[j] {
+						x[j] = math.Round(r.X[j])
+					}
+				}
+				if e.fixAndSolve(x) {
+					e.rootReducedCostFix()
+				}
 			}
-			if !e.p.hasContinuous() || e.inc != nil && e.incObj <= z+1e-9*math.Max(1, math.Abs(z)) {
-				continue
-			}
-			// Integral but infeasible after rounding (tolerances): branch
-			// is impossible; accept the LP value as explored.
+			// The node's LP optimum is integral: nothing below it can
+			// be better.
 			continue
 		}
 		// Heuristics.
