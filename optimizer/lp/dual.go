@@ -26,7 +26,7 @@ func (s *Solver) dualSimplex() (Status, error) {
 		if s.checkStop() {
 			return s.stopStat, nil
 		}
-		if s.lu.numEtas() >= refactorEvery {
+		if s.lu.needRefactor() {
 			if err := s.refactor(); err != nil {
 				return 0, err
 			}

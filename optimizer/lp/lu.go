@@ -218,8 +218,14 @@ func (f *luFactor) clearEtas() {
 
 func (f *luFactor) numEtas() int { return len(f.etaPos) }
 
-// etaNnz is the number of nonzeros in the eta file.
-func (f *luFactor) etaNnz() int { return len(f.etaIdx) }
+// needRefactor reports whether the eta file has grown enough that a fresh
+// factorization is cheaper to use than the file: after refactorEvery
+// updates, or when the etas hold more nonzeros than L and U (the eta
+// file is applied in every FTRAN and BTRAN; a rule of this kind is
+// common practice, Maros 2003 §8.2.2 discusses the trade-off).
+func (f *luFactor) needRefactor() bool {
+	return len(f.etaPos) >= refactorEvery
+}
 
 // ftran overwrites a (indexed by rows, length m) with B⁻¹a indexed by
 // basis positions.

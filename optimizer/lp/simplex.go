@@ -81,8 +81,12 @@ func (s *Solver) resetCosts() {
 func (s *Solver) run() (Status, error) {
 	s.rng = rngSeed
 	s.resetCosts()
-	if err := s.refactor(); err != nil {
-		return 0, err
+	// The factorization survives bound and cost changes; only a new basis
+	// (SetBasis, first solve) needs a fresh one.
+	if s.needFactor || s.lu.needRefactor() {
+		if err := s.refactor(); err != nil {
+			return 0, err
+		}
 	}
 	s.computePrimal()
 	s.computeDual()
@@ -132,10 +136,13 @@ func (s *Solver) run() (Status, error) {
 			// runs on the true costs, so Unbounded stands too.
 			return st, nil
 		}
-		// Remove perturbation and shifts, recompute from a fresh factor.
+		// Remove perturbation and shifts and recompute x, y and d, from a
+		// fresh factorization once the eta file is half full.
 		s.resetCosts()
-		if err := s.refactor(); err != nil {
-			return 0, err
+		if 2*s.lu.numEtas() >= refactorEvery {
+			if err := s.refactor(); err != nil {
+				return 0, err
+			}
 		}
 		s.computePrimal()
 		s.computeDual()

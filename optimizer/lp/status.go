@@ -79,7 +79,7 @@ const (
 	// refactorEvery is the number of basis updates after which the basis
 	// is refactorized from scratch (product-form eta file length);
 	// 100 is the common practice value (Maros 2003, §8.2).
-	refactorEvery = 100
+	refactorEvery = 50
 )
 
 // Options control a solve. The zero value is valid and means: no
