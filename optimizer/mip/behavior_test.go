@@ -111,6 +111,9 @@ func TestGapRel(t *testing.T) {
 	if loose.Status != Optimal || loose.Gap > 0.5 || loose.Obj < exact.Obj {
 		t.Errorf("GapRel 0.5: %v gap %v obj %v (exact %v)", loose.Status, loose.Gap, loose.Obj, exact.Obj)
 	}
+	if loose.Bound > exact.Obj+1e-9 || math.Abs(loose.Gap-gap(loose.Obj, loose.Bound)) > 1e-12 {
+		t.Errorf("GapRel 0.5: bound %v above the optimum %v or gap %v inconsistent", loose.Bound, exact.Obj, loose.Gap)
+	}
 	if loose.Nodes > exact.Nodes {
 		t.Errorf("a looser gap took more nodes (%d > %d)", loose.Nodes, exact.Nodes)
 	}

@@ -142,7 +142,7 @@ func (e *engine) dive(r0 *lp.Result, isRoot bool) bool {
 			break
 		}
 		used += res.Iterations
-		if res.Status != lp.Optimal || e.canPrune(res.Obj) {
+		if res.Status != lp.Optimal || e.wouldPrune(res.Obj) {
 			break
 		}
 		x = res.X

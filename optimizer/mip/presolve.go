@@ -69,7 +69,7 @@ const psTol = 1e-9
 // covering it also applies, repeatedly, the reductions of Beasley (1987,
 // EJOR 31:85–93, §2): a row whose column set contains another row's is
 // dropped; a column whose rows are a subset of a no more expensive
-// column's rows is dropped; a column whose cost is at least the sum over
+// column's rows is dropped (ties keep the lower index); a column whose cost is at least the sum over
 // its rows of the cheapest other live column covering the row is
 // dropped; a row covered by one column only fixes that column to 1.
 func presolve(p *Problem) *presolved {
@@ -359,8 +359,45 @@ func (w *psWork) coverPass() bool {
 		}
 		_ = a
 	}
-	// Beasley's cost rule, which includes column dominance by a single
-	// column with ties broken in column order: drop j when
+	// Column dominance: drop j when a live column k ≠ j covers every row
+	// of j at no higher cost; among columns with equal rows and cost the
+	// lowest index stays.
+	colMark := make([]int, w.m)
+	for i := range colMark {
+		colMark[i] = -1
+	}
+	for j := 0; j < w.n; j++ {
+		if !w.colAlive[j] || len(w.colRows[j]) == 0 {
+			continue
+		}
+		rare := w.colRows[j][0]
+		for _, i := range w.colRows[j] {
+			colMark[i] = j
+			if len(w.rowCols[i]) < len(w.rowCols[rare]) {
+				rare = i
+			}
+		}
+		for _, k := range w.rowCols[rare] {
+			if k == j || !w.colAlive[k] || w.cost[k] > w.cost[j] || len(w.colRows[k]) < len(w.colRows[j]) {
+				continue
+			}
+			if w.cost[k] == w.cost[j] && len(w.colRows[k]) == len(w.colRows[j]) && k > j {
+				continue // identical twin: keep the lower index
+			}
+			cnt := 0
+			for _, i := range w.colRows[k] {
+				if colMark[i] == j {
+					cnt++
+				}
+			}
+			if cnt == len(w.colRows[j]) {
+				w.fixCol(j, 0)
+				changed = true
+				break
+			}
+		}
+	}
+	// Beasley's cost rule: drop j when
 	// c_j ≥ Σ_{i ∈ rows(j)} min{c_k : k ≠ j live, k covers i}.
 	for j := 0; j < w.n; j++ {
 		if !w.colAlive[j] {

@@ -62,15 +62,16 @@ func Solve(ctx context.Context, p *Problem, opt Options) (*Result, error) {
 		return res, nil
 	}
 	e := &engine{
-		ctx:    ctx,
-		start:  start,
-		opt:    opt,
-		gapRel: gapRel,
-		ps:     ps,
-		p:      ps.red,
-		offset: ps.objShift + p.ObjOffset,
-		incObj: math.Inf(1),
-		lastBd: math.Inf(-1),
+		ctx:       ctx,
+		start:     start,
+		opt:       opt,
+		gapRel:    gapRel,
+		ps:        ps,
+		p:         ps.red,
+		offset:    ps.objShift + p.ObjOffset,
+		incObj:    math.Inf(1),
+		lastBd:    math.Inf(-1),
+		prunedMin: math.Inf(1),
 	}
 	if opt.TimeLimit > 0 {
 		e.deadline = start.Add(opt.TimeLimit)
@@ -196,6 +197,7 @@ type engine struct {
 	pcAllSum       [2]float64
 	pcAllCnt       [2]int
 	lastBd         float64
+	prunedMin      float64 // least bound of any region pruned by the gap rule
 	curBound       float64 // bound of the node being processed
 	stopStat       Status
 	stopped        bool
@@ -209,17 +211,18 @@ type engine struct {
 }
 
 func (e *engine) globalBound() float64 {
-	b := e.incObj
+	b := math.Min(e.incObj, e.prunedMin)
 	if e.stopped || !e.rootDone {
 		b = math.Min(b, e.curBound)
 	}
 	if len(e.queue) > 0 && e.queue[0].bound < b {
 		b = e.queue[0].bound
 	}
-	if e.stopped && e.curBound < b {
-		b = e.curBound
+	b = e.roundBound(b)
+	if !math.IsInf(e.incObj, 1) && e.incObj-b <= 1e-9*math.Max(1, math.Abs(e.incObj+e.offset)) {
+		b = e.incObj
 	}
-	return e.roundBound(b)
+	return b
 }
 
 // roundBound rounds a lower bound up to the objective granularity.
@@ -241,7 +244,23 @@ func (e *engine) canPrune(bound float64) bool {
 	if e.gran > 0 {
 		delta = math.Max(delta, e.gran-1e-6*scale)
 	}
-	return bound >= e.incObj-delta
+	if bound >= e.incObj-delta {
+		// The pruned region's bound stays part of the proven bound.
+		if bound < e.prunedMin {
+			e.prunedMin = bound
+		}
+		return true
+	}
+	return false
+}
+
+// wouldPrune is canPrune without recording the bound, for heuristics
+// that only stop a dive.
+func (e *engine) wouldPrune(bound float64) bool {
+	keep := e.prunedMin
+	ok := e.canPrune(bound)
+	e.prunedMin = keep
+	return ok
 }
 
 func (e *engine) checkStop() bool {
@@ -791,7 +810,7 @@ func (e *engine) search(root *node) (Status, error) {
 
 // globalBoundOpen is the bound over the open nodes plus the dive node.
 func (e *engine) globalBoundOpen(next *node) float64 {
-	b := e.incObj
+	b := math.Min(e.incObj, e.prunedMin)
 	if next != nil {
 		b = math.Min(b, next.bound)
 	}
