@@ -105,37 +105,80 @@ func scpOptima(tb testing.TB, dir string) map[string]float64 {
 	return out
 }
 
-// writeCPLEXLP writes p (all rows ≥ RowLo, columns boxed) in CPLEX LP
-// format for glpsol.
+// writeCPLEXLP writes p in CPLEX LP format (as read by glpsol --lp).
 func writeCPLEXLP(p *Problem) []byte {
 	var b bytes.Buffer
+	num := func(v float64) string {
+		switch {
+		case math.IsInf(v, 1):
+			return "+inf"
+		case math.IsInf(v, -1):
+			return "-inf"
+		}
+		return strconv.FormatFloat(v, 'g', -1, 64)
+	}
+	term := func(v float64, j int) string {
+		if v < 0 {
+			return fmt.Sprintf(" - %s x%d", num(-v), j)
+		}
+		return fmt.Sprintf(" + %s x%d", num(v), j)
+	}
 	b.WriteString("Minimize\n obj:")
 	for j, c := range p.Obj {
-		fmt.Fprintf(&b, " + %g x%d", c, j)
-		if j%10 == 9 {
+		b.WriteString(term(c, j))
+		if j%8 == 7 {
 			b.WriteString("\n")
 		}
 	}
 	b.WriteString("\nSubject To\n")
-	rows := make([][]int, p.NumRows)
+	type ent struct {
+		j int
+		v float64
+	}
+	rows := make([][]ent, p.NumRows)
 	for j := 0; j < p.NumCols; j++ {
 		for k := p.ColStart[j]; k < p.ColStart[j+1]; k++ {
-			rows[p.RowIndex[k]] = append(rows[p.RowIndex[k]], j)
+			rows[p.RowIndex[k]] = append(rows[p.RowIndex[k]], ent{j, p.Value[k]})
 		}
 	}
 	for i, r := range rows {
-		fmt.Fprintf(&b, " r%d:", i)
-		for k, j := range r {
-			fmt.Fprintf(&b, " + x%d", j)
-			if k%10 == 9 {
-				b.WriteString("\n")
-			}
+		lo, up := p.RowLo[i], p.RowUp[i]
+		if len(r) == 0 || (math.IsInf(lo, -1) && math.IsInf(up, 1)) {
+			continue
 		}
-		fmt.Fprintf(&b, " >= %g\n", p.RowLo[i])
+		write := func(name, rel string, rhs float64) {
+			fmt.Fprintf(&b, " %s:", name)
+			for k, e := range r {
+				b.WriteString(term(e.v, e.j))
+				if k%8 == 7 {
+					b.WriteString("\n")
+				}
+			}
+			fmt.Fprintf(&b, " %s %s\n", rel, num(rhs))
+		}
+		switch {
+		case lo == up:
+			write(fmt.Sprintf("r%d", i), "=", lo)
+		case math.IsInf(lo, -1):
+			write(fmt.Sprintf("r%d", i), "<=", up)
+		case math.IsInf(up, 1):
+			write(fmt.Sprintf("r%d", i), ">=", lo)
+		default: // ranged: two rows, GLPK's reader has no double bounds
+			write(fmt.Sprintf("r%d_lo", i), ">=", lo)
+			write(fmt.Sprintf("r%d_up", i), "<=", up)
+		}
 	}
 	b.WriteString("Bounds\n")
 	for j := 0; j < p.NumCols; j++ {
-		fmt.Fprintf(&b, " %g <= x%d <= %g\n", p.ColLo[j], j, p.ColUp[j])
+		lo, up := p.ColLo[j], p.ColUp[j]
+		switch {
+		case lo == up:
+			fmt.Fprintf(&b, " x%d = %s\n", j, num(lo))
+		case math.IsInf(lo, -1) && math.IsInf(up, 1):
+			fmt.Fprintf(&b, " x%d free\n", j)
+		default:
+			fmt.Fprintf(&b, " %s <= x%d <= %s\n", num(lo), j, num(up))
+		}
 	}
 	b.WriteString("End\n")
 	return b.Bytes()
@@ -146,9 +189,22 @@ var glpObj = regexp.MustCompile(`Objective:\s+obj = ([-+0-9.eE]+)`)
 // glpsolLP solves the LP with GLPK's glpsol (an independent solver), or
 // returns NaN when glpsol is not on PATH.
 func glpsolLP(tb testing.TB, p *Problem) float64 {
+	st, v, ok := glpsolSolve(tb, p)
+	if !ok {
+		return math.NaN()
+	}
+	if st != Optimal {
+		tb.Fatalf("glpsol: %v", st)
+	}
+	return v
+}
+
+// glpsolSolve runs glpsol --nopresol on p and returns its status and
+// optimal value; ok is false when glpsol is not on PATH.
+func glpsolSolve(tb testing.TB, p *Problem) (st Status, obj float64, ok bool) {
 	path, err := exec.LookPath("glpsol")
 	if err != nil {
-		return math.NaN()
+		return 0, 0, false
 	}
 	dir := tb.TempDir()
 	lpFile := filepath.Join(dir, "p.lp")
@@ -156,8 +212,17 @@ func glpsolLP(tb testing.TB, p *Problem) float64 {
 	if err := os.WriteFile(lpFile, writeCPLEXLP(p), 0o644); err != nil {
 		tb.Fatal(err)
 	}
-	if out, err := exec.Command(path, "--lp", lpFile, "-o", outFile).CombinedOutput(); err != nil {
-		tb.Fatalf("glpsol: %v\n%s", err, out)
+	log, err := exec.Command(path, "--nopresol", "--lp", lpFile, "-o", outFile).CombinedOutput()
+	if err != nil {
+		tb.Fatalf("glpsol: %v\n%s", err, log)
+	}
+	switch {
+	case bytes.Contains(log, []byte("HAS NO PRIMAL FEASIBLE")):
+		return Infeasible, 0, true
+	case bytes.Contains(log, []byte("HAS UNBOUNDED PRIMAL")):
+		return Unbounded, 0, true
+	case !bytes.Contains(log, []byte("OPTIMAL LP SOLUTION FOUND")):
+		tb.Fatalf("glpsol ended without a verdict:\n%s", log)
 	}
 	rep, err := os.ReadFile(outFile)
 	if err != nil {
@@ -171,7 +236,7 @@ func glpsolLP(tb testing.TB, p *Problem) float64 {
 	if err != nil {
 		tb.Fatal(err)
 	}
-	return v
+	return Optimal, v, true
 }
 
 // TestSetCoveringLP solves LP relaxations of OR-Library set-covering
