@@ -86,7 +86,9 @@ type Model struct {
 	YCol    []int // rig → column
 	DCol    []int // rig → column
 	TCol    int
-	CostRow int // row holding the cost (budget row), -1 if none
+	NCol    []int // zone → count column, -1 if none
+	SCol    []int // zone → sampled-count column, -1 if none
+	CostRow int   // row holding the cost (budget row), -1 if none
 }
 
 // Errors returned by Build.
@@ -187,29 +189,39 @@ func Build(s *Spec) (*Model, error) {
 			b.row(fmt.Sprintf("link_p%d_%s", p, s.Rigs[r].Name), math.Inf(-1), 0, cols, vals)
 		}
 	}
-	// Zone counts and sampled shares.
+	// Zone counts and sampled shares, through integer count columns
+	// n[z] = Σ x and s[z] = Σ sampled x. Branching on a count moves a whole
+	// zone's mix at once, where branching on one point's x meets a wall of
+	// symmetric alternatives; and the share's lower bound rounds up:
+	// s[z] ≥ ⌈share·n_min⌉ (a Chvátal–Gomory rounding of s ≥ share·n with
+	// n ≥ n_min; Wolsey, Integer Programming, 1998, §8.2 — from memory).
+	m.NCol = make([]int, len(s.Zones))
+	m.SCol = make([]int, len(s.Zones))
 	for z, zn := range s.Zones {
-		var cols []int
-		var share []float64
+		m.NCol[z], m.SCol[z] = -1, -1
+		var cols, sampled []int
 		for o, op := range s.Options {
 			if s.PointZone[op.Point] != z {
 				continue
 			}
 			cols = append(cols, m.XCol[o])
-			v := -zn.SampledShare
 			if op.Sampled {
-				v += 1
+				sampled = append(sampled, m.XCol[o])
 			}
-			share = append(share, v)
 		}
-		if zn.MinCount > 0 {
-			if len(cols) == 0 {
-				return nil, fmt.Errorf("%w: zone %q needs %d points but no offered rig can explore it", ErrNoOption, zn.Name, zn.MinCount)
-			}
-			b.row(fmt.Sprintf("count_z%d", z), float64(zn.MinCount), math.Inf(1), cols, ones(len(cols)))
+		if zn.MinCount > 0 && len(cols) == 0 {
+			return nil, fmt.Errorf("%w: zone %q needs %d points but no offered rig can explore it", ErrNoOption, zn.Name, zn.MinCount)
 		}
-		if zn.SampledShare > 0 && len(cols) > 0 {
-			b.row(fmt.Sprintf("sampled_z%d", z), 0, math.Inf(1), cols, share)
+		if len(cols) == 0 || (zn.MinCount == 0 && zn.SampledShare == 0) {
+			continue
+		}
+		m.NCol[z] = b.col(fmt.Sprintf("n_z%d", z), 0, float64(zn.MinCount), math.Inf(1), true)
+		b.row(fmt.Sprintf("count_z%d", z), 0, 0, append(cols, m.NCol[z]), append(ones(len(cols)), -1))
+		if zn.SampledShare > 0 {
+			lo := math.Ceil(zn.SampledShare*float64(zn.MinCount) - 1e-9)
+			m.SCol[z] = b.col(fmt.Sprintf("s_z%d", z), 0, lo, math.Inf(1), true)
+			b.row(fmt.Sprintf("sampledcount_z%d", z), 0, 0, append(sampled, m.SCol[z]), append(ones(len(sampled)), -1))
+			b.row(fmt.Sprintf("sampled_z%d", z), 0, math.Inf(1), []int{m.SCol[z], m.NCol[z]}, []float64{1, -zn.SampledShare})
 		}
 	}
 	// Field days and finish.

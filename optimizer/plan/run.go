@@ -70,7 +70,11 @@ type Prepared struct {
 	Options []optionData // one per model option
 	Spec    *model.Spec
 	Model   *model.Model
-	ZoneMin []int
+	ZoneMin []int // points each zone's count rules ask for
+	// CoverMin is, per zone, a proven lower bound on the number of points
+	// that can meet its spacing rule (the zone's covering number when the
+	// subproblem is solved to optimality). See coverNumbers.
+	CoverMin []int
 }
 
 type rigData struct {
@@ -124,7 +128,7 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		}
 		info, err := r.Describe(ctx)
 		if err != nil {
-			return nil, fmt.Errorf("rig %q: describe: %w", name, err)
+			return nil, err // the host names the rig and the call
 		}
 		pr.Rigs = append(pr.Rigs, rigData{name: name, rig: r, info: info, profiles: map[profileKey]profile{}})
 	}
@@ -182,14 +186,14 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		}
 		ans, err := rd.rig.Assess(ctx, sdk.AssessRequest{Sites: sites})
 		if err != nil {
-			return nil, fmt.Errorf("rig %q: assess: %w", rd.name, err)
+			return nil, err // the host names the rig and the call
 		}
 		if len(ans.Answers) != len(sites) {
 			return nil, fmt.Errorf("rig %q: assess: %d answers for %d sites", rd.name, len(ans.Answers), len(sites))
 		}
 		mv, err := rd.rig.Moves(ctx, sdk.MovesRequest{Legs: legs})
 		if err != nil {
-			return nil, fmt.Errorf("rig %q: moves: %w", rd.name, err)
+			return nil, err // the host names the rig and the call
 		}
 		if len(mv.Hours) != len(legs) {
 			return nil, fmt.Errorf("rig %q: moves: %d answers for %d legs", rd.name, len(mv.Hours), len(legs))
@@ -207,7 +211,7 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		}
 		rd.mob, err = rd.rig.Mobilize(ctx, sdk.MobilizeRequest{DistanceMi: sc.YardMiles})
 		if err != nil {
-			return nil, fmt.Errorf("rig %q: mobilize: %w", rd.name, err)
+			return nil, err // the host names the rig and the call
 		}
 		if rd.mobCost, err = price(in.RateBook, rd.mob.Quantities, rd.name); err != nil {
 			return nil, err
@@ -255,6 +259,10 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		}
 	}
 	pr.ZoneMin = make([]int, len(sc.Zones))
+	pr.CoverMin, err = coverNumbers(ctx, pr, spec)
+	if err != nil {
+		return nil, err
+	}
 	for z, zn := range sc.Zones {
 		n := zn.Rules.MinPoints
 		if zn.Rules.AreaPerPointFt2 > 0 {
@@ -263,7 +271,7 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 			}
 		}
 		pr.ZoneMin[z] = n
-		spec.Zones = append(spec.Zones, model.Zone{Name: zn.Name, MinCount: n, SampledShare: zn.Rules.SampledShare})
+		spec.Zones = append(spec.Zones, model.Zone{Name: zn.Name, MinCount: max(n, pr.CoverMin[z]), SampledShare: zn.Rules.SampledShare})
 	}
 	for _, rd := range pr.Rigs {
 		spec.Rigs = append(spec.Rigs, model.Rig{Name: rd.name, MobCost: rd.mobCost, MobHours: rd.mob.Hours, DayCost: rd.dayCost})

@@ -152,14 +152,18 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 	if err != nil {
 		return err
 	}
-	outs := outputs{}
 	if o.mpsOut != "" {
+		// The model is complete before the solve, so it is written even if
+		// the solve then fails: that is when a cross-check is wanted most.
 		var b bytes.Buffer
 		if err := mip.WriteMPS(&b, pr.Model.Problem); err != nil {
 			return err
 		}
-		outs.add(o.mpsOut, b.Bytes())
+		if err := writeAtomic(o.mpsOut, b.Bytes()); err != nil {
+			return err
+		}
 	}
+	outs := outputs{}
 	res, err := pr.Solve(ctx, popt)
 	if popt.Progress != nil {
 		fmt.Fprintln(stderr)
