@@ -11,8 +11,10 @@ import (
 //
 // The factorization is left-looking (Gilbert & Peierls 1988): columns of
 // B are taken in order of increasing count (so the logical unit columns
-// come first and stay trivial), each is reduced by the L columns found so
-// far, and its pivot row is chosen by threshold partial pivoting — among
+// come first and stay trivial), each is reduced by those earlier L
+// columns that its nonzeros reach (found through a min-heap of pivot
+// indices, so the work is proportional to the arithmetic rather than to
+// m²), and its pivot row is chosen by threshold partial pivoting — among
 // the entries within pivotRelTol of the largest, the one in the row of
 // least count, a Markowitz-style tie break that limits fill (Markowitz
 // 1957; Suhl & Suhl 1990 use the same threshold idea).
@@ -47,6 +49,11 @@ type luFactor struct {
 	etaStart []int
 	etaIdx   []int
 	etaVal   []float64
+
+	lNZ    []int  // pivots whose L column is not empty, in order
+	mark   []bool // row touched in the current column
+	nzList []int
+	heap   []int
 
 	work    []float64 // length m, kept zero between uses
 	work2   []float64
@@ -117,29 +124,52 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 	sort.SliceStable(f.order, func(a, b int) bool { return counts[f.order[a]] < counts[f.order[b]] })
 
 	w := f.work
+	if len(f.mark) != m {
+		f.mark = make([]bool, m)
+	}
+	mark := f.mark
+	f.lNZ = f.lNZ[:0]
 	for _, p := range f.order {
 		idx, val := col(p)
+		nz := f.nzList[:0]
+		heap := f.heap[:0]
 		for k, i := range idx {
 			w[i] = val[k]
+			mark[i] = true
+			nz = append(nz, i)
+			if j := f.rowPiv[i]; j >= 0 && f.lStart[j+1] > f.lStart[j] {
+				heap = heapPush(heap, j)
+			}
 		}
 		k := len(f.prow)
-		// Reduce by the earlier L columns, in pivot order.
-		ustart := len(f.uIdx)
-		for j := 0; j < k; j++ {
+		// Reduce by the earlier L columns in pivot order; a min-heap of
+		// the pivots whose rows are nonzero gives that order while only
+		// touching the pivots that matter (the column's reach, Gilbert &
+		// Peierls 1988). Fill only appears in rows pivoted later than the
+		// pivot being applied, so heap order stays valid.
+		for len(heap) > 0 {
+			var j int
+			j, heap = heapPop(heap)
 			v := w[f.prow[j]]
 			if v == 0 {
 				continue
 			}
-			w[f.prow[j]] = 0
-			f.uIdx = append(f.uIdx, j)
-			f.uVal = append(f.uVal, v)
 			for t := f.lStart[j]; t < f.lStart[j+1]; t++ {
-				w[f.lIdx[t]] -= v * f.lVal[t]
+				i := f.lIdx[t]
+				if !mark[i] {
+					mark[i] = true
+					nz = append(nz, i)
+					if jj := f.rowPiv[i]; jj >= 0 && f.lStart[jj+1] > f.lStart[jj] {
+						heap = heapPush(heap, jj)
+					}
+				}
+				w[i] -= v * f.lVal[t]
 			}
 		}
+		f.heap = heap
 		// Choose the pivot among unpivoted rows.
 		maxAbs := 0.0
-		for i := 0; i < m; i++ {
+		for _, i := range nz {
 			if f.rowPiv[i] < 0 {
 				if a := math.Abs(w[i]); a > maxAbs {
 					maxAbs = a
@@ -147,18 +177,18 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 			}
 		}
 		if maxAbs < singularTol {
-			// Dependent column: drop what was recorded, clear w.
-			f.uIdx = f.uIdx[:ustart]
-			f.uVal = f.uVal[:ustart]
-			for i := 0; i < m; i++ {
+			// Dependent column: clear w.
+			for _, i := range nz {
 				w[i] = 0
+				mark[i] = false
 			}
+			f.nzList = nz
 			singPos = append(singPos, p)
 			continue
 		}
 		r := -1
 		best := 0
-		for i := 0; i < m; i++ {
+		for _, i := range nz {
 			if f.rowPiv[i] >= 0 {
 				continue
 			}
@@ -166,27 +196,37 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 			if a < pivotRelTol*maxAbs {
 				continue
 			}
-			if r < 0 || f.rowCnt[i] < best || (f.rowCnt[i] == best && a > math.Abs(w[r])) {
+			if r < 0 || f.rowCnt[i] < best || (f.rowCnt[i] == best && (a > math.Abs(w[r]) || (a == math.Abs(w[r]) && i < r))) {
 				r, best = i, f.rowCnt[i]
 			}
 		}
 		piv := w[r]
+		// U column: entries in rows pivoted earlier, by pivot index.
+		for _, i := range nz {
+			if j := f.rowPiv[i]; j >= 0 && w[i] != 0 {
+				f.uIdx = append(f.uIdx, j)
+				f.uVal = append(f.uVal, w[i])
+			}
+		}
 		w[r] = 0
 		f.rowPiv[r] = k
 		f.prow = append(f.prow, r)
 		f.pcol = append(f.pcol, p)
 		f.uDiag = append(f.uDiag, piv)
 		f.uStart = append(f.uStart, len(f.uIdx))
-		for i := 0; i < m; i++ {
-			if w[i] != 0 {
-				if f.rowPiv[i] < 0 {
-					f.lIdx = append(f.lIdx, i)
-					f.lVal = append(f.lVal, w[i]/piv)
-				}
-				w[i] = 0
+		for _, i := range nz {
+			if w[i] != 0 && f.rowPiv[i] < 0 {
+				f.lIdx = append(f.lIdx, i)
+				f.lVal = append(f.lVal, w[i]/piv)
 			}
+			w[i] = 0
+			mark[i] = false
 		}
+		f.nzList = nz
 		f.lStart = append(f.lStart, len(f.lIdx))
+		if f.lStart[k+1] > f.lStart[k] {
+			f.lNZ = append(f.lNZ, k)
+		}
 	}
 	// Fill dependent positions with unit columns of unpivoted rows.
 	if len(singPos) > 0 {
@@ -218,11 +258,10 @@ func (f *luFactor) clearEtas() {
 
 func (f *luFactor) numEtas() int { return len(f.etaPos) }
 
-// needRefactor reports whether the eta file has grown enough that a fresh
-// factorization is cheaper to use than the file: after refactorEvery
-// updates, or when the etas hold more nonzeros than L and U (the eta
-// file is applied in every FTRAN and BTRAN; a rule of this kind is
-// common practice, Maros 2003 §8.2.2 discusses the trade-off).
+// needRefactor reports whether the eta file is due for a fresh
+// factorization: after refactorEvery updates (Maros 2003 §8.2.2 discusses
+// the trade-off; a rule on the eta nonzero count measured no better on
+// the OR-Library set-covering relaxations).
 func (f *luFactor) needRefactor() bool {
 	return len(f.etaPos) >= refactorEvery
 }
@@ -231,8 +270,8 @@ func (f *luFactor) needRefactor() bool {
 // basis positions.
 func (f *luFactor) ftran(a []float64) {
 	m := f.m
-	// L̃ v = a.
-	for k := 0; k < m; k++ {
+	// L̃ v = a; pivots with an empty L column change nothing.
+	for _, k := range f.lNZ {
 		v := a[f.prow[k]]
 		if v == 0 {
 			continue
@@ -316,4 +355,47 @@ func (f *luFactor) update(r int, alpha []float64) {
 		}
 	}
 	f.etaStart = append(f.etaStart, len(f.etaIdx))
+}
+
+// heapPush and heapPop keep a binary min-heap of pivot indices.
+func heapPush(h []int, v int) []int {
+	h = append(h, v)
+	i := len(h) - 1
+	for i > 0 {
+		p := (i - 1) / 2
+		if h[p] <= v {
+			break
+		}
+		h[i] = h[p]
+		i = p
+	}
+	h[i] = v
+	return h
+}
+
+func heapPop(h []int) (int, []int) {
+	top := h[0]
+	last := h[len(h)-1]
+	h = h[:len(h)-1]
+	n := len(h)
+	if n == 0 {
+		return top, h
+	}
+	i := 0
+	for {
+		c := 2*i + 1
+		if c >= n {
+			break
+		}
+		if c+1 < n && h[c+1] < h[c] {
+			c++
+		}
+		if last <= h[c] {
+			break
+		}
+		h[i] = h[c]
+		i = c
+	}
+	h[i] = last
+	return top, h
 }
