@@ -80,6 +80,9 @@ func Solve(ctx context.Context, p *Problem, opt Options) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
+	if status == Optimal {
+		e.report() // the final bound
+	}
 	res.Status = status
 	res.Nodes = e.nodes
 	res.LPIterations = e.lpIter

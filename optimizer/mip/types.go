@@ -54,9 +54,14 @@ type Options struct {
 	TimeLimit time.Duration
 	// NodeLimit bounds the number of branch-and-bound nodes; 0 means none.
 	NodeLimit int
-	// Threads: 0 or 1 runs on one goroutine. 2 evaluates the two
-	// children of strong-branching candidates in lockstep on two
-	// goroutines; the result does not depend on timing.
+	// Threads: 0 or 1 runs on one goroutine. 2 (or more) adds a second
+	// LP solver driven in lockstep with the first: it solves every node
+	// LP alongside the first solver and evaluates every other
+	// strong-branching candidate on the other core. Results are used in
+	// candidate order, so the outcome never depends on timing; it may
+	// differ from the one-thread run in node counts, not in the optimal
+	// value. It helps where strong branching dominates (larger covering
+	// instances) and can cost nodes elsewhere.
 	Threads int
 	// Progress, when not nil, is called (on the solving goroutine) as the
 	// incumbent or the bound improve.
