@@ -205,7 +205,36 @@ func (s *Solver) primalSimplex() (Status, error) {
 		// w_j = max(w_j, (α_rj/α_rq)² w_q) for the pivot row; the pivot
 		// row is not computed here, so the leaving variable's weight is
 		// set from the entering one, a common simplification.
-		// devex[p] = math.Max(devex[q]/(alpha[r]*alpha[r]), 1)
+		// Devex weights (Harris 1973; update as in Forrest & Goldfarb
+		// 1992, §3): with the pivot row α_r, w_j = max(w_j, (α_rj/α_rq)²
+		// w_q) for the other nonbasic j and w_p = max(w_q/α_rq², 1) for
+		// the leaving variable; the reference framework is reset when a
+		// weight grows past 1e6.
+		rho := s.tau
+		for i := range rho {
+			rho[i] = 0
+		}
+		rho[r] = 1
+		s.lu.btran(rho)
+		arq := alpha[r]
+		wq := devex[q]
+		reset := false
+		for _, j := range s.pivotRow(rho) {
+			if j == q {
+				continue
+			}
+			ratio := s.rowAlpha[j] / arq
+			if w := ratio * ratio * wq; w > devex[j] {
+				devex[j] = w
+				reset = reset || w > 1e6
+			}
+		}
+		devex[p] = math.Max(wq/(arq*arq), 1)
+		if reset {
+			for j := range devex {
+				devex[j] = 1
+			}
+		}
 		s.stat[q] = stBasic
 		s.head[r] = q
 		s.lu.update(r, alpha)

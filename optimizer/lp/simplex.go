@@ -95,7 +95,9 @@ func (s *Solver) run() (Status, error) {
 	for round := 0; round < 8; round++ {
 		var st Status
 		var err error
-		if s.makeDualFeasible() {
+		if s.forcePrimal && round == 0 {
+			st, err = s.primalSimplex()
+		} else if s.makeDualFeasible() {
 			if !perturbed && s.primalInfeasible() {
 				s.perturbCosts()
 				perturbed = true

@@ -59,6 +59,8 @@ type Solver struct {
 	opt        Options
 
 	iters    int
+	// forcePrimal makes the first round use the primal simplex (tests).
+	forcePrimal bool
 	rng      uint64
 	stopStat Status
 
