@@ -46,4 +46,3 @@ func BenchmarkGenerate(b *testing.B) {
 		})
 	}
 }
-
