@@ -58,11 +58,11 @@ type Solver struct {
 	needFactor bool
 	opt        Options
 
-	iters    int
+	iters int
 	// forcePrimal makes the first round use the primal simplex (tests).
 	forcePrimal bool
-	rng      uint64
-	stopStat Status
+	rng         uint64
+	stopStat    Status
 
 	// scratch
 	rho, alpha, tau, rowAlpha, flipCol []float64

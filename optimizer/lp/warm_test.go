@@ -1,9 +1,11 @@
 package lp
 
 import (
+	"context"
 	"math"
 	"math/rand/v2"
 	"testing"
+	"time"
 )
 
 func cloneProblem(p *Problem) *Problem {
@@ -238,6 +240,20 @@ func TestLimits(t *testing.T) {
 	r, _ = s.Solve()
 	if r.Status != Optimal || math.Abs(r.Obj+math.Pow(5, 8)) > 1e-6 {
 		t.Errorf("after lifting the limit: %v %g, want Optimal %g (Klee & Minty 1972)", r.Status, r.Obj, -math.Pow(5, 8))
+	}
+	past := Options{Deadline: time.Now().Add(-time.Second)}
+	if r, _ := Solve(p, past); r.Status != TimeLimit {
+		t.Errorf("deadline in the past: status %v, want TimeLimit", r.Status)
+	}
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	if r, _ := Solve(p, Options{Context: ctx}); r.Status != Canceled {
+		t.Errorf("canceled context: status %v, want Canceled", r.Status)
+	}
+	ctx2, cancel2 := context.WithDeadline(context.Background(), time.Now().Add(-time.Second))
+	defer cancel2()
+	if r, _ := Solve(p, Options{Context: ctx2}); r.Status != TimeLimit {
+		t.Errorf("expired context: status %v, want TimeLimit", r.Status)
 	}
 	for st, want := range map[Status]string{Optimal: "Optimal", Infeasible: "Infeasible", TimeLimit: "TimeLimit"} {
 		if st.String() != want {
