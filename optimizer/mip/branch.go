@@ -65,7 +65,7 @@ func (e *engine) branch(nd *node, r *lp.Result, z float64) (j int, downBound, up
 	var cands []candidate
 	avg := [2]float64{e.pseudocost(-1, 0), e.pseudocost(-1, 1)}
 	for k := 0; k < e.n; k++ {
-		if !e.p.Integer[k] || !isFrac(r.X[k]) {
+		if !e.p.Integer[k] || !isFrac(r.X[k]) || r.X[k] < e.clo[k] || r.X[k] > e.cup[k] {
 			continue
 		}
 		f := r.X[k] - math.Floor(r.X[k])

@@ -178,6 +178,7 @@ type engine struct {
 	offset float64 // added to reduced objective values to get original ones
 	n, m   int
 	cover  *coverData
+	lr     *lagrangeResult // root Lagrangian multipliers (covering)
 
 	s              *lp.Solver
 	s2             *lp.Solver // second solver for parallel strong branching
@@ -446,6 +447,7 @@ func (e *engine) coverRoot() {
 		e.curBound = lr.bound
 		e.report()
 	}
+	e.lr = lr
 	e.lagrangeFix(lr)
 }
 
@@ -470,7 +472,7 @@ func (e *engine) lagrangeFix(lr *lagrangeResult) {
 		}
 	}
 	for j := 0; j < e.n; j++ {
-		if e.clo[j] != e.glo[j] || e.cup[j] != e.gup[j] {
+		if !e.isTouched[j] && (e.clo[j] != e.glo[j] || e.cup[j] != e.gup[j]) {
 			e.setBounds(j, e.glo[j], e.gup[j])
 			e.clo[j], e.cup[j] = e.glo[j], e.gup[j]
 		}
@@ -731,17 +733,22 @@ func (e *engine) search(root *node) (Status, error) {
 			continue
 		}
 		// Heuristics.
+		improved := false
 		if isRoot || e.nodes-e.lastDiveNode >= 50 {
 			e.lastDiveNode = e.nodes
-			if e.heuristics(nd, r, isRoot) {
-				e.rootReducedCostFix()
-				if e.canPrune(z) {
-					continue
-				}
-			}
+			improved = e.heuristics(nd, r, isRoot)
 		}
-		if isRoot {
-			e.rootReducedCostFix()
+		if improved || isRoot {
+			e.fixByIncumbent()
+			if e.canPrune(z) {
+				continue
+			}
+			if e.outsideBounds(r.X) {
+				// Global fixing cut off this node's LP point: solve the
+				// node again under the tightened bounds.
+				next = &node{bound: z, depth: nd.depth, brVar: -1, changes: nd.changes}
+				continue
+			}
 		}
 		// Local reduced-cost fixing for the subtree.
 		local := e.localFix(r, z)
@@ -754,6 +761,9 @@ func (e *engine) search(root *node) (Status, error) {
 			continue
 		}
 		if j < 0 {
+			if len(fixes) == 0 {
+				return 0, fmt.Errorf("mip: internal error: fractional LP solution with no branching candidate at node %d", e.nodes)
+			}
 			// Strong branching fixed variables and the node should be
 			// re-solved: push it back with the tightened bounds.
 			child := &node{bound: z, depth: nd.depth, brVar: -1, changes: appendChanges(nd.changes, append(local, fixes...))}
@@ -835,6 +845,27 @@ func appendChanges(base, more []boundChange) []boundChange {
 func (p *Problem) hasContinuous() bool {
 	for _, v := range p.Integer {
 		if !v {
+			return true
+		}
+	}
+	return false
+}
+
+// fixByIncumbent applies the global fixings that depend on the
+// incumbent: reduced costs of the root LP and, for covering, Lagrangian
+// reduced costs.
+func (e *engine) fixByIncumbent() {
+	e.rootReducedCostFix()
+	if e.lr != nil {
+		e.lagrangeFix(e.lr)
+	}
+}
+
+// outsideBounds reports whether x violates the bounds now set in the
+// solver.
+func (e *engine) outsideBounds(x []float64) bool {
+	for j := 0; j < e.n; j++ {
+		if x[j] < e.clo[j]-intTol || x[j] > e.cup[j]+intTol {
 			return true
 		}
 	}
