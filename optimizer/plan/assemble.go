@@ -6,6 +6,7 @@ import (
 	"math"
 	"sort"
 
+	"github.com/rigmix/rigmix/optimizer/candidates"
 	"github.com/rigmix/rigmix/optimizer/geom"
 	"github.com/rigmix/rigmix/optimizer/mip"
 	"github.com/rigmix/rigmix/plugins/sdk"
@@ -182,7 +183,8 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		p.Warnings = append(p.Warnings, fmt.Sprintf("%.0f ft² of ground under spacing rules lies beyond reach of any allowed point (inside or behind no-go areas)", a))
 	}
 
-	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth)
+	p.Excluded = pr.excluded()
+	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth, pr.farthestCell(chosenPoint))
 	pb := pr.Model.Problem
 	p.Solver = SolverInfo{
 		Status: res.Status.String(), Objective: round(res.Obj, 4), Bound: round(res.Bound, 4), Gap: round(res.Gap, 6),
@@ -192,7 +194,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 	return p, nil
 }
 
-func (pr *Prepared) ruleChecks(count, sampled []int, minDepth []float64) []RuleCheck {
+func (pr *Prepared) ruleChecks(count, sampled []int, minDepth, farthest []float64) []RuleCheck {
 	sc := pr.In.Scenario
 	var out []RuleCheck
 	for z, zn := range sc.Zones {
@@ -202,9 +204,11 @@ func (pr *Prepared) ruleChecks(count, sampled []int, minDepth []float64) []RuleC
 			if lat == "" {
 				lat = "triangular"
 			}
+			radius := geom.CoveringRadius(string(lat), r.MaxSpacingFt)
 			out = append(out, RuleCheck{Zone: zn.ID, Rule: "max spacing",
-				Required: fmt.Sprintf("every spot within %.0f ft of a point (%s spacing %.0f ft)", geom.CoveringRadius(string(lat), r.MaxSpacingFt), lat, r.MaxSpacingFt),
-				Achieved: "every coverage cell within reach covered", Met: true, Source: r.Source})
+				Required: fmt.Sprintf("every cell centre within %.1f ft of a point (%s spacing %.0f ft)", radius, lat, r.MaxSpacingFt),
+				Achieved: fmt.Sprintf("farthest cell centre %.1f ft from a point", farthest[z]),
+				Met:      farthest[z] <= radius+1e-6, Source: r.Source})
 		}
 		if n := pr.ZoneMin[z]; n > 0 {
 			out = append(out, RuleCheck{Zone: zn.ID, Rule: "minimum points",
@@ -259,5 +263,72 @@ func sortedKeys(m map[string]int) []string {
 		out = append(out, k)
 	}
 	sort.Strings(out)
+	return out
+}
+
+// farthestCell is, per zone, the largest distance from the centre of a
+// coverage cell that some allowed point can reach to the nearest chosen
+// point of the zone: the largest gap the plan leaves, to compare with the
+// covering radius. Ground no allowed point can reach (behind no-go areas) is
+// reported among the warnings instead.
+func (pr *Prepared) farthestCell(chosen []bool) []float64 {
+	lay := pr.Layout
+	nz := len(pr.In.Scenario.Zones)
+	pts := make([][]geom.Point, nz)
+	for q, c := range lay.Candidates {
+		if chosen[q] {
+			pts[c.Zone] = append(pts[c.Zone], c.P)
+		}
+	}
+	grids := make([]*geom.Grid, nz)
+	for z := range pts {
+		if len(pts[z]) > 0 && lay.RadiusFt[z] > 0 {
+			grids[z] = geom.NewGrid(pts[z], lay.RadiusFt[z])
+		}
+	}
+	out := make([]float64, nz)
+	var buf []int
+	visit := func(c candidatesCell) {
+		z := c.Zone
+		if lay.RadiusFt[z] == 0 {
+			return
+		}
+		best := math.Inf(1)
+		if grids[z] != nil {
+			buf = grids[z].WithinSorted(c.P, lay.RadiusFt[z], buf[:0])
+			for _, i := range buf {
+				best = math.Min(best, math.Hypot(pts[z][i].X-c.P.X, pts[z][i].Y-c.P.Y))
+			}
+		}
+		if math.IsInf(best, 1) { // beyond the radius: search every point
+			for _, q := range pts[z] {
+				best = math.Min(best, math.Hypot(q.X-c.P.X, q.Y-c.P.Y))
+			}
+		}
+		if best > out[z] {
+			out[z] = best
+		}
+	}
+	for _, c := range lay.Cells {
+		visit(c)
+	}
+	return out
+}
+
+type candidatesCell = candidates.Cell
+
+// excluded lists, zone by zone, the method and rig pairs the zone allows but
+// the rig cannot do there, with the rig's reason.
+func (pr *Prepared) excluded() []Excluded {
+	out := []Excluded{}
+	for z, zn := range pr.In.Scenario.Zones {
+		for _, rd := range pr.Rigs {
+			for _, m := range zoneMethods(zn, rd.info) {
+				if p, ok := rd.profiles[profileKey{z, m}]; ok && !p.answer.Feasible {
+					out = append(out, Excluded{Zone: zn.ID, Method: string(m), Rig: rd.name, Reason: p.answer.Reason})
+				}
+			}
+		}
+	}
 	return out
 }

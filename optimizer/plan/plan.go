@@ -20,6 +20,7 @@ type Plan struct {
 	Rules    []RuleCheck `json:"rules"`
 	Coverage Coverage    `json:"coverage"`
 	Solver   SolverInfo  `json:"solver"`
+	Excluded []Excluded  `json:"excluded_options"`
 	Warnings []string    `json:"warnings"`
 	Cautions []string    `json:"cautions"`
 }
@@ -79,6 +80,14 @@ type RigPlan struct {
 	Hours     float64        `json:"hours"`
 	MobHours  float64        `json:"mobilization_hours"`
 	FieldDays int            `json:"field_days"`
+}
+
+// Excluded is a way of exploring a zone that a rig ruled out, and why.
+type Excluded struct {
+	Zone   string `json:"zone"`
+	Method string `json:"method"`
+	Rig    string `json:"rig"`
+	Reason string `json:"reason"`
 }
 
 // RuleCheck tells whether one rule of one zone is met.

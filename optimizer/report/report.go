@@ -137,11 +137,34 @@ func Text(w io.Writer, p *plan.Plan) error {
 
 	b.WriteString("\nRules\n")
 	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
-	fmt.Fprintf(tw, "zone\trule\trequired\tachieved\tmet\tsource\n")
+	fmt.Fprintf(tw, "zone\trule\trequired\tachieved\tmet\n")
+	var zones []string
+	source := map[string]string{}
 	for _, r := range p.Rules {
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\n", r.Zone, r.Rule, r.Required, r.Achieved, yesNo(r.Met), r.Source)
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\n", r.Zone, r.Rule, r.Required, r.Achieved, yesNo(r.Met))
+		if _, ok := source[r.Zone]; !ok {
+			zones = append(zones, r.Zone)
+			source[r.Zone] = r.Source
+		}
 	}
 	tw.Flush()
+	b.WriteString("\nWhere the rules come from\n")
+	for _, z := range zones {
+		src := source[z]
+		if src == "" {
+			src = "(the scenario gives no source)"
+		}
+		fmt.Fprintf(&b, "  %s: %s\n", z, src)
+	}
+
+	if len(p.Excluded) > 0 {
+		b.WriteString("\nOptions the rigs ruled out\n")
+		tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
+		for _, e := range p.Excluded {
+			fmt.Fprintf(tw, "  %s\t%s by %s:\t%s\n", e.Zone, e.Method, e.Rig, e.Reason)
+		}
+		tw.Flush()
+	}
 
 	s := p.Solver
 	fmt.Fprintf(&b, "\nSolver: %s, objective %s, bound %s, gap %.4f%%, %d nodes; model %d rows × %d columns from %d candidates\n",

@@ -65,7 +65,7 @@ const (
 
 func limits(s sdk.Site) []string {
 	if s.RockFt > 0 && s.DepthFt > s.RockFt {
-		return []string{fmt.Sprintf("rock at %g ft: the cone meets refusal there and cannot be pushed to %g ft", s.RockFt, s.DepthFt)}
+		return []string{fmt.Sprintf("rock at %.4g ft: the cone meets refusal there and cannot be pushed to %.4g ft", s.RockFt, s.DepthFt)}
 	}
 	return nil
 }

@@ -72,10 +72,10 @@ const (
 func limits(s sdk.Site) []string {
 	var out []string
 	if s.GroundwaterFt > 0 && s.DepthFt > s.GroundwaterFt {
-		out = append(out, fmt.Sprintf("groundwater at %g ft: a test pit stops at groundwater (walls slough, base heaves), so %g ft cannot be reached", s.GroundwaterFt, s.DepthFt))
+		out = append(out, fmt.Sprintf("groundwater at %.4g ft: a test pit stops at groundwater (walls slough, base heaves), so %.4g ft cannot be reached", s.GroundwaterFt, s.DepthFt))
 	}
 	if s.RockFt > 0 && s.DepthFt > s.RockFt {
-		out = append(out, fmt.Sprintf("rock at %g ft: the excavator cannot dig rock to %g ft", s.RockFt, s.DepthFt))
+		out = append(out, fmt.Sprintf("rock at %.4g ft: the excavator cannot dig rock to %.4g ft", s.RockFt, s.DepthFt))
 	}
 	return out
 }
@@ -94,7 +94,7 @@ func point(s sdk.Site) (sdk.Hours, []sdk.Quantity) {
 		h.Advance += protectionHr
 	}
 	qs := []sdk.Quantity{fieldwork.Qty("pit-excavation", fieldwork.UnitHr, h.Total(),
-		fmt.Sprintf("dig, log, sample (%d bag samples) and backfill a %g-ft test pit", len(samples), s.DepthFt))}
+		fmt.Sprintf("dig, log, sample (%d bag samples) and backfill a %.4g-ft test pit", len(samples), s.DepthFt))}
 	if protect {
 		qs = append(qs, fieldwork.Qty("pit-protection", fieldwork.UnitEach, 1,
 			"sloping, benching or shoring for a pit 5 ft or deeper (OSHA 29 CFR 1926.652(a)(1))"))

@@ -102,12 +102,12 @@ func Point(r Rates) fieldwork.Point {
 			h.Advance += ft / r.AugerFtPerHr[i]
 			b := fieldwork.DrillBands[i]
 			qs = append(qs, fieldwork.Qty(b.Item, fieldwork.UnitFt, ft,
-				fmt.Sprintf("hollow-stem auger, %g–%g ft band", b.TopFt, b.BottomFt)))
+				fmt.Sprintf("hollow-stem auger, %.4g–%.4g ft band", b.TopFt, b.BottomFt)))
 		}
 		if rockFt > 0 {
 			h.Advance += r.CoreSetupHr + rockFt/r.CoreFtPerHr
 			qs = append(qs, fieldwork.Qty(fieldwork.ItemRockCore, fieldwork.UnitFt, rockFt,
-				fmt.Sprintf("NQ wireline core from rock at %g ft (ASTM D2113)", s.RockFt)))
+				fmt.Sprintf("NQ wireline core from rock at %.4g ft (ASTM D2113)", s.RockFt)))
 		}
 		samples := fieldwork.SampleDepths(soilFt, s.SampleIntervalFt)
 		for _, d := range samples {

@@ -36,7 +36,7 @@ func Reasons(info sdk.RigInfo, s sdk.Site) []string {
 	case math.IsNaN(s.DepthFt) || math.IsInf(s.DepthFt, 0) || s.DepthFt <= 0:
 		out = append(out, fmt.Sprintf("depth %v ft: a depth must be a positive number of feet", s.DepthFt))
 	case ok && s.DepthFt > lim.MaxDepthFt:
-		out = append(out, fmt.Sprintf("depth %g ft is beyond the %g ft %s reaches by %s", s.DepthFt, lim.MaxDepthFt, info.Name, s.Method))
+		out = append(out, fmt.Sprintf("depth %.4g ft is beyond the %.4g ft %s reaches by %s", s.DepthFt, lim.MaxDepthFt, info.Name, s.Method))
 	}
 	surf := surfaceOf(s.Surface)
 	switch surf {
@@ -52,10 +52,10 @@ func Reasons(info sdk.RigInfo, s sdk.Site) []string {
 	case math.IsNaN(slope) || math.IsInf(slope, 0):
 		out = append(out, fmt.Sprintf("slope %v %%: want a number", s.SlopePct))
 	case slope > info.Access.MaxSlopePct:
-		out = append(out, fmt.Sprintf("slope %g %% is steeper than the %g %% %s can set up on", slope, info.Access.MaxSlopePct, info.Name))
+		out = append(out, fmt.Sprintf("slope %.4g %% is steeper than the %.4g %% %s can set up on", slope, info.Access.MaxSlopePct, info.Name))
 	}
 	if s.OverheadFt > 0 && s.OverheadFt < info.Access.MinOverheadFt {
-		out = append(out, fmt.Sprintf("overhead clearance %g ft is less than the %g ft %s needs for its mast or boom", s.OverheadFt, info.Access.MinOverheadFt, info.Name))
+		out = append(out, fmt.Sprintf("overhead clearance %.4g ft is less than the %.4g ft %s needs for its mast or boom", s.OverheadFt, info.Access.MinOverheadFt, info.Name))
 	}
 	return out
 }
