@@ -76,9 +76,10 @@ const (
 	// small entry would let a basic variable run far past its bound.
 	zeroTol = 1e-12
 	// refactorEvery is the number of basis updates after which the basis
-	// is refactorized from scratch (product-form eta file length). Maros
-	// (2003, §8.2) puts common practice between 30 and 100; 50 measured
-	// faster than 100 on the OR-Library set-covering relaxations.
+	// is refactorized from scratch (product-form eta file length); a
+	// value of the order of 100 is common practice (Maros 2003, ch. 8;
+	// from memory), and 50 measured faster than 100 on the OR-Library
+	// set-covering relaxations.
 	refactorEvery = 50
 )
 
