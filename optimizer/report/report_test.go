@@ -1,0 +1,102 @@
+package report
+
+import (
+	"bytes"
+	"flag"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"github.com/rigmix/rigmix/optimizer/plan"
+)
+
+var update = flag.Bool("update", false, "rewrite the golden files")
+
+func f(v float64) *float64 { return &v }
+
+// samplePlan is a small fixed plan (invented numbers, for layout only).
+func samplePlan() *plan.Plan {
+	return &plan.Plan{
+		Schema:   plan.SchemaVersion,
+		Scenario: plan.ScenarioInfo{Name: "sample", Title: "Sample lot", Source: "demo:sample", Demo: true},
+		RateBook: plan.RateBookInfo{Name: "book", Title: "Book", Currency: "USD", Effective: "2026-01-01", Region: "Nowhere", Demo: true},
+		Points: []plan.Point{
+			{ID: "P001", Zone: "Z1", XFt: 10, YFt: 20, Lon: f(-100.0001), Lat: f(40.0002), Method: "boring", Rig: "tire-drill", DepthFt: 30, SampleIntervalFt: 5, Hours: 4.5, Cost: 1234.5},
+			{ID: "P002", Zone: "Z1", XFt: 60.5, YFt: 20, Lon: f(-100.0003), Lat: f(40.0002), Method: "cpt", Rig: "cpt-rig", DepthFt: 30, Hours: 1.25, Cost: 600},
+		},
+		Estimate: []plan.Line{
+			{Item: "drill-0-50", Description: "Soil drilling", Quantity: 30, Unit: "ft", UnitPrice: 20, Extension: 600},
+			{Item: "mob-tire-rig", Description: "Mobilization", Quantity: 1, Unit: "each", UnitPrice: 1234567.5, Extension: 1234567.5},
+		},
+		Total:    1235167.5,
+		Rigs:     []plan.RigPlan{{Name: "tire-drill", Title: "Tire rig", Mobilized: true, Points: 1, ByMethod: map[string]int{"boring": 1}, Hours: 4.5, MobHours: 2, FieldDays: 1}},
+		Finish:   1,
+		Rules:    []plan.RuleCheck{{Zone: "Z1", Rule: "minimum points", Required: "≥ 2", Achieved: "2", Met: true, Source: "common practice"}},
+		Coverage: plan.Coverage{AreaFt2: 1000, CoveredFt2: 1000, CoveredPercent: 100},
+		Solver:   plan.SolverInfo{Status: "optimal", Objective: 1235167.51, Bound: 1235167.51},
+		Excluded: []plan.Excluded{{Zone: "Z1", Method: "test_pit", Rig: "excavator", Reason: "groundwater at 3 ft"}},
+		Warnings: []string{"a warning"},
+		Cautions: plan.Cautions,
+	}
+}
+
+func TestGolden(t *testing.T) {
+	for _, c := range []struct {
+		file   string
+		render func(*bytes.Buffer, *plan.Plan) error
+	}{
+		{"plan.txt", func(b *bytes.Buffer, p *plan.Plan) error { return Text(b, p) }},
+		{"plan.json", func(b *bytes.Buffer, p *plan.Plan) error { return JSON(b, p) }},
+		{"points.csv", func(b *bytes.Buffer, p *plan.Plan) error { return PointsCSV(b, p) }},
+		{"points.geojson", func(b *bytes.Buffer, p *plan.Plan) error { return GeoJSON(b, p) }},
+	} {
+		t.Run(c.file, func(t *testing.T) {
+			var b bytes.Buffer
+			if err := c.render(&b, samplePlan()); err != nil {
+				t.Fatal(err)
+			}
+			path := filepath.Join("testdata", c.file+".golden")
+			if *update {
+				if err := os.WriteFile(path, b.Bytes(), 0o644); err != nil {
+					t.Fatal(err)
+				}
+			}
+			want, err := os.ReadFile(path)
+			if err != nil {
+				t.Fatalf("%v (run go test -update to create it)", err)
+			}
+			if !bytes.Equal(b.Bytes(), want) {
+				t.Fatalf("%s differs from the golden file; run go test ./optimizer/report -update if intended\n%s", c.file, b.String())
+			}
+		})
+	}
+}
+
+func TestGeoJSONNeedsOrigin(t *testing.T) {
+	p := samplePlan()
+	p.Points[1].Lon, p.Points[1].Lat = nil, nil
+	var b bytes.Buffer
+	err := GeoJSON(&b, p)
+	if err == nil || !strings.Contains(err.Error(), "origin") {
+		t.Fatalf("want an error asking for an origin, got %v", err)
+	}
+}
+
+func TestMoney(t *testing.T) {
+	for _, c := range []struct {
+		v    float64
+		cur  string
+		want string
+	}{
+		{0, "", "0.00"},
+		{999.995, "", "1,000.00"},
+		{1234567.5, "USD", "USD 1,234,567.50"},
+		{-1500, "", "-1,500.00"},
+		{12.3, "", "12.30"},
+	} {
+		if got := money(c.v, c.cur); got != c.want {
+			t.Errorf("money(%v, %q) = %q, want %q", c.v, c.cur, got, c.want)
+		}
+	}
+}
