@@ -105,6 +105,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 			XFt: round(c.P.X, 1), YFt: round(c.P.Y, 1),
 			Method: string(od.method), Rig: pr.Rigs[od.rig].name,
 			DepthFt: od.depth, Hours: round(pr.Spec.Options[o].Hours, 2),
+			OnPointHours: round(od.prof.answer.Hours.Total(), 2), Surface: string(zn.Ground.Surface),
 			Cost: round(od.prof.cost, 2), Required: c.Required,
 		}
 		if od.method == sdk.Boring {

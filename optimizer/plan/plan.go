@@ -55,7 +55,9 @@ type Point struct {
 	Rig              string   `json:"rig"`
 	DepthFt          float64  `json:"depth_ft"`
 	SampleIntervalFt float64  `json:"sample_interval_ft,omitempty"`
-	Hours            float64  `json:"hours"`
+	Hours            float64  `json:"hours"`          // on the point plus the move to it
+	OnPointHours     float64  `json:"hours_on_point"` // set-up to tear-down, no travel
+	Surface          string   `json:"surface"`        // ground surface of its zone
 	Cost             float64  `json:"cost"`
 	Required         bool     `json:"required,omitempty"`
 }

@@ -95,6 +95,7 @@ func newRoot(stdout, stderr io.Writer) *cobra.Command {
 	root.AddCommand(newRigsCmd(g, stdout))
 	root.AddCommand(newDemosCmd(stdout))
 	root.AddCommand(newSolveCmd(g, stdout, stderr))
+	root.AddCommand(newScheduleCmd(g, stdout, stderr))
 	root.AddCommand(newRigServeCmd())
 	return root
 }
