@@ -277,3 +277,33 @@ func TestDeterministic(t *testing.T) {
 		}
 	}
 }
+
+// TestDegenerateShapes: problems without rows or without columns, and
+// empty columns, which presolve in package mip can produce. The answers
+// are evident from the data (each column on its own: minimize c_j x_j
+// over [l_j, u_j]; a row without columns is feasible iff 0 lies in its
+// bounds).
+func TestDegenerateShapes(t *testing.T) {
+	cases := []struct {
+		name   string
+		p      *Problem
+		status Status
+		obj    float64
+	}{
+		{"no rows", &Problem{NumCols: 3, Obj: []float64{1, -2, 0}, ColLo: []float64{-1, 0, -inf}, ColUp: []float64{4, 3, inf}, ColStart: []int{0, 0, 0, 0}}, Optimal, -1 - 6},
+		{"no rows unbounded", &Problem{NumCols: 1, Obj: []float64{-1}, ColLo: []float64{0}, ColUp: []float64{inf}, ColStart: []int{0, 0}}, Unbounded, 0},
+		{"no columns feasible", &Problem{NumRows: 2, RowLo: []float64{-1, -inf}, RowUp: []float64{1, 0}, ColStart: []int{0}}, Optimal, 0},
+		{"no columns infeasible", &Problem{NumRows: 1, RowLo: []float64{1}, RowUp: []float64{inf}, ColStart: []int{0}}, Infeasible, 0},
+		{"empty", &Problem{ColStart: []int{0}}, Optimal, 0},
+	}
+	for _, tc := range cases {
+		r, err := Solve(tc.p, Options{})
+		if err != nil {
+			t.Errorf("%s: %v", tc.name, err)
+			continue
+		}
+		if r.Status != tc.status || (tc.status == Optimal && math.Abs(r.Obj-tc.obj) > 1e-12) {
+			t.Errorf("%s: %v %g, want %v %g", tc.name, r.Status, r.Obj, tc.status, tc.obj)
+		}
+	}
+}
