@@ -32,6 +32,15 @@ var standardItems = []Item{
 	{Code: "standby-cpt", Unit: "hr", Description: "CPT rig and crew standby"},
 	{Code: "standby-excavator", Unit: "hr", Description: "Excavator standby"},
 	{Code: "idw-drum", Unit: "each", Description: "55-gallon drum for investigation-derived waste on environmental sites"},
+	// Laboratory tests on recovered samples, priced per test; package
+	// optimizer/lab turns sample counts into these quantities.
+	{Code: "lab-moisture", Unit: "each", Description: "Laboratory moisture content (ASTM D2216)"},
+	{Code: "lab-sieve", Unit: "each", Description: "Laboratory particle-size distribution by sieve (ASTM D6913)"},
+	{Code: "lab-hydrometer", Unit: "each", Description: "Laboratory hydrometer analysis of fines (ASTM D7928)"},
+	{Code: "lab-atterberg", Unit: "each", Description: "Laboratory Atterberg limits — liquid limit, plastic limit, plasticity index (ASTM D4318)"},
+	{Code: "lab-consolidation", Unit: "each", Description: "Laboratory one-dimensional consolidation, incremental loading (ASTM D2435)"},
+	{Code: "lab-ucs", Unit: "each", Description: "Laboratory unconfined compressive strength of cohesive soil (ASTM D2166)"},
+	{Code: "lab-uu", Unit: "each", Description: "Laboratory unconsolidated-undrained triaxial compression (ASTM D2850)"},
 }
 
 // StandardItems returns the standard item codes with their units and

@@ -1,0 +1,429 @@
+// Package lab turns the samples an exploration program recovers into the
+// laboratory tests a bid carries: a program of tests per sample kind and
+// soil group, each test named by its ASTM standard and priced from the rate
+// book under its own item code. It takes plain data in and gives rate-book
+// quantities out; it reads no files and no flags.
+//
+// A Program says, for each kind of sample (split-barrel SPT samples, ASTM
+// D1586; thin-walled tube samples, ASTM D1587; bag samples from test pits),
+// which tests are run and on what share of the samples. A test marked for
+// fine-grained soil (silts and clays: hydrometer, Atterberg limits,
+// consolidation, strength) applies only to the share of samples expected to
+// be fine-grained, Program.FineShare; tube samples are taken in
+// fine-grained soil (ASTM D1587 is a sampler for cohesive soil), so every
+// tube sample counts as fine.
+//
+// Quantities sums, for each test, count × soil share × test share over the
+// sample kinds and rounds the total up to whole tests:
+//
+//	n(test) = ⌈ Σ_kind  count(kind) · soil(kind, test) · share(kind, test) ⌉
+//
+// The default program (Default) is common practice, not a published rule:
+// moisture content on every sample, grain size by sieve on one in three,
+// the hydrometer on one in three fine-grained samples, Atterberg limits on
+// one in four fine-grained samples; on tube samples also one-dimensional
+// consolidation on one in ten, unconfined compression on one in four and
+// UU triaxial on one in ten.
+package lab
+
+import (
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+
+	"github.com/rigmix/rigmix/plugins/sdk"
+)
+
+// Kind is a kind of soil sample.
+type Kind string
+
+const (
+	// SplitBarrel is a split-barrel sample from the Standard Penetration
+	// Test (ASTM D1586): disturbed, good for index tests.
+	SplitBarrel Kind = "split-barrel"
+	// Tube is a thin-walled tube sample (ASTM D1587): undisturbed enough for
+	// consolidation and strength tests.
+	Tube Kind = "tube"
+	// Bag is a bulk sample bagged from a test pit: disturbed, good for
+	// index tests.
+	Bag Kind = "bag"
+)
+
+// Kinds lists the sample kinds in the order quantities are summed.
+func Kinds() []Kind { return []Kind{SplitBarrel, Tube, Bag} }
+
+// Soil is the soil group a test applies to.
+type Soil string
+
+const (
+	AnySoil Soil = "any"  // every sample of the kind
+	Fine    Soil = "fine" // fine-grained samples only (silts and clays)
+)
+
+// Rate-book item codes of the laboratory tests, all priced per test
+// ("each").
+const (
+	ItemMoisture      = "lab-moisture"
+	ItemSieve         = "lab-sieve"
+	ItemHydrometer    = "lab-hydrometer"
+	ItemAtterberg     = "lab-atterberg"
+	ItemConsolidation = "lab-consolidation"
+	ItemUCS           = "lab-ucs"
+	ItemUU            = "lab-uu"
+
+	// Unit is the unit of every lab item.
+	Unit = "each"
+)
+
+// Test is one laboratory test in a program.
+type Test struct {
+	Key      string  // short name in scenario files: moisture, sieve, ...
+	Item     string  // rate-book item code, e.g. "lab-moisture"
+	Name     string  // words for the estimate line
+	Standard string  // the ASTM standard the test follows
+	Soil     Soil    // the soil group it applies to
+	Share    float64 // share of the samples of its kind and soil group tested, 0..1
+}
+
+// catalog lists every test the package knows, in the order quantities are
+// reported, with the standard each follows.
+var catalog = []Test{
+	{Key: "moisture", Item: ItemMoisture, Name: "Moisture content", Standard: "ASTM D2216", Soil: AnySoil},
+	{Key: "sieve", Item: ItemSieve, Name: "Particle-size distribution by sieve", Standard: "ASTM D6913", Soil: AnySoil},
+	{Key: "hydrometer", Item: ItemHydrometer, Name: "Particle-size distribution of fines by hydrometer", Standard: "ASTM D7928", Soil: Fine},
+	{Key: "atterberg", Item: ItemAtterberg, Name: "Liquid limit, plastic limit and plasticity index (Atterberg limits)", Standard: "ASTM D4318", Soil: Fine},
+	{Key: "consolidation", Item: ItemConsolidation, Name: "One-dimensional consolidation (incremental loading)", Standard: "ASTM D2435", Soil: Fine},
+	{Key: "ucs", Item: ItemUCS, Name: "Unconfined compressive strength of cohesive soil", Standard: "ASTM D2166", Soil: Fine},
+	{Key: "uu", Item: ItemUU, Name: "Unconsolidated-undrained triaxial compression", Standard: "ASTM D2850", Soil: Fine},
+}
+
+// Catalog returns every known test with a zero Share, in report order.
+func Catalog() []Test { return append([]Test(nil), catalog...) }
+
+// Keys returns the tests' short names in report order.
+func Keys() []string {
+	out := make([]string, len(catalog))
+	for i, t := range catalog {
+		out[i] = t.Key
+	}
+	return out
+}
+
+// ByKey returns the catalogue entry of a short name, with share s.
+func ByKey(key string, s float64) (Test, bool) {
+	for _, t := range catalog {
+		if t.Key == key {
+			t.Share = s
+			return t, true
+		}
+	}
+	return Test{}, false
+}
+
+// Program is a configurable program of lab tests.
+type Program struct {
+	Name   string // "default", "none" or "custom"
+	Source string // what the shares rest on
+	// FineShare is the share of split-barrel and bag samples expected to
+	// be fine-grained, 0..1; tests for fine soil apply to that share.
+	FineShare float64
+	// PerSample lists the tests run on each kind of sample.
+	PerSample map[Kind][]Test
+}
+
+// SourceCommonPractice is the basis of the default program's shares.
+const SourceCommonPractice = "common practice: moisture content on every sample, sieve on 1 in 3, " +
+	"hydrometer on 1 in 3 fine-grained, Atterberg limits on 1 in 4 fine-grained; on tube samples " +
+	"also consolidation on 1 in 10, unconfined compression on 1 in 4, UU triaxial on 1 in 10"
+
+// Default returns the default program (common practice, see the package
+// comment). FineShare is 1: with nothing known of the ground, every
+// disturbed sample is priced as if it might be fine-grained, the larger
+// program and the safe side for a bid.
+func Default() *Program {
+	index := func() []Test {
+		return []Test{
+			must("moisture", 1),
+			must("sieve", 1.0/3),
+			must("hydrometer", 1.0/3),
+			must("atterberg", 1.0/4),
+		}
+	}
+	return &Program{
+		Name:      "default",
+		Source:    SourceCommonPractice,
+		FineShare: 1,
+		PerSample: map[Kind][]Test{
+			SplitBarrel: index(),
+			Bag:         index(),
+			Tube: append(index(),
+				must("consolidation", 1.0/10),
+				must("ucs", 1.0/4),
+				must("uu", 1.0/10)),
+		},
+	}
+}
+
+// None returns a program with no tests, for a bid that leaves the lab out.
+func None() *Program {
+	return &Program{Name: "none", Source: "no laboratory testing", FineShare: 1, PerSample: map[Kind][]Test{}}
+}
+
+func must(key string, s float64) Test {
+	t, ok := ByKey(key, s)
+	if !ok {
+		panic("lab: unknown test " + key)
+	}
+	return t
+}
+
+// Clone returns a deep copy, so a caller can change a program it got from
+// Default without touching anyone else's.
+func (p *Program) Clone() *Program {
+	if p == nil {
+		return nil
+	}
+	c := *p
+	c.PerSample = make(map[Kind][]Test, len(p.PerSample))
+	for k, ts := range p.PerSample {
+		c.PerSample[k] = append([]Test(nil), ts...)
+	}
+	return &c
+}
+
+// Set sets the share of test key on samples of kind k, adding the test
+// when the program lacks it; share 0 removes it.
+func (p *Program) Set(k Kind, key string, share float64) error {
+	t, ok := ByKey(key, share)
+	if !ok {
+		return fmt.Errorf("lab: unknown test %q (known: %s)", key, strings.Join(Keys(), ", "))
+	}
+	if !knownKind(k) {
+		return fmt.Errorf("lab: unknown sample kind %q", k)
+	}
+	if p.PerSample == nil {
+		p.PerSample = map[Kind][]Test{}
+	}
+	ts := p.PerSample[k]
+	out := ts[:0:0]
+	found := false
+	for _, x := range ts {
+		if x.Key == key {
+			found = true
+			if share > 0 {
+				out = append(out, t)
+			}
+			continue
+		}
+		out = append(out, x)
+	}
+	if !found && share > 0 {
+		out = append(out, t)
+	}
+	sort.SliceStable(out, func(i, j int) bool { return order(out[i].Key) < order(out[j].Key) })
+	p.PerSample[k] = out
+	return nil
+}
+
+func order(key string) int {
+	for i, t := range catalog {
+		if t.Key == key {
+			return i
+		}
+	}
+	return len(catalog)
+}
+
+func knownKind(k Kind) bool { return k == SplitBarrel || k == Tube || k == Bag }
+
+// Check reports what is wrong with a program, or nil: an unknown kind or
+// test, a share outside 0..1, a test listed twice for one kind.
+func (p *Program) Check() error {
+	if p == nil {
+		return nil
+	}
+	if !(p.FineShare >= 0 && p.FineShare <= 1) {
+		return fmt.Errorf("lab: fine share %v: want a share between 0 and 1", p.FineShare)
+	}
+	kinds := make([]string, 0, len(p.PerSample))
+	for k := range p.PerSample {
+		kinds = append(kinds, string(k))
+	}
+	sort.Strings(kinds)
+	for _, ks := range kinds {
+		k := Kind(ks)
+		if !knownKind(k) {
+			return fmt.Errorf("lab: unknown sample kind %q (want split-barrel, tube or bag)", k)
+		}
+		seen := map[string]bool{}
+		for _, t := range p.PerSample[k] {
+			ref, ok := ByKey(t.Key, t.Share)
+			if !ok || ref.Item != t.Item {
+				return fmt.Errorf("lab: %s samples: unknown test %q (item %q)", k, t.Key, t.Item)
+			}
+			if seen[t.Key] {
+				return fmt.Errorf("lab: %s samples: test %q listed twice", k, t.Key)
+			}
+			seen[t.Key] = true
+			if !(t.Share >= 0 && t.Share <= 1) {
+				return fmt.Errorf("lab: %s samples: %s share %v: want a share between 0 and 1", k, t.Key, t.Share)
+			}
+		}
+	}
+	return nil
+}
+
+// Counts are the samples a program recovers, by kind.
+type Counts struct {
+	SplitBarrel float64 // split-barrel SPT samples (the rate book's spt-sample)
+	Tube        float64 // thin-walled tube samples (tube-sample)
+	Bag         float64 // bag samples from test pits
+}
+
+// Of returns the count of kind k.
+func (c Counts) Of(k Kind) float64 {
+	switch k {
+	case SplitBarrel:
+		return c.SplitBarrel
+	case Tube:
+		return c.Tube
+	case Bag:
+		return c.Bag
+	}
+	return 0
+}
+
+// Add returns the sum of two counts.
+func (c Counts) Add(d Counts) Counts {
+	return Counts{SplitBarrel: c.SplitBarrel + d.SplitBarrel, Tube: c.Tube + d.Tube, Bag: c.Bag + d.Bag}
+}
+
+// Rate-book items rigs report samples in (the ratebooks package's
+// standard items).
+const (
+	itemSPTSample  = "spt-sample"
+	itemTubeSample = "tube-sample"
+)
+
+// CountsFromQuantities counts the split-barrel and tube samples among a
+// rig's quantities (items spt-sample and tube-sample). Test pits report no
+// sample item; add their bag samples with PitBagSamples.
+func CountsFromQuantities(qs []sdk.Quantity) Counts {
+	var c Counts
+	for _, q := range qs {
+		switch q.Item {
+		case itemSPTSample:
+			c.SplitBarrel += q.Amount
+		case itemTubeSample:
+			c.Tube += q.Amount
+		}
+	}
+	return c
+}
+
+// firstSamplesFt are the two shallow samples taken before the regular
+// interval starts, as the built-in rigs take them: 2.5 ft (just below
+// topsoil) and 5 ft (common practice).
+var firstSamplesFt = [2]float64{2.5, 5}
+
+// PitBagSamples is the number of bag samples in a test pit depthFt deep
+// sampled every intervalFt (0: sdk.DefaultSampleIntervalFt), by the rule the
+// built-in excavator follows: samples at 2.5 ft and 5 ft, then every
+// interval below 5 ft; under 2.5 ft, every interval from the surface
+// (common practice). A sample counts when its depth is at or above the
+// bottom of the pit.
+func PitBagSamples(depthFt, intervalFt float64) int {
+	if !(depthFt > 0) || math.IsInf(depthFt, 0) {
+		return 0
+	}
+	if !(intervalFt > 0) || math.IsInf(intervalFt, 0) {
+		intervalFt = sdk.DefaultSampleIntervalFt
+	}
+	const eps = 1e-9
+	if intervalFt < firstSamplesFt[0] {
+		return int(math.Floor(depthFt/intervalFt + eps))
+	}
+	n := 0
+	for _, d := range firstSamplesFt {
+		if d <= depthFt+eps {
+			n++
+		}
+	}
+	last := firstSamplesFt[1]
+	if depthFt+eps >= last {
+		n += int(math.Floor((depthFt-last)/intervalFt + eps))
+	}
+	return n
+}
+
+// Quantities turns sample counts into rate-book quantities of lab tests,
+// one per test item with a positive count, in catalogue order (moisture,
+// sieve, hydrometer, Atterberg, consolidation, UCS, UU). A nil program is
+// the default program. Each total is rounded up to whole tests.
+func (p *Program) Quantities(c Counts) ([]sdk.Quantity, error) {
+	if p == nil {
+		p = Default()
+	}
+	if err := p.Check(); err != nil {
+		return nil, err
+	}
+	for _, k := range Kinds() {
+		if v := c.Of(k); math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
+			return nil, fmt.Errorf("lab: %s sample count %v: want a number ≥ 0", k, v)
+		}
+	}
+	var out []sdk.Quantity
+	for _, ref := range catalog {
+		total := 0.0
+		var parts []string
+		for _, k := range Kinds() {
+			n := c.Of(k)
+			if n == 0 {
+				continue
+			}
+			for _, t := range p.PerSample[k] {
+				if t.Key != ref.Key || t.Share == 0 {
+					continue
+				}
+				soil := 1.0
+				if t.Soil == Fine && k != Tube {
+					soil = p.FineShare
+				}
+				if soil == 0 {
+					continue
+				}
+				total += n * soil * t.Share
+				part := fmt.Sprintf("%s of %s %s", shareText(t.Share), fmtCount(n), k)
+				if soil < 1 {
+					part += fmt.Sprintf(" (%s fine-grained)", percent(soil))
+				}
+				parts = append(parts, part)
+			}
+		}
+		amount := math.Ceil(total - 1e-9)
+		if amount <= 0 {
+			continue
+		}
+		out = append(out, sdk.Quantity{Item: ref.Item, Unit: Unit, Amount: amount,
+			Note: fmt.Sprintf("%s (%s): %s samples", ref.Name, ref.Standard, strings.Join(parts, ", "))})
+	}
+	return out, nil
+}
+
+// shareText writes a share as a person would: "all", "1 in 4", "35 %".
+func shareText(s float64) string {
+	if s >= 1 {
+		return "all"
+	}
+	if k := math.Round(1 / s); k >= 2 && math.Abs(1/k-s) < 1e-9 {
+		return fmt.Sprintf("1 in %.0f", k)
+	}
+	return percent(s)
+}
+
+func percent(s float64) string {
+	return strings.TrimSuffix(strings.TrimRight(fmt.Sprintf("%.1f", 100*s), "0"), ".") + " %"
+}
+
+func fmtCount(n float64) string { return fmt.Sprintf("%g", n) }
