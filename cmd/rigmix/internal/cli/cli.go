@@ -97,5 +97,6 @@ func newRoot(stdout, stderr io.Writer) *cobra.Command {
 	root.AddCommand(newSolveCmd(g, stdout, stderr))
 	root.AddCommand(newScheduleCmd(g, stdout, stderr))
 	root.AddCommand(newRigServeCmd())
+	root.AddCommand(newGenSiteCmd(stdout))
 	return root
 }

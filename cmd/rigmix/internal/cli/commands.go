@@ -17,6 +17,7 @@ import (
 	"github.com/rigmix/rigmix/optimizer/mip"
 	"github.com/rigmix/rigmix/plugins/builtin"
 	"github.com/rigmix/rigmix/scenarios"
+	"github.com/rigmix/rigmix/scenarios/sitegen"
 )
 
 // selfCommand launches a built-in rig by re-running this program with the
@@ -177,5 +178,32 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	c.Flags().Float64("gap", 0, "relative optimality gap to stop at")
 	c.Flags().Float64("time-limit", 0, "seconds")
 	c.Flags().Int("threads", 1, "solver threads (1 or 2)")
+	return c
+}
+
+func newGenSiteCmd(stdout io.Writer) *cobra.Command {
+	var acres, miles float64
+	var seed uint64
+	c := &cobra.Command{
+		Use:    "gen-site",
+		Short:  "write an invented scenario of a given size for scale tests (developer command)",
+		Hidden: true,
+		Args:   cobra.NoArgs,
+		RunE: func(cmd *cobra.Command, args []string) error {
+			switch {
+			case acres > 0 && miles > 0, acres <= 0 && miles <= 0:
+				return usageError{fmt.Errorf("give one of --acres or --miles, a positive number")}
+			case acres > 0:
+				_, err := stdout.Write(sitegen.Site(acres, seed))
+				return err
+			default:
+				_, err := stdout.Write(sitegen.Corridor(miles, seed))
+				return err
+			}
+		},
+	}
+	c.Flags().Float64Var(&acres, "acres", 0, "area of a square site")
+	c.Flags().Float64Var(&miles, "miles", 0, "length of a corridor")
+	c.Flags().Uint64Var(&seed, "seed", 1, "seed")
 	return c
 }
