@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"sort"
+	"time"
 
 	"github.com/rigmix/rigmix/optimizer/candidates"
 	"github.com/rigmix/rigmix/optimizer/geom"
@@ -53,7 +54,9 @@ func (pr *Prepared) Solve(ctx context.Context, opt Options) (*mip.Result, error)
 	if tl > 0 {
 		mo.TimeLimit = secs(tl)
 	}
+	t0 := time.Now()
 	res, err := mip.Solve(ctx, pr.Model.Problem, mo)
+	pr.Timings.add("solve", t0)
 	if err != nil {
 		return nil, err
 	}

@@ -7,6 +7,7 @@ import (
 	"math"
 	"sort"
 	"strings"
+	"time"
 
 	"github.com/rigmix/rigmix/optimizer/candidates"
 	"github.com/rigmix/rigmix/optimizer/geom"
@@ -75,6 +76,22 @@ type Prepared struct {
 	// that can meet its spacing rule (the zone's covering number when the
 	// subproblem is solved to optimality). See coverNumbers.
 	CoverMin []int
+	// Timings records how long each stage took (wall time; kept out of
+	// the plan so the plan stays the same from run to run).
+	Timings Timings
+}
+
+// Timings lists stage durations in the order the stages ran.
+type Timings []Timing
+
+// Timing is one stage's wall time.
+type Timing struct {
+	Stage string
+	Took  time.Duration
+}
+
+func (t *Timings) add(stage string, since time.Time) {
+	*t = append(*t, Timing{stage, time.Since(since)})
 }
 
 type rigData struct {
@@ -154,13 +171,16 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 	for i, ng := range sc.NoGo {
 		nogo[i] = ng.Polygon
 	}
+	t0 := time.Now()
 	lay, err := candidates.Generate(zin, nogo, candidates.Options{})
+	pr.Timings.add("candidates and coverage cells", t0)
 	if err != nil {
 		return nil, inputErrorf("%s: %v", sc.Source, err)
 	}
 	pr.Layout = lay
 
 	// One batched question per rig: every distinct (zone, method) site.
+	t0 = time.Now()
 	for ri := range pr.Rigs {
 		rd := &pr.Rigs[ri]
 		var sites []sdk.Site
@@ -221,6 +241,7 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		}
 	}
 
+	pr.Timings.add("rig calls (one batch per rig)", t0)
 	// Every zone needs at least one way to be explored.
 	for z, zn := range sc.Zones {
 		if err := zoneReachable(pr, z, zn); err != nil {
@@ -259,7 +280,9 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		}
 	}
 	pr.ZoneMin = make([]int, len(sc.Zones))
+	t0 = time.Now()
 	pr.CoverMin, err = coverNumbers(ctx, pr, spec)
+	pr.Timings.add("zone covering numbers", t0)
 	if err != nil {
 		return nil, err
 	}
@@ -276,7 +299,9 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 	for _, rd := range pr.Rigs {
 		spec.Rigs = append(spec.Rigs, model.Rig{Name: rd.name, MobCost: rd.mobCost, MobHours: rd.mob.Hours, DayCost: rd.dayCost})
 	}
+	t0 = time.Now()
 	m, err := model.Build(spec)
+	pr.Timings.add("model build", t0)
 	if err != nil {
 		if errors.Is(err, model.ErrNoOption) {
 			return nil, inputErrorf("%s: %v", sc.Source, err)

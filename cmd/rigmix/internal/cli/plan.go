@@ -28,6 +28,7 @@ type planOptions struct {
 	geojsonOut string
 	mpsOut     string
 	quiet      bool
+	timings    bool
 }
 
 func newPlanCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -58,6 +59,7 @@ func newPlanCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	f.StringVar(&o.geojsonOut, "points-geojson", "", "write the points as GeoJSON (RFC 7946) to this file")
 	f.StringVar(&o.mpsOut, "model-mps", "", "write the optimization model as free MPS to this file")
 	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
+	f.BoolVar(&o.timings, "timings", false, "print how long each stage took to stderr")
 	return c
 }
 
@@ -130,15 +132,19 @@ func openFleet(ctx context.Context, cfg Config, want []string) (*host.Fleet, err
 }
 
 func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, stdout, stderr io.Writer) error {
+	t0 := time.Now()
 	sc, rb, err := loadInputs(cfg, o.demo, args)
 	if err != nil {
 		return err
 	}
+	tLoad := time.Since(t0)
+	t0 = time.Now()
 	fleet, err := openFleet(ctx, cfg, sc.Rigs)
 	if err != nil {
 		return err
 	}
 	defer fleet.Close()
+	tLaunch := time.Since(t0)
 	rigs := map[string]sdk.Rig{}
 	for _, r := range fleet.Rigs() {
 		rigs[r.Info.Name] = r
@@ -171,9 +177,18 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 	if err != nil {
 		return err
 	}
+	t0 = time.Now()
 	p, err := pr.Assemble(res)
 	if err != nil {
 		return err
+	}
+	if o.timings {
+		fmt.Fprintf(stderr, "stage timings (wall):\n  %-32s %s\n  %-32s %s\n", "load scenario and rate book", tLoad.Round(time.Millisecond), "launch rig plugins", tLaunch.Round(time.Millisecond))
+		for _, tm := range pr.Timings {
+			fmt.Fprintf(stderr, "  %-32s %s\n", tm.Stage, tm.Took.Round(time.Millisecond))
+		}
+		fmt.Fprintf(stderr, "  %-32s %s\n", "assemble plan", time.Since(t0).Round(time.Millisecond))
+		fmt.Fprintf(stderr, "  model %d rows × %d columns; solver %s, gap %.3f%%, %d nodes\n", pr.Model.Problem.LP.NumRows, pr.Model.Problem.LP.NumCols, res.Status, 100*res.Gap, res.Nodes)
 	}
 	for _, w := range []struct {
 		path   string
