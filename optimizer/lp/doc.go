@@ -66,10 +66,15 @@
 // & Peierls 1988) that visits only the earlier pivots a column reaches,
 // with threshold partial pivoting (threshold 0.1) and a row-count
 // (Markowitz 1957) tie break, columns taken in order of increasing count
-// (lu.go). Basis changes are appended as an eta file in product form
-// (Dantzig & Orchard-Hays 1954; Maros 2003 ch. 8) and the basis is
-// refactorized every 50 changes (measured better than 100 on the
-// OR-Library set-covering relaxations). A dependent basis found while
+// (lu.go). Basis changes update the factors by the method of Forrest &
+// Tomlin (1972): the entering column's partial transform L̃⁻¹a_q (the
+// spike) replaces a column of U, its pivot moves to the end of U's
+// triangular order, and the row left below the diagonal is eliminated and
+// kept as a row eta. Each update is checked against the determinant
+// identity (new diagonal = α_r × old diagonal); on failure, and every 50
+// updates, the basis is refactorized. On the set-covering relaxations a
+// spike plus row eta holds about 70 nonzeros where the product-form eta
+// (Dantzig & Orchard-Hays 1954), kept as a fallback, holds about 390. A dependent basis found while
 // factorizing is repaired by replacing columns with row logicals. Pivot
 // rows are computed row-wise from the nonzeros of ρ = B⁻ᵀe_r.
 //
@@ -105,6 +110,9 @@
 //     Sparse Matrices. Oxford.
 //   - Forrest, J.J., Goldfarb, D. (1992). Steepest-edge simplex algorithms
 //     for linear programming. Mathematical Programming 57, 341–374.
+//   - Forrest, J.J.H., Tomlin, J.A. (1972). Updated triangular factors of
+//     the basis to maintain sparsity in the product form simplex method.
+//     Mathematical Programming 2, 263–278.
 //   - Fourer, R. (1994). Notes on the dual simplex method. Unpublished.
 //   - Gilbert, J.R., Peierls, T. (1988). Sparse partial pivoting in time
 //     proportional to arithmetic operations. SIAM J. Sci. Stat. Comput.

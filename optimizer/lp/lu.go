@@ -5,9 +5,10 @@ import (
 	"sort"
 )
 
-// luFactor holds a sparse LU factorization of the basis matrix B together
-// with a product-form eta file for the basis changes since (Maros 2003,
-// ch. 8; Dantzig & Orchard-Hays 1954 for the product form).
+// luFactor holds a sparse LU factorization of the basis matrix B and the
+// updates for the basis changes since: Forrest–Tomlin (1972) updates of U
+// with row etas (the default, useFT), or a product-form eta file
+// (Dantzig & Orchard-Hays 1954; Maros 2003, ch. 8).
 //
 // The factorization is left-looking (Gilbert & Peierls 1988): columns of
 // B are taken in order of increasing count (so the logical unit columns
@@ -24,9 +25,10 @@ import (
 //	B[:, pcol[k]] = Σ_{j≤k} U[j,k] · L̃_j,   L̃_j = e_{prow[j]} + L_j
 //
 // where L_j has entries only in rows pivoted after j. FTRAN solves
-// L̃ v = a forward and U t = v backward; BTRAN solves the transposes in
-// reverse. Both L and U are stored by columns, which serves FTRAN as
-// scatter (axpy, skipping zero multipliers) and BTRAN as gather (dot).
+// L̃ v = a forward, applies the row etas, and solves U t = v backward in
+// the triangular order ord; BTRAN solves the transposes in reverse. Both
+// L and U are stored by columns, which serves FTRAN as scatter (axpy,
+// skipping zero multipliers) and BTRAN as gather (dot).
 type luFactor struct {
 	m    int
 	prow []int // pivot k → row
@@ -36,10 +38,33 @@ type luFactor struct {
 	lIdx   []int // row index
 	lVal   []float64
 
-	uStart []int
-	uIdx   []int // earlier pivot index j < k
-	uVal   []float64
-	uDiag  []float64
+	// U by columns: column k (a pivot index) holds its off-diagonal
+	// entries (row pivot index j, value) in uIdx/uVal[uBeg[k]:uEnd[k]].
+	// A Forrest–Tomlin update appends the new column at the end of the
+	// storage and zeroes eliminated entries in place.
+	uBeg, uEnd []int
+	uIdx       []int
+	uVal       []float64
+	uDiag      []float64
+
+	// Triangular order of U: ord lists the pivots so that every entry
+	// (j, k) of U has posOf[j] < posOf[k]. pivOfPos maps a basis
+	// position to its pivot.
+	ord, posOf, pivOfPos []int
+
+	// Forrest–Tomlin row etas: eta e replaces row rPiv[e] (a pivot) of
+	// the transformed system by itself minus Σ r_j · row j over
+	// rIdx/rVal[rStart[e]:rStart[e+1]].
+	rPiv, rStart, rIdx []int
+	rVal               []float64
+
+	// Spike of the last FTRAN made with wantSpike: L̃⁻¹a after the row
+	// etas, by pivot, for the next update.
+	wantSpike bool
+	spikeIdx  []int
+	spikeVal  []float64
+	rwork     []float64 // by pivot, kept zero
+	broken    bool      // an update failed its stability check
 
 	// Eta file: each eta replaces basis position etaPos[e]; its column is
 	// the FTRAN'd entering column with pivot etaPiv[e] at that position
@@ -98,7 +123,8 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 	f.lStart = append(f.lStart[:0], 0)
 	f.lIdx = f.lIdx[:0]
 	f.lVal = f.lVal[:0]
-	f.uStart = append(f.uStart[:0], 0)
+	f.uBeg = f.uBeg[:0]
+	f.uEnd = f.uEnd[:0]
 	f.uIdx = f.uIdx[:0]
 	f.uVal = f.uVal[:0]
 	f.uDiag = f.uDiag[:0]
@@ -202,6 +228,7 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 		}
 		piv := w[r]
 		// U column: entries in rows pivoted earlier, by pivot index.
+		f.uBeg = append(f.uBeg, len(f.uIdx))
 		for _, i := range nz {
 			if j := f.rowPiv[i]; j >= 0 && w[i] != 0 {
 				f.uIdx = append(f.uIdx, j)
@@ -213,7 +240,7 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 		f.prow = append(f.prow, r)
 		f.pcol = append(f.pcol, p)
 		f.uDiag = append(f.uDiag, piv)
-		f.uStart = append(f.uStart, len(f.uIdx))
+		f.uEnd = append(f.uEnd, len(f.uIdx))
 		for _, i := range nz {
 			if w[i] != 0 && f.rowPiv[i] < 0 {
 				f.lIdx = append(f.lIdx, i)
@@ -239,16 +266,33 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 			f.prow = append(f.prow, i)
 			f.pcol = append(f.pcol, singPos[len(singRow)])
 			f.uDiag = append(f.uDiag, 1)
-			f.uStart = append(f.uStart, len(f.uIdx))
+			f.uBeg = append(f.uBeg, len(f.uIdx))
+			f.uEnd = append(f.uEnd, len(f.uIdx))
 			f.lStart = append(f.lStart, len(f.lIdx))
 			singRow = append(singRow, i)
 		}
 	}
 	f.nnzBase = len(f.lIdx) + len(f.uIdx) + m
+	if len(f.ord) != m {
+		f.ord = make([]int, m)
+		f.posOf = make([]int, m)
+		f.pivOfPos = make([]int, m)
+		f.rwork = make([]float64, m)
+	}
+	for k := 0; k < m; k++ {
+		f.ord[k] = k
+		f.posOf[k] = k
+		f.pivOfPos[f.pcol[k]] = k
+	}
+	f.broken = false
 	return singPos, singRow
 }
 
 func (f *luFactor) clearEtas() {
+	f.rPiv = f.rPiv[:0]
+	f.rStart = append(f.rStart[:0], 0)
+	f.rIdx = f.rIdx[:0]
+	f.rVal = f.rVal[:0]
 	f.etaPos = f.etaPos[:0]
 	f.etaPiv = f.etaPiv[:0]
 	f.etaStart = append(f.etaStart[:0], 0)
@@ -256,14 +300,14 @@ func (f *luFactor) clearEtas() {
 	f.etaVal = f.etaVal[:0]
 }
 
-func (f *luFactor) numEtas() int { return len(f.etaPos) }
+func (f *luFactor) numEtas() int { return len(f.etaPos) + len(f.rPiv) }
 
 // needRefactor reports whether the eta file is due for a fresh
 // factorization: after refactorEvery updates (Maros 2003 §8.2.2 discusses
 // the trade-off; a rule on the eta nonzero count measured no better on
 // the OR-Library set-covering relaxations).
 func (f *luFactor) needRefactor() bool {
-	return len(f.etaPos) >= refactorEvery
+	return f.numEtas() >= refactorEvery || f.broken || len(f.uIdx) > 2*f.nnzBase+4*f.m
 }
 
 // ftran overwrites a (indexed by rows, length m) with B⁻¹a indexed by
@@ -280,9 +324,29 @@ func (f *luFactor) ftran(a []float64) {
 			a[f.lIdx[t]] -= v * f.lVal[t]
 		}
 	}
-	// U t = v, t into out (indexed by position).
+	// Forrest–Tomlin row etas, oldest first.
+	for e, kp := range f.rPiv {
+		r := f.prow[kp]
+		v := a[r]
+		for t := f.rStart[e]; t < f.rStart[e+1]; t++ {
+			v -= f.rVal[t] * a[f.prow[f.rIdx[t]]]
+		}
+		a[r] = v
+	}
+	if f.wantSpike {
+		f.spikeIdx = f.spikeIdx[:0]
+		f.spikeVal = f.spikeVal[:0]
+		for k := 0; k < m; k++ {
+			if v := a[f.prow[k]]; v != 0 {
+				f.spikeIdx = append(f.spikeIdx, k)
+				f.spikeVal = append(f.spikeVal, v)
+			}
+		}
+	}
+	// U t = v backward in triangular order, t into out (by position).
 	out := f.work2
-	for k := m - 1; k >= 0; k-- {
+	for idx := m - 1; idx >= 0; idx-- {
+		k := f.ord[idx]
 		r := f.prow[k]
 		v := a[r]
 		if v == 0 {
@@ -292,12 +356,12 @@ func (f *luFactor) ftran(a []float64) {
 		a[r] = 0
 		tk := v / f.uDiag[k]
 		out[f.pcol[k]] = tk
-		for t := f.uStart[k]; t < f.uStart[k+1]; t++ {
+		for t := f.uBeg[k]; t < f.uEnd[k]; t++ {
 			a[f.prow[f.uIdx[t]]] -= f.uVal[t] * tk
 		}
 	}
 	copy(a, out)
-	// Eta file, oldest first.
+	// Product-form eta file, oldest first.
 	for e := range f.etaPos {
 		r := f.etaPos[e]
 		zr := a[r]
@@ -324,14 +388,24 @@ func (f *luFactor) btran(c []float64) {
 		}
 		c[r] = v / f.etaPiv[e]
 	}
-	// Uᵀ s = c (by pivot), s stored in work2 by pivot index.
+	// Uᵀ s = c in triangular order, s by pivot index.
 	s := f.work2
-	for k := 0; k < m; k++ {
+	for _, k := range f.ord {
 		v := c[f.pcol[k]]
-		for t := f.uStart[k]; t < f.uStart[k+1]; t++ {
+		for t := f.uBeg[k]; t < f.uEnd[k]; t++ {
 			v -= f.uVal[t] * s[f.uIdx[t]]
 		}
 		s[k] = v / f.uDiag[k]
+	}
+	// Transposed row etas, newest first.
+	for e := len(f.rPiv) - 1; e >= 0; e-- {
+		sk := s[f.rPiv[e]]
+		if sk == 0 {
+			continue
+		}
+		for t := f.rStart[e]; t < f.rStart[e+1]; t++ {
+			s[f.rIdx[t]] -= f.rVal[t] * sk
+		}
 	}
 	// L̃ᵀ y = s, backward.
 	for k := m - 1; k >= 0; k-- {
@@ -343,9 +417,90 @@ func (f *luFactor) btran(c []float64) {
 	}
 }
 
+// updateFT replaces the column of basis position p by the entering column
+// whose spike the last FTRAN saved, after Forrest & Tomlin (1972): the
+// spike becomes U's column for p's pivot kp, kp moves to the end of the
+// triangular order, and row kp — now left of the diagonal — is
+// eliminated by the rows after kp's old place, which is recorded as a
+// row eta. The multipliers r solve rᵀU_sub = row kp, a forward pass over
+// U's columns. The new diagonal must equal α_r times the old one (the
+// determinant identity det B' = α_r det B); if it does not, to a relative
+// 1e-8, the update is refused and the caller must refactorize.
+func (f *luFactor) updateFT(p int, alphaR float64) bool {
+	m := f.m
+	kp := f.pivOfPos[p]
+	op := f.posOf[kp]
+	r := f.rwork
+	start := len(f.rIdx)
+	for idx := op + 1; idx < m; idx++ {
+		k := f.ord[idx]
+		wk, sum := 0.0, 0.0
+		for t := f.uBeg[k]; t < f.uEnd[k]; t++ {
+			j := f.uIdx[t]
+			if j == kp {
+				wk = f.uVal[t]
+				f.uVal[t] = 0
+				continue
+			}
+			if rj := r[j]; rj != 0 {
+				sum += rj * f.uVal[t]
+			}
+		}
+		if wk == 0 && sum == 0 {
+			continue
+		}
+		if rk := (wk - sum) / f.uDiag[k]; rk != 0 {
+			r[k] = rk
+			f.rIdx = append(f.rIdx, k)
+			f.rVal = append(f.rVal, rk)
+		}
+	}
+	// New column kp: the spike; its diagonal after the row eta.
+	diag := 0.0
+	f.uBeg[kp] = len(f.uIdx)
+	for t, j := range f.spikeIdx {
+		v := f.spikeVal[t]
+		if j == kp {
+			diag += v
+			continue
+		}
+		diag -= r[j] * v
+		f.uIdx = append(f.uIdx, j)
+		f.uVal = append(f.uVal, v)
+	}
+	f.uEnd[kp] = len(f.uIdx)
+	for _, k := range f.rIdx[start:] {
+		r[k] = 0
+	}
+	f.rPiv = append(f.rPiv, kp)
+	f.rStart = append(f.rStart, len(f.rIdx))
+	want := f.uDiag[kp] * alphaR
+	f.uDiag[kp] = diag
+	copy(f.ord[op:], f.ord[op+1:])
+	f.ord[m-1] = kp
+	for idx := op; idx < m; idx++ {
+		f.posOf[f.ord[idx]] = idx
+	}
+	if math.Abs(diag-want) > 1e-8*math.Max(1, math.Abs(want)) || diag == 0 {
+		f.broken = true
+		return false
+	}
+	return true
+}
+
+// useFT selects the Forrest–Tomlin update; false falls back to the
+// product-form eta file.
+const useFT = true
+
 // update records that basis position r now holds the column whose FTRAN
-// is alpha (indexed by positions).
+// is alpha (indexed by positions); with useFT the spike saved by that
+// FTRAN is used instead. If the update fails its stability check the
+// factorization is marked for refactorization (needRefactor).
 func (f *luFactor) update(r int, alpha []float64) {
+	if useFT {
+		f.updateFT(r, alpha[r])
+		return
+	}
 	f.etaPos = append(f.etaPos, r)
 	f.etaPiv = append(f.etaPiv, alpha[r])
 	for i, v := range alpha {

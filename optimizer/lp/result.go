@@ -3,7 +3,7 @@ package lp
 // result assembles the Result from the current basis on the true costs.
 func (s *Solver) result(st Status) *Result {
 	s.resetCosts()
-	if s.needFactor {
+	if s.needFactor || s.lu.broken {
 		_ = s.refactor()
 		s.computePrimal()
 	}

@@ -413,7 +413,9 @@ func (s *Solver) ftranCol(j int, out []float64) {
 	for k, i := range idx {
 		out[i] = val[k]
 	}
+	s.lu.wantSpike = true
 	s.lu.ftran(out)
+	s.lu.wantSpike = false
 }
 
 // dualPhase1 seeks a dual feasible basis by solving, with the dual
