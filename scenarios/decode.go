@@ -10,6 +10,7 @@ import (
 	"time"
 
 	"github.com/rigmix/rigmix/optimizer/geom"
+	"github.com/rigmix/rigmix/optimizer/rules"
 	"github.com/rigmix/rigmix/plugins/sdk"
 	"github.com/rigmix/rigmix/ratebooks"
 )
@@ -683,6 +684,9 @@ func (d *decoder) decode(m map[string]any) (*Scenario, error) {
 	if s.RateBook, err = d.rateBook(m); err != nil {
 		return nil, err
 	}
+	if s.Lab, err = d.labProgram(m); err != nil {
+		return nil, err
+	}
 
 	yard, ok, err := d.number(m, "", "yard_miles", bound{min: 0, max: maxYardMiles, unit: "mi", hint: "one-way road miles from the rig yard to the site, e.g. 35"})
 	if err != nil {
@@ -830,7 +834,7 @@ func (d *decoder) zone(m map[string]any, p string) (Zone, error) {
 	if !ok {
 		return z, d.errf(p+".rules", "give at least min_depth and one of max_spacing, area_per_point or min_points", "missing")
 	}
-	if z.Rules, err = d.rules(r, p+".rules", z.Polygon); err != nil {
+	if z.Rules, err = d.rules(r, p+".rules", &z); err != nil {
 		return z, err
 	}
 	return z, nil
@@ -861,32 +865,33 @@ func (d *decoder) ground(m map[string]any, p string) (Ground, error) {
 	return g, nil
 }
 
-func (d *decoder) rules(m map[string]any, p string, zone geom.Polygon) (Rules, error) {
-	var r Rules
-	var err error
-	var hasArea, hasSpacing, hasMin bool
+func (d *decoder) rules(m map[string]any, p string, z *Zone) (Rules, error) {
+	r := Rules{Origins: map[string]string{}}
+	set := func(key string) { r.Origins[key] = OriginScenario }
+	pre, err := d.preset(m, p)
+	if err != nil {
+		return r, err
+	}
+	var hasArea, hasSpacing, hasMin, hasLattice, hasCorners bool
 	if r.AreaPerPointFt2, hasArea, err = d.areaField(m, p, "area_per_point", maxAreaPerPtFt2, 10000, "the area each point stands for"); err != nil {
 		return r, err
 	}
 	if r.MaxSpacingFt, hasSpacing, err = d.length(m, p, "max_spacing", maxSpacingFt, 100, "a spacing"); err != nil {
 		return r, err
 	}
-	r.Lattice = Triangular
 	if l, ok, err := d.choice(m, p, "lattice", lattices); err != nil {
 		return r, err
 	} else if ok {
-		r.Lattice = Lattice(l)
+		r.Lattice, hasLattice = Lattice(l), true
 	}
 	if r.MinPoints, hasMin, err = d.integer(m, p, "min_points", 1, maxMinPoints, "a count of points, e.g. 3 (leave out if the rule does not apply)"); err != nil {
 		return r, err
 	}
-	var ok bool
-	if r.MinDepthFt, ok, err = d.length(m, p, "min_depth", maxDepthFt, 30, "the depth every point reaches"); err != nil {
+	depthFt, depthOrigin, hasDepth, err := d.minDepth(m, p, z)
+	if err != nil {
 		return r, err
 	}
-	if !ok {
-		return r, d.errf(p+".min_depth", fmt.Sprintf("give the depth every point must reach in %s, e.g. %s", d.unit, fmtNum(d.example(30))), "missing")
-	}
+	r.MinDepthFt = depthFt
 	share, hasShare, err := d.number(m, p, "sampled_share", bound{min: 0, max: 1, hint: "a share between 0 and 1, e.g. 0.5 for half the points"})
 	if err != nil {
 		return r, err
@@ -918,10 +923,11 @@ func (d *decoder) rules(m map[string]any, p string, zone geom.Polygon) (Rules, e
 				"asks for %s of points sampled, but none of the methods (%s) recovers samples", fmtNum(share), strings.Join(ms, ", "))
 		}
 	}
-	if r.SampleIntervalFt, _, err = d.length(m, p, "sample_interval", maxIntervalFt, 5, "the sampling interval in borings"); err != nil {
+	hasInterval := false
+	if r.SampleIntervalFt, hasInterval, err = d.length(m, p, "sample_interval", maxIntervalFt, 5, "the sampling interval in borings"); err != nil {
 		return r, err
 	}
-	if r.Corners, _, err = d.boolean(m, p, "corners"); err != nil {
+	if r.Corners, hasCorners, err = d.boolean(m, p, "corners"); err != nil {
 		return r, err
 	}
 	rp, hasReq, err := d.list(m, p, "required_points")
@@ -937,16 +943,74 @@ func (d *decoder) rules(m map[string]any, p string, zone geom.Polygon) (Rules, e
 		if err != nil {
 			return r, err
 		}
-		if !insideOrOn(zone, pt) {
+		if !insideOrOn(z.Polygon, pt) {
 			return r, d.errf(ip, "a required point must lie inside its zone's polygon", "[%s, %s] is outside the zone", fmtNum(pt.X/d.ftPer), fmtNum(pt.Y/d.ftPer))
 		}
 		r.RequiredPoints = append(r.RequiredPoints, pt)
 	}
-	if r.Source, _, err = d.str(m, p, "source", ""); err != nil {
+	hasSource := false
+	if r.Source, hasSource, err = d.str(m, p, "source", ""); err != nil {
 		return r, err
 	}
+
+	// Where each rule comes from: the file's own numbers win over a
+	// preset's, and a preset's over defaults.
+	for key, stated := range map[string]bool{"area_per_point": hasArea, "max_spacing": hasSpacing, "min_points": hasMin,
+		"sampled_share": hasShare && share > 0, "methods": len(r.Methods) > 0, "sample_interval": hasInterval,
+		"required_points": len(r.RequiredPoints) > 0, "lattice": hasLattice, "corners": hasCorners && r.Corners} {
+		if stated {
+			set(key)
+		}
+	}
+	if hasDepth {
+		r.Origins["min_depth"] = depthOrigin
+	}
+	if pre != nil {
+		r.Preset = pre.Name
+		from := "preset " + pre.Name + ": " + pre.Source
+		if !hasArea && pre.AreaPerPointFt2 > 0 {
+			r.AreaPerPointFt2, hasArea, r.Origins["area_per_point"] = pre.AreaPerPointFt2, true, from
+		}
+		if !hasSpacing && pre.MaxSpacingFt > 0 {
+			r.MaxSpacingFt, hasSpacing, r.Origins["max_spacing"] = pre.MaxSpacingFt, true, from
+		}
+		if !hasMin && pre.MinPoints > 0 {
+			r.MinPoints, hasMin, r.Origins["min_points"] = pre.MinPoints, true, from
+		}
+		if !hasDepth && pre.MinDepthFt > 0 {
+			r.MinDepthFt, hasDepth, r.Origins["min_depth"] = pre.MinDepthFt, true, from
+		}
+		if !hasLattice && pre.Lattice != "" {
+			r.Lattice, hasLattice, r.Origins["lattice"] = Lattice(pre.Lattice), true, from
+		}
+		if !hasCorners && pre.Corners {
+			r.Corners, r.Origins["corners"] = true, from
+		}
+		if !hasSource {
+			r.Source = pre.Title + " (" + pre.Source + ")"
+		}
+	}
+	if !hasLattice {
+		r.Lattice = Triangular
+		if r.MaxSpacingFt > 0 {
+			r.Origins["lattice"] = originDefault + "triangular"
+		}
+	}
+	if !hasDepth {
+		return r, d.errf(p+".min_depth", fmt.Sprintf("give the depth every point must reach in %s, e.g. %s, or compute it: {from: stories}, {from: footing, ...}, {from: rock, ...} (see REFERENCE.md)",
+			d.unit, fmtNum(d.example(30))), "missing")
+	}
+	if !hasMin && z.Use == UseStructure {
+		// NAVFAC DM-7.01 (UFC 3-220-10N, Table 6): an isolated rigid
+		// foundation under 10,000 ft² gets at least 2 or 3 borings.
+		a := area(z.Polygon)
+		if n, src, err := rules.MinPointsForFootprint(a); err == nil && n > 0 {
+			r.MinPoints, hasMin = n, true
+			r.Origins["min_points"] = fmt.Sprintf("%s%s (footprint %.0f ft²)", originComputed, src, a)
+		}
+	}
 	if !hasArea && !hasSpacing && !hasMin && !(hasReq && len(rp) > 0) && !r.Corners {
-		return r, d.errf(p, "give at least one of max_spacing, area_per_point, min_points, required_points or corners: true",
+		return r, d.errf(p, "give at least one of max_spacing, area_per_point, min_points, required_points, corners: true or a preset",
 			"asks for no points")
 	}
 	return r, nil

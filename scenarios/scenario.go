@@ -16,6 +16,7 @@ package scenarios
 
 import (
 	"github.com/rigmix/rigmix/optimizer/geom"
+	"github.com/rigmix/rigmix/optimizer/lab"
 	"github.com/rigmix/rigmix/plugins/sdk"
 )
 
@@ -43,6 +44,11 @@ type Scenario struct {
 	HoursDay   float64  // working hours per field day
 	GapRel     float64  // relative optimality gap the solve stops at
 	TimeLimitS float64  // solve time limit, seconds (0: none)
+
+	// Lab is the program of laboratory tests priced on the samples the
+	// plan recovers; nil means lab.Default(). A file's "lab: none" gives
+	// lab.None().
+	Lab *lab.Program
 }
 
 // LonLat is a WGS 84 position in degrees.
@@ -113,7 +119,23 @@ type Rules struct {
 	Corners          bool         // a point is required at each polygon corner
 	RequiredPoints   []geom.Point // points that must be explored
 	Source           string       // where the rule numbers come from
+
+	// Preset is the name of the rules.Presets entry the zone names, or "".
+	Preset string
+	// Origins says where each rule that applies came from, by its key in
+	// the file ("max_spacing", "min_depth", ...): "scenario" when the file
+	// states it, "preset NAME: SOURCE" when a preset filled it, "computed:
+	// …" when worked out (depth from stories or a footing, the NAVFAC
+	// footprint minimum), "default: …" for a default.
+	Origins map[string]string
 }
+
+// Origin values for rules the file states and for defaults.
+const (
+	OriginScenario = "scenario"
+	originComputed = "computed: "
+	originDefault  = "default: "
+)
 
 // NoGo is an area where no point may be placed (utilities, existing
 // structures, protected trees, ...).

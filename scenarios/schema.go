@@ -15,6 +15,10 @@ import (
 type keys struct {
 	fields map[string]*keys // a mapping with these keys
 	items  *keys            // a sequence whose items have this shape
+	// scalarOK lets a mapping key hold a plain value instead (min_depth: 70
+	// or min_depth: {from: stories}; lab: none or lab: {...}); the decoder
+	// checks the value.
+	scalarOK bool
 }
 
 // leaf is any value whose inner keys are not checked here (scalars, lists
@@ -23,6 +27,40 @@ var leaf = &keys{}
 
 func mapping(f map[string]*keys) *keys { return &keys{fields: f} }
 func listOf(k *keys) *keys             { return &keys{items: k} }
+
+// orScalar marks a mapping that may also be written as a plain value.
+func orScalar(k *keys) *keys { k.scalarOK = true; return k }
+
+// minDepthKeys are the keys of a computed depth rule, for every kind of
+// "from"; the decoder checks which of them the chosen kind uses.
+var minDepthKeys = orScalar(mapping(map[string]*keys{
+	"from":             leaf,
+	"width":            leaf,
+	"length":           leaf,
+	"shape":            leaf,
+	"bearing_pressure": leaf,
+	"foundation_depth": leaf,
+	"unit_weight":      leaf,
+	"sat_unit_weight":  leaf,
+	"method":           leaf,
+	"cut_depth":        leaf,
+	"guide":            leaf,
+	"height":           leaf,
+	"base_depth":       leaf,
+	"wall":             leaf,
+	"core":             leaf,
+}))
+
+// labShares are the test shares of one kind of sample.
+var labShares = mapping(map[string]*keys{
+	"moisture":      leaf,
+	"sieve":         leaf,
+	"hydrometer":    leaf,
+	"atterberg":     leaf,
+	"consolidation": leaf,
+	"ucs":           leaf,
+	"uu":            leaf,
+})
 
 var geojsonKeys = mapping(map[string]*keys{
 	"file":     leaf,
@@ -64,11 +102,12 @@ var schema = mapping(map[string]*keys{
 			"overhead_clearance": leaf,
 		}),
 		"rules": mapping(map[string]*keys{
+			"preset":          leaf,
 			"area_per_point":  leaf,
 			"max_spacing":     leaf,
 			"lattice":         leaf,
 			"min_points":      leaf,
-			"min_depth":       leaf,
+			"min_depth":       minDepthKeys,
 			"sampled_share":   leaf,
 			"methods":         leaf,
 			"sample_interval": leaf,
@@ -91,6 +130,13 @@ var schema = mapping(map[string]*keys{
 		"gap":          leaf,
 		"time_limit_s": leaf,
 	}),
+	"lab": orScalar(mapping(map[string]*keys{
+		"program":      leaf,
+		"fine_share":   leaf,
+		"split_barrel": labShares,
+		"tube":         labShares,
+		"bag":          labShares,
+	})),
 })
 
 // settingKeys are the settings that may be overridden by the overrides map
@@ -150,8 +196,8 @@ func walkKeys(file, path string, n *yaml.Node, k *keys, depth int) error {
 	switch {
 	case k.fields != nil:
 		if n.Kind != yaml.MappingNode {
-			if n.Kind == yaml.ScalarNode && n.Tag == "!!null" {
-				return nil // an empty section; the decoder decides if it is needed
+			if n.Kind == yaml.ScalarNode && (n.Tag == "!!null" || k.scalarOK) {
+				return nil // an empty section or a plain value; the decoder decides
 			}
 			return &FieldError{File: file, Field: path, Problem: fmt.Sprintf("must be a mapping, got %s", kindName(n)),
 				Hint: "known keys: " + strings.Join(sortedKeys(k.fields), ", ")}
