@@ -86,6 +86,16 @@ func TestPresetFillsRules(t *testing.T) {
 		}
 	}
 
+	// One boring per 2,500 ft² of building area (common practice): the
+	// preset gives an area rule and no spacing, so no lattice applies. It
+	// sets no count, so the NAVFAC footprint minimum for 10,000 ft² (3)
+	// still applies.
+	z = mustZone(t, oneZone("ft", structureZone("110", "110", "2", "light", "{surface: firm}", "{preset: common-building-density, min_depth: 20}"), ""))
+	if z.Rules.AreaPerPointFt2 != 2500 || z.Rules.Origins["area_per_point"] != "preset common-building-density: common practice" ||
+		z.Rules.Origins["lattice"] != "" || z.Rules.MinPoints != 3 {
+		t.Errorf("density preset: %+v", z.Rules)
+	}
+
 	// A count preset is enough for a zone's point rule, and brings corners.
 	z = mustZone(t, oneZone("ft", openZone("{surface: firm}", "{preset: navfac-low-load-warehouse, min_depth: 20}"), ""))
 	if z.Rules.MinPoints != 4 || !z.Rules.Corners || z.Rules.Lattice != Triangular || z.Rules.Origins["lattice"] != "" {

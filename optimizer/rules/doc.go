@@ -35,6 +35,8 @@
 //   - FHWA GEC-5 (2002, FHWA-IF-02-034): walls longer than 30 m a point
 //     every 30–60 m; embankments and cut slopes every 60 m (erratic) to
 //     120 m (uniform).
+//   - Common practice, no published source: one boring per 2,500 ft² of
+//     building area (common-building-density).
 //   - TxDOT LRFD Geotechnical Manual (2024): wall borings at most 200 ft
 //     apart. UFC 3-250-12N: roads at most 300 ft along the centre line,
 //     100 ft where soils vary. UFGS 4-159-01: unknown site, about 200 ft

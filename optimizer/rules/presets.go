@@ -23,6 +23,8 @@ const (
 	SourceUFCTable7  = "UFC 3-220-10N Table 7"
 	SourceEN1997     = "EN 1997-2 Annex B.3"
 	SourceToRock     = "common practice"
+	// SourcePractice marks a fact of the trade with no published source.
+	SourcePractice = "common practice"
 )
 
 // Tags say how a value is known: "seen" when read in a stored copy of the
@@ -33,6 +35,8 @@ const (
 	TagSeen    = "seen"
 	TagMemory  = "memory"
 	TagDerived = "derived"
+	// TagPractice is a fact of the trade with no published source.
+	TagPractice = "common practice"
 )
 
 // Preset is a published exploration rule a scenario can name instead of
@@ -57,6 +61,9 @@ type Preset struct {
 
 // BaseTag returns the tag without any parenthesised qualifier.
 func (p Preset) BaseTag() string {
+	if strings.HasPrefix(p.Tag, TagPractice) {
+		return TagPractice
+	}
 	t, _, _ := strings.Cut(p.Tag, " ")
 	return t
 }
@@ -73,6 +80,15 @@ const alongNote = " Spacing is along the alignment; on a square lattice a narrow
 
 // presets lists every preset, in name order (checked by a test).
 var presets = []Preset{
+	{
+		Name: "common-building-density", Title: "Buildings: the common density of borings",
+		AreaPerPointFt2: 2500,
+		Source:          SourcePractice, Tag: TagPractice,
+		Note: "A density rule practitioners use, with no published source behind it: one boring per " +
+			"2,500 ft² of building footprint. On a square grid that is one point every 50 ft, the " +
+			"spacing NAVFAC gives for a large structure with closely spaced footings " +
+			"(navfac-closely-spaced-footings).",
+	},
 	{
 		Name: "das-dam-dike", Title: "Dams and dikes: borings about 40 m apart",
 		MaxSpacingFt: m(40), Lattice: "square",

@@ -32,7 +32,7 @@ func TestPresetsWellFormed(t *testing.T) {
 			t.Errorf("preset %q: empty title, source or note", p.Name)
 		}
 		switch p.BaseTag() {
-		case TagSeen, TagMemory, TagDerived:
+		case TagSeen, TagMemory, TagDerived, TagPractice:
 		default:
 			t.Errorf("preset %q: tag %q, want seen, memory or derived", p.Name, p.Tag)
 		}
@@ -60,8 +60,10 @@ func TestPresetValues(t *testing.T) {
 		minPoints int
 		minDepth  float64 // ft
 		corners   bool
+		areaFt2   float64
 	}
 	for name, w := range map[string]want{
+		"common-building-density":        {areaFt2: 2500},                  // one boring per 2,500 ft² of building area (common practice)
 		"das-multistory-building":        {lo: 10, hi: 30, metres: true},   // Das, after Sowers & Sowers (1970): 10–30 m
 		"das-one-story-industrial":       {lo: 20, hi: 60, metres: true},   // same: 20–60 m
 		"das-highway":                    {lo: 250, hi: 500, metres: true}, // same: 250–500 m
@@ -99,12 +101,15 @@ func TestPresetValues(t *testing.T) {
 		if w.lo != w.hi && !strings.Contains(p.Note, fmt.Sprintf("%g–%g", w.lo, w.hi)) {
 			t.Errorf("%s: note %q does not record the published range %g–%g", name, p.Note, w.lo, w.hi)
 		}
+		if p.AreaPerPointFt2 != w.areaFt2 {
+			t.Errorf("%s: one point per %g ft², want %g", name, p.AreaPerPointFt2, w.areaFt2)
+		}
 		if p.MinPoints != w.minPoints || p.MinDepthFt != w.minDepth || p.Corners != w.corners {
 			t.Errorf("%s: min points %d, min depth %g ft, corners %v; want %d, %g, %v",
 				name, p.MinPoints, p.MinDepthFt, p.Corners, w.minPoints, w.minDepth, w.corners)
 		}
 	}
-	if got, want := len(Presets()), 18; got != want {
+	if got, want := len(Presets()), 19; got != want {
 		t.Errorf("%d presets, the table above checks %d", got, want)
 	}
 }
@@ -134,6 +139,14 @@ func TestPresetSourcesInSourcesTable(t *testing.T) {
 	for _, p := range Presets() {
 		if !strings.Contains(table, p.Source) {
 			t.Errorf("preset %q: source %q is not in SOURCES.md", p.Name, p.Source)
+		}
+		if p.BaseTag() == TagPractice {
+			// A fact of the trade has no row; the table's preamble says
+			// such facts are marked common practice.
+			if !strings.Contains(table, "common practice") {
+				t.Errorf("preset %q: SOURCES.md does not mention common practice", p.Name)
+			}
+			continue
 		}
 		if !strings.Contains(table, "| "+p.Tag+" |") {
 			t.Errorf("preset %q: tag %q is not a tag in SOURCES.md", p.Name, p.Tag)
@@ -189,7 +202,8 @@ func presetsDoc() []byte {
 	b.WriteString("Generated from `rules.Presets()` by `go test ./optimizer/rules -run TestPresetsDoc -update`;\n")
 	b.WriteString("do not edit by hand. Spacings are on a square lattice; a blank cell means the rule does not\n")
 	b.WriteString("apply. Metric sources are converted exactly (1 ft = 0.3048 m). Tags: seen (read in a stored\n")
-	b.WriteString("copy), memory (recalled, not re-read), derived (computed from a named formula).\n\n")
+	b.WriteString("copy), memory (recalled, not re-read), derived (computed from a named formula), common\n")
+	b.WriteString("practice (a fact of the trade with no published source).\n\n")
 	b.WriteString("| name | rule | spacing ft | min points | corners | min depth ft | source | tag | note |\n")
 	b.WriteString("|---|---|---|---|---|---|---|---|---|\n")
 	num := func(v float64) string {
