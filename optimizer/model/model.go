@@ -19,6 +19,31 @@
 //	          T − d[r] ≥ 0
 //	          cost ≤ budget, T ≤ deadline       (optional)
 //
+// Two other objectives share the rows above (PRODUCT.md, "Objectives"):
+//
+// MinimizeDays replaces the objective by the finish T alone, with T an
+// integer column (it is bounded below by the integer d[r], so the least T is
+// an integer): the first stage of a lexicographic "fastest, then cheapest"
+// solve.
+//
+// MaximizeCoverage is the maximal covering form of Church and ReVelle,
+// "The maximal covering location problem", Papers of the Regional Science
+// Association 32, 1974 (from memory). The coverage rows are dropped and
+// every coverage cell c gets a column u[c] ∈ [0,1]:
+//
+//	maximize  Σ_c w[c] a[c] u[c]           (area weighted by zone priority)
+//	s.t.      u[c] − Σ_{o at p covering c} x[o] ≤ 0
+//	          cost ≤ budget                 (required)
+//
+// stated as a minimization of −100 Σ w a u / Σ w a (the weighted share
+// covered, in percent) plus a tie-break of at most 0.01 percent point that
+// prefers the cheaper of two plans covering the same. The per-zone minimum
+// counts are dropped too (a count is a coverage rule in another form, and
+// keeping it would make every budget under the full program infeasible);
+// the sampled shares, the required points, one option per point, the
+// linking rows and the days rows are kept. u may stay continuous: for fixed
+// x its best value is min(1, Σ x) ∈ {0,1}.
+//
 // The point-and-rig linking row is the disaggregated form of x ≤ y, whose LP
 // relaxation is far tighter than one aggregated big-M row per rig (the
 // standard result for fixed-charge facility location; Wolsey, Integer
@@ -76,6 +101,22 @@ type Spec struct {
 	MaxDays     float64 // 0: none; limit on the finish T
 	DaysWeight  float64 // objective weight of T (tie-break); 0 allowed
 	CostWeight  float64 // objective weight of cost; 0 means 1
+
+	// MinimizeDays makes the objective the finish T alone (see the
+	// package comment).
+	MinimizeDays bool
+	// MaximizeCoverage selects the maximal covering form over Cells
+	// (see the package comment); it needs Budget > 0.
+	MaximizeCoverage bool
+	// Cells are the coverage cells of the maximal covering form.
+	Cells []Cell
+}
+
+// Cell is a piece of ground for the maximal covering form.
+type Cell struct {
+	AreaFt2 float64
+	Weight  float64 // zone priority; 0 means 1
+	Points  []int   // candidate points within the covering radius
 }
 
 // Model is the built program and the map from its columns back to the spec.
@@ -89,6 +130,13 @@ type Model struct {
 	NCol    []int // zone → count column, -1 if none
 	SCol    []int // zone → sampled-count column, -1 if none
 	CostRow int   // row holding the cost (budget row), -1 if none
+	UCol    []int // cell → covered column (MaximizeCoverage), nil otherwise
+	// CountRow and ShareRow are, per zone, the rows that carry the zone's
+	// counting rules (-1 if none): count_z (Σ x − n = 0, whose dual prices
+	// one more point) and sampled_z (s − share·n ≥ 0). Rule-cost reports
+	// read their LP duals.
+	CountRow []int
+	ShareRow []int
 }
 
 // Errors returned by Build.
@@ -109,6 +157,28 @@ func Build(s *Spec) (*Model, error) {
 	if costW == 0 {
 		costW = 1
 	}
+	daysW := s.DaysWeight
+	if s.MaximizeCoverage && !(s.Budget > 0) {
+		return nil, fmt.Errorf("model: the maximal covering form needs a budget > 0, got %g", s.Budget)
+	}
+	if s.MinimizeDays && s.MaximizeCoverage {
+		return nil, errors.New("model: MinimizeDays and MaximizeCoverage exclude each other")
+	}
+	var totalWA float64
+	if s.MaximizeCoverage {
+		for _, c := range s.Cells {
+			totalWA += cellWeight(c) * c.AreaFt2
+		}
+		if !(totalWA > 0) {
+			return nil, errors.New("model: the maximal covering form needs cells with positive area")
+		}
+		// Tie-break: at most 0.01 percent point over the whole budget.
+		costW = 0.01 / s.Budget
+		daysW = 0
+	}
+	if s.MinimizeDays {
+		costW, daysW = 0, 1
+	}
 	b := newBuilder()
 	m := &Model{Spec: s, CostRow: -1}
 
@@ -128,10 +198,14 @@ func Build(s *Spec) (*Model, error) {
 	for r, rg := range s.Rigs {
 		m.DCol[r] = b.col("d_"+rg.Name, costW*rg.DayCost, 0, math.Inf(1), true)
 	}
-	m.TCol = b.col("finish_days", s.DaysWeight, 0, math.Inf(1), false)
+	m.TCol = b.col("finish_days", daysW, 0, math.Inf(1), s.MinimizeDays)
 
-	// Coverage rows.
-	for i, row := range s.CoverRows {
+	// Coverage rows (the maximal covering form has its own, below).
+	coverRows := s.CoverRows
+	if s.MaximizeCoverage {
+		coverRows = nil
+	}
+	for i, row := range coverRows {
 		var cols []int
 		seen := map[int]bool{}
 		for _, p := range row {
@@ -148,6 +222,29 @@ func Build(s *Spec) (*Model, error) {
 			return nil, fmt.Errorf("%w: zone %q has ground no candidate point can cover (no rig offered can explore there)", ErrNoOption, s.Zones[z].Name)
 		}
 		b.row(fmt.Sprintf("cover_%d", i), 1, math.Inf(1), cols, ones(len(cols)))
+	}
+	if s.MaximizeCoverage {
+		m.UCol = make([]int, len(s.Cells))
+		for c, cell := range s.Cells {
+			m.UCol[c] = b.col(fmt.Sprintf("u_c%d", c), -100*cellWeight(cell)*cell.AreaFt2/totalWA, 0, 1, false)
+			cols := []int{m.UCol[c]}
+			seen := map[int]bool{}
+			for _, p := range cell.Points {
+				if seen[p] {
+					continue
+				}
+				seen[p] = true
+				for _, o := range byPoint[p] {
+					cols = append(cols, m.XCol[o])
+				}
+			}
+			vals := make([]float64, len(cols))
+			for k := range vals {
+				vals[k] = -1
+			}
+			vals[0] = 1
+			b.row(fmt.Sprintf("covers_c%d", c), math.Inf(-1), 0, cols, vals)
+		}
 	}
 	// One option per point; required points exactly one.
 	for p, opts := range byPoint {
@@ -197,8 +294,14 @@ func Build(s *Spec) (*Model, error) {
 	// n ≥ n_min; Wolsey, Integer Programming, 1998, §8.2 — from memory).
 	m.NCol = make([]int, len(s.Zones))
 	m.SCol = make([]int, len(s.Zones))
+	m.CountRow = make([]int, len(s.Zones))
+	m.ShareRow = make([]int, len(s.Zones))
 	for z, zn := range s.Zones {
 		m.NCol[z], m.SCol[z] = -1, -1
+		m.CountRow[z], m.ShareRow[z] = -1, -1
+		if s.MaximizeCoverage {
+			zn.MinCount = 0 // counts dropped in the maximal covering form
+		}
 		var cols, sampled []int
 		for o, op := range s.Options {
 			if s.PointZone[op.Point] != z {
@@ -216,12 +319,12 @@ func Build(s *Spec) (*Model, error) {
 			continue
 		}
 		m.NCol[z] = b.col(fmt.Sprintf("n_z%d", z), 0, float64(zn.MinCount), math.Inf(1), true)
-		b.row(fmt.Sprintf("count_z%d", z), 0, 0, append(cols, m.NCol[z]), append(ones(len(cols)), -1))
+		m.CountRow[z] = b.row(fmt.Sprintf("count_z%d", z), 0, 0, append(cols, m.NCol[z]), append(ones(len(cols)), -1))
 		if zn.SampledShare > 0 {
 			lo := math.Ceil(zn.SampledShare*float64(zn.MinCount) - 1e-9)
 			m.SCol[z] = b.col(fmt.Sprintf("s_z%d", z), 0, lo, math.Inf(1), true)
 			b.row(fmt.Sprintf("sampledcount_z%d", z), 0, 0, append(sampled, m.SCol[z]), append(ones(len(sampled)), -1))
-			b.row(fmt.Sprintf("sampled_z%d", z), 0, math.Inf(1), []int{m.SCol[z], m.NCol[z]}, []float64{1, -zn.SampledShare})
+			m.ShareRow[z] = b.row(fmt.Sprintf("sampled_z%d", z), 0, math.Inf(1), []int{m.SCol[z], m.NCol[z]}, []float64{1, -zn.SampledShare})
 		}
 	}
 	// Field days and finish.
@@ -297,6 +400,13 @@ func (m *Model) Decode(x []float64) Solution {
 		}
 	}
 	return sol
+}
+
+func cellWeight(c Cell) float64 {
+	if c.Weight == 0 {
+		return 1
+	}
+	return c.Weight
 }
 
 func ones(n int) []float64 {
