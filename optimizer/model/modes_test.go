@@ -180,8 +180,8 @@ func TestModesAgainstBruteForce(t *testing.T) {
 // 0.01·cost/budget (arithmetic by hand).
 func TestMaxCoverHandCase(t *testing.T) {
 	s := &Spec{NumPoints: 2, PointZone: []int{0, 0}, HoursPerDay: 10,
-		Zones: []Zone{{Name: "z", MinCount: 2}}, // the count is dropped in this form
-		Rigs:  []Rig{{Name: "r", MobCost: 100, DayCost: 0}},
+		Zones:   []Zone{{Name: "z", MinCount: 2}}, // the count is dropped in this form
+		Rigs:    []Rig{{Name: "r", MobCost: 100, DayCost: 0}},
 		Options: []Option{{Point: 0, Rig: 0, Cost: 500, Hours: 2, Label: "a"}, {Point: 1, Rig: 0, Cost: 500, Hours: 2, Label: "b"}},
 		Cells:   []Cell{{AreaFt2: 300, Weight: 2, Points: []int{0}}, {AreaFt2: 400, Weight: 1, Points: []int{1}}},
 		Budget:  700, MaximizeCoverage: true,
