@@ -80,6 +80,7 @@ func (s *Solver) resetCosts() {
 // both primal and dual feasible for the true data.
 func (s *Solver) run() (Status, error) {
 	s.rng = rngSeed
+	s.feasTol = s.opt.feasTol()
 	s.resetCosts()
 	// The factorization survives bound and cost changes; only a new basis
 	// (SetBasis, first solve) needs a fresh one.
@@ -250,7 +251,11 @@ func (s *Solver) computeDual() {
 }
 
 func (s *Solver) primalTol(bound float64) float64 {
-	return s.opt.feasTol() * math.Max(1, math.Abs(bound))
+	a := math.Abs(bound)
+	if a < 1 {
+		a = 1
+	}
+	return s.feasTol * a
 }
 
 // infeasibility of basic variable j: negative below lo, positive above up.
@@ -374,6 +379,43 @@ func (s *Solver) perturbCosts() {
 // a nonzero entry, values in s.rowAlpha.
 func (s *Solver) pivotRow(rho []float64) []int {
 	list := s.candIdx[:0]
+	// Row-wise work is the length of the rows where ρ is nonzero; when
+	// that approaches nnz(A), dot products down the nonbasic columns
+	// do the same arithmetic with sequential access and no scatter.
+	work := 0
+	for i, r := range rho {
+		if r != 0 {
+			work += s.rowStart[i+1] - s.rowStart[i]
+		}
+	}
+	if 2*work > len(s.colVal) {
+		for j := 0; j < s.n; j++ {
+			if s.stat[j] == stBasic {
+				continue
+			}
+			v := 0.0
+			for k := s.colStart[j]; k < s.colStart[j+1]; k++ {
+				v += rho[s.colRow[k]] * s.colVal[k]
+			}
+			if v != 0 {
+				s.rowAlpha[j] = v
+				list = append(list, j)
+			}
+		}
+	} else {
+		list = s.pivotRowByRows(rho, list)
+	}
+	for i, r := range rho {
+		if r != 0 && s.stat[s.n+i] != stBasic {
+			s.rowAlpha[s.n+i] = r
+			list = append(list, s.n+i)
+		}
+	}
+	s.candIdx = list
+	return list
+}
+
+func (s *Solver) pivotRowByRows(rho []float64, list []int) []int {
 	for i, r := range rho {
 		if r == 0 {
 			continue
@@ -394,13 +436,6 @@ func (s *Solver) pivotRow(rho []float64) []int {
 	for _, j := range list {
 		s.rowMark[j] = false
 	}
-	for i, r := range rho {
-		if r != 0 && s.stat[s.n+i] != stBasic {
-			s.rowAlpha[s.n+i] = r
-			list = append(list, s.n+i)
-		}
-	}
-	s.candIdx = list
 	return list
 }
 

@@ -58,7 +58,8 @@ type Solver struct {
 	needFactor bool
 	opt        Options
 
-	iters int
+	iters   int
+	feasTol float64 // s.opt.feasTol(), cached for the hot loops
 	// forcePrimal makes the first round use the primal simplex (tests).
 	forcePrimal bool
 	rng         uint64
@@ -89,7 +90,7 @@ func New(p *Problem, opt Options) (*Solver, error) {
 		return nil, err
 	}
 	m, n := p.NumRows, p.NumCols
-	s := &Solver{m: m, n: n, opt: opt}
+	s := &Solver{m: m, n: n, opt: opt, feasTol: opt.feasTol()}
 	s.prob = Problem{
 		NumRows:  m,
 		NumCols:  n,
@@ -206,7 +207,10 @@ func Solve(p *Problem, opt Options) (*Result, error) {
 }
 
 // SetOptions replaces the options used by later solves.
-func (s *Solver) SetOptions(opt Options) { s.opt = opt }
+func (s *Solver) SetOptions(opt Options) {
+	s.opt = opt
+	s.feasTol = opt.feasTol()
+}
 
 func (s *Solver) checkCol(j int) {
 	if j < 0 || j >= s.n {
