@@ -23,6 +23,19 @@ const Name = "excavator"
 // no sign of cave-in, or all in stable rock).
 const ProtectionDepthFt = 5.0
 
+// EgressDepthFt is the depth from which an excavation needs a safe means
+// of egress — a ladder, steps or a ramp — within 25 ft of lateral travel
+// (OSHA 29 CFR 1926.651(c)(2)). Nobody enters a pit 4 ft or deeper without
+// it, nor without bracing or benching (common practice).
+const EgressDepthFt = 4.0
+
+// BagSamples is the number of bag samples taken in a pit depthFt deep
+// sampled every intervalFt (0: the default): at 2.5 ft, 5 ft, then every
+// interval (fieldwork.SampleDepths). The lab allowance counts these.
+func BagSamples(depthFt, intervalFt float64) int {
+	return len(fieldwork.SampleDepths(depthFt, intervalFt))
+}
+
 // Info describes the rig.
 var Info = sdk.RigInfo{
 	Name:  Name,
@@ -87,16 +100,23 @@ func point(s sdk.Site) (sdk.Hours, []sdk.Quantity) {
 		Grouting: backfillHr + backfillHrPerFt*s.DepthFt, // backfill is a pit's abandonment
 		Teardown: teardownHr,
 	}
-	samples := fieldwork.SampleDepths(s.DepthFt, s.SampleIntervalFt)
-	h.Sampling = sampleHr * float64(len(samples))
+	samples := BagSamples(s.DepthFt, s.SampleIntervalFt)
+	h.Sampling = sampleHr * float64(samples)
 	protect := s.DepthFt >= ProtectionDepthFt
 	if protect {
 		h.Advance += protectionHr
 	}
-	qs := []sdk.Quantity{fieldwork.Qty("pit-excavation", fieldwork.UnitHr, h.Total(),
-		fmt.Sprintf("dig, log, sample (%d bag samples) and backfill a %.4g-ft test pit", len(samples), s.DepthFt))}
+	note := fmt.Sprintf("dig, log, sample (%d bag samples) and backfill a %.4g-ft test pit", samples, s.DepthFt)
+	if s.DepthFt >= EgressDepthFt {
+		note += "; a ladder or ramp within 25 ft for anyone entering (OSHA 29 CFR 1926.651(c)(2))"
+	}
+	qs := []sdk.Quantity{fieldwork.Qty(fieldwork.ItemPitExcavation, fieldwork.UnitHr, h.Total(), note)}
 	if protect {
-		qs = append(qs, fieldwork.Qty("pit-protection", fieldwork.UnitEach, 1,
+		// One protective system per pit, whatever its depth up to the
+		// rig's reach: the walls of one pit are sloped, benched or shored
+		// once (29 CFR 1926.652(a)(1)); deeper than 20 ft would need an
+		// engineer's design (Subpart P, App. B and F), past this rig's reach.
+		qs = append(qs, fieldwork.Qty(fieldwork.ItemPitProtection, fieldwork.UnitEach, 1,
 			"sloping, benching or shoring for a pit 5 ft or deeper (OSHA 29 CFR 1926.652(a)(1))"))
 	}
 	if s.Environmental {

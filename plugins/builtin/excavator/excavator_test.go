@@ -2,8 +2,10 @@ package excavator
 
 import (
 	"context"
+	"strings"
 	"testing"
 
+	"github.com/rigmix/rigmix/optimizer/lab"
 	"github.com/rigmix/rigmix/plugins/builtin/internal/rigtest"
 	"github.com/rigmix/rigmix/plugins/sdk"
 )
@@ -57,6 +59,73 @@ func TestProtection(t *testing.T) {
 	}
 	if _, ok := rigtest.Amount(a[1].Quantities, "idw-drum"); ok {
 		t.Error("idw-drum on a site that is not environmental")
+	}
+}
+
+// TestSafetyPerPit: OSHA 29 CFR 1926.652(a)(1) asks for a protective
+// system from 5 ft unless in stable rock; 1926.651(c)(2) a means of egress
+// from 4 ft. Nobody enters a pit deeper than 4 ft without bracing or
+// benching and a ladder (common practice). The protective system is one
+// per pit whatever its depth, described with its OSHA clause.
+func TestSafetyPerPit(t *testing.T) {
+	r := rigtest.Serve(t, New())
+	tests := []struct {
+		depthFt    float64
+		protection float64
+		egress     bool
+	}{
+		{3.9, 0, false},
+		{4, 0, true}, // 1926.651(c)(2): 4 ft or more
+		{4.9, 0, true},
+		{5, 1, true}, // 1926.652(a)(1): from 5 ft
+		{9, 1, true},
+		{14, 1, true}, // still one per pit at the rig's reach
+	}
+	var sites []sdk.Site
+	for _, tc := range tests {
+		sites = append(sites, sdk.Site{ID: "p", Method: sdk.TestPit, DepthFt: tc.depthFt, Surface: sdk.Firm})
+	}
+	answers := rigtest.Assess(t, r, sites...)
+	for i, tc := range tests {
+		a := answers[i]
+		got, _ := rigtest.Amount(a.Quantities, "pit-protection")
+		if got != tc.protection {
+			t.Errorf("%g-ft pit: pit-protection %g, want %g", tc.depthFt, got, tc.protection)
+		}
+		for _, q := range a.Quantities {
+			switch q.Item {
+			case "pit-protection":
+				if q.Unit != "each" || !strings.Contains(q.Note, "29 CFR 1926.652(a)(1)") {
+					t.Errorf("%g-ft pit: protection %+v, want each, described with 1926.652(a)(1)", tc.depthFt, q)
+				}
+			case "pit-excavation":
+				if has := strings.Contains(q.Note, "1926.651(c)(2)"); has != tc.egress {
+					t.Errorf("%g-ft pit: egress in note %v, want %v (%q)", tc.depthFt, has, tc.egress, q.Note)
+				}
+			}
+		}
+	}
+	if EgressDepthFt != 4 || ProtectionDepthFt != 5 {
+		t.Errorf("egress from %g ft, protection from %g ft; OSHA 1926.651(c)(2) and 1926.652(a)(1) give 4 and 5", EgressDepthFt, ProtectionDepthFt)
+	}
+}
+
+// TestBagSamplesMatchLab checks that the lab allowance counts a pit's bag
+// samples as this rig takes them (optimizer/lab.PitBagSamples mirrors the
+// rule, so the plan can count them without asking the rig).
+func TestBagSamplesMatchLab(t *testing.T) {
+	for _, interval := range []float64{0, 1, 2, 2.5, 3, 5, 7.5, 10} {
+		for d := 0.5; d <= 14; d += 0.25 {
+			if got, want := BagSamples(d, interval), lab.PitBagSamples(d, interval); got != want {
+				t.Errorf("%g-ft pit every %g ft: excavator %d bag samples, lab counts %d", d, interval, got, want)
+			}
+		}
+	}
+	r := rigtest.Serve(t, New())
+	a := rigtest.Assess(t, r, sdk.Site{ID: "p", Method: sdk.TestPit, DepthFt: 12, Surface: sdk.Firm})[0]
+	// 2.5, 5, 10 ft (the default interval of 5 ft).
+	if q := a.Quantities[0]; !strings.Contains(q.Note, "(3 bag samples)") {
+		t.Errorf("12-ft pit note %q, want 3 bag samples", q.Note)
 	}
 }
 

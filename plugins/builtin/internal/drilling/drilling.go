@@ -115,7 +115,7 @@ func Point(r Rates) fieldwork.Point {
 		}
 		if len(samples) > 0 {
 			qs = append(qs, fieldwork.Qty(fieldwork.ItemSPTSample, fieldwork.UnitEach, float64(len(samples)),
-				"split-barrel samples with SPT (ASTM D1586) at "+fieldwork.DescribeDepths(samples)))
+				"split-barrel samples with SPT at "+fieldwork.DescribeDepths(samples)+"; "+fieldwork.SPTDriveNote))
 		}
 		h.Grouting = r.GroutSetupHr + r.GroutHrPerFt*s.DepthFt
 		qs = append(qs, fieldwork.Qty(fieldwork.ItemGroutBoring, fieldwork.UnitFt, s.DepthFt, "grout the hole full depth"))

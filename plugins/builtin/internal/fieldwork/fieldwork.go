@@ -75,6 +75,17 @@ const (
 	ContinuousSampleIntervalFt = sdk.ContinuousSampleIntervalFt
 )
 
+// The Standard Penetration Test drive (ASTM D1586): the split barrel is
+// driven 18 in in three 6-in increments and the blows of each increment
+// are recorded; the first increment seats the sampler and N is the sum of
+// the blows of the last two (12 in).
+const (
+	SPTDriveIn     = 18.0
+	SPTIncrementIn = 6.0
+	SPTSeatingIncr = 1 // increments that only seat the sampler
+	SPTDriveNote   = "18 in driven in three 6-in increments, N = blows of the last two (ASTM D1586)"
+)
+
 // firstSamplesFt are the two shallow samples taken before the regular
 // interval starts: at 2.5 ft (just below topsoil) and 5 ft (common practice).
 var firstSamplesFt = []float64{2.5, 5}

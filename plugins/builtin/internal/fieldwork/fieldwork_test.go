@@ -166,3 +166,26 @@ func TestMobilization(t *testing.T) {
 		t.Error("negative distance accepted")
 	}
 }
+
+// TestSPTDrive checks the drive the sample note describes against ASTM
+// D1586: 18 in in three 6-in increments, N from the last two; and that a
+// continuous-sampling barrel, 24 in (ContinuousSampleIntervalFt), holds
+// the drive (ASTM D1586 allows barrel halves 18–30 in long). Split-spoon
+// samplers are commonly 2 ft long with blows counted every 6 in (common
+// practice).
+func TestSPTDrive(t *testing.T) {
+	if n := SPTDriveIn / SPTIncrementIn; n != 3 {
+		t.Errorf("%g-in drive in %g-in increments: %g increments, want 3 (ASTM D1586)", SPTDriveIn, SPTIncrementIn, n)
+	}
+	if nIn := (SPTDriveIn/SPTIncrementIn - SPTSeatingIncr) * SPTIncrementIn; nIn != 12 {
+		t.Errorf("N counts %g in of drive, want the last 12 in (ASTM D1586)", nIn)
+	}
+	if barrelIn := ContinuousSampleIntervalFt * 12; barrelIn < SPTDriveIn || barrelIn > 30 || barrelIn != 24 {
+		t.Errorf("continuous barrel %g in: want 24 in (common practice), within ASTM D1586's 18–30 in", barrelIn)
+	}
+	for _, w := range []string{"18 in", "three 6-in increments", "last two", "ASTM D1586"} {
+		if !strings.Contains(SPTDriveNote, w) {
+			t.Errorf("SPTDriveNote %q does not say %q", SPTDriveNote, w)
+		}
+	}
+}
