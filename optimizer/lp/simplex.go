@@ -3,6 +3,7 @@ package lp
 import (
 	"context"
 	"errors"
+	"fmt"
 	"math"
 	"time"
 )
@@ -28,9 +29,21 @@ func (s *Solver) rand01() float64 {
 // dual simplex when the basis is dual feasible (after bound changes), the
 // primal simplex otherwise (after objective changes, or from scratch
 // when neither holds). The returned error is non-nil only for numerical
-// failure; infeasibility, unboundedness and limits are statuses.
+// failure (ErrNumerical) or for bounds set to NaN, a lower bound of +Inf
+// or an upper bound of −Inf (ErrInvalid); infeasibility (including a
+// lower bound above the upper), unboundedness and limits are statuses.
 func (s *Solver) Solve() (*Result, error) {
 	s.iters = 0
+	for j := 0; j < s.n+s.m; j++ {
+		lo, up := s.lo[j], s.up[j]
+		if math.IsNaN(lo) || math.IsNaN(up) || math.IsInf(lo, 1) || math.IsInf(up, -1) {
+			what, k := "column", j
+			if j >= s.n {
+				what, k = "row", j-s.n
+			}
+			return nil, fmt.Errorf("%w: %s %d has bounds that admit no finite value (NaN, lower +Inf or upper -Inf)", ErrInvalid, what, k)
+		}
+	}
 	for j := 0; j < s.n+s.m; j++ {
 		if s.lo[j] > s.up[j] {
 			return s.result(Infeasible), nil

@@ -221,6 +221,15 @@ func TestValidate(t *testing.T) {
 			t.Logf("%s: %v", tc.name, err)
 		}
 	}
+	s, _ := New(good(), Options{})
+	s.SetColBounds(1, math.Inf(1), math.Inf(1))
+	if _, err := s.Solve(); err == nil {
+		t.Error("Solve accepted a column with lower bound +Inf")
+	}
+	s.SetColBounds(1, 2, 1)
+	if r, err := s.Solve(); err != nil || r.Status != Infeasible {
+		t.Errorf("crossed column bounds: %v %v, want Infeasible", r, err)
+	}
 	if err := good().Validate(); err != nil {
 		t.Errorf("valid problem rejected: %v", err)
 	}
