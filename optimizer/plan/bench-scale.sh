@@ -1,0 +1,49 @@
+#!/usr/bin/env bash
+# Whole-plan scale run: invented sites of 1, 10, 100 and 1,000 acres and a
+# 20-mile corridor (rigmix gen-site), each planned by rigmix with stage
+# timings and peak memory, and its exported model solved by CBC single
+# thread in the same run. Prints one table. Needs cbc (Debian coinor-cbc)
+# and /usr/bin/time (Debian time).
+#
+#   bash optimizer/plan/bench-scale.sh [sizes...]   # default: 1 10 100 1000 corridor
+set -euo pipefail
+cd "$(dirname "$0")/../.."
+work=$(mktemp -d)
+trap 'rm -rf "$work"' EXIT
+go build -o "$work/rigmix" ./cmd/rigmix
+sizes=("$@")
+[ ${#sizes[@]} -gt 0 ] || sizes=(1 10 100 1000 corridor)
+
+printf '%-10s %7s %6s %6s %5s %9s %8s %8s %8s %9s %8s %7s %14s\n' \
+  site cands rows cols pts "total s" "solve s" "peak MB" gap "cbc s" ratio "cbc ok" "obj diff"
+for s in "${sizes[@]}"; do
+  if [ "$s" = corridor ]; then
+    "$work/rigmix" gen-site --miles 20 --seed 1 > "$work/site.yaml"; name="20 mi"
+  else
+    "$work/rigmix" gen-site --acres "$s" --seed 1 > "$work/site.yaml"; name="$s ac"
+  fi
+  /usr/bin/time -f '%e %M' -o "$work/time" "$work/rigmix" plan "$work/site.yaml" --quiet --timings \
+    --json "$work/plan.json" --model-mps "$work/model.mps" 2> "$work/timings" || true
+  read -r wall kb < <(tail -1 "$work/time")
+  solve=$(awk '/^  solve /{print $2}' "$work/timings")
+  gap=$(python3 -c "import json;print('%.3f%%'%(100*json.load(open('$work/plan.json'))['solver']['gap']))" 2>/dev/null || echo "-")
+  obj=$(python3 -c "import json;print(json.load(open('$work/plan.json'))['solver']['objective'])" 2>/dev/null || echo nan)
+  cands=$(python3 -c "import json;print(json.load(open('$work/plan.json'))['solver']['candidates'])" 2>/dev/null || echo -)
+  pts=$(python3 -c "import json;print(len(json.load(open('$work/plan.json'))['points']))" 2>/dev/null || echo -)
+  size=$(awk '/model .* rows/{print $2, $5}' "$work/timings")
+  start=$(date +%s.%N)
+  # CBC is asked for the same relative gap the scenario asks of rigmix (1%).
+  cbc "$work/model.mps" -threads 1 -ratioGap 0.01 -sec 600 -solve -quit > "$work/cbc.log" 2>&1 || true
+  end=$(date +%s.%N)
+  cbct=$(python3 -c "print('%.2f'%($end-$start))")
+  cbcobj=$(awk '/^Objective value:/{print $3}' "$work/cbc.log")
+  cbcok=$(grep -q 'Optimal solution found' "$work/cbc.log" && echo yes || echo no)
+  solve_s=$(python3 -c "
+s='$solve'
+v=float(s[:-2])/1000 if s.endswith('ms') else float(s[:-1]) if s.endswith('s') and not s.endswith('ms') else float('nan')
+print('%.2f'%v)")
+  ratio=$(python3 -c "print('%.1f'%($solve_s/max(1e-3,$cbct)))")
+  diff=$(python3 -c "a=float('$obj'); b=float('${cbcobj:-nan}'); print('%+.4f%%'%(100*(a-b)/max(1,abs(b))))")
+  printf '%-10s %7s %6s %6s %5s %9s %8s %8d %8s %9s %8s %7s %14s\n' \
+    "$name" "$cands" ${size:-- -} "$pts" "$wall" "$solve_s" $((kb/1024)) "$gap" "$cbct" "$ratio" "$cbcok" "$diff"
+done
