@@ -25,10 +25,11 @@ func (s *Solver) rand01() float64 {
 	return float64((s.rng*2685821657736338717)>>11) / (1 << 53)
 }
 
-// Solve solves the current problem starting from the current basis: the
-// dual simplex when the basis is dual feasible (after bound changes), the
-// primal simplex otherwise (after objective changes, or from scratch
-// when neither holds). The returned error is non-nil only for numerical
+// Solve solves the current problem starting from the current basis (warm
+// start): the dual simplex when the basis is dual feasible (as after
+// bound changes); otherwise, as after objective changes, a dual phase 1
+// on the auxiliary boxed problem and then the dual simplex, with the
+// primal simplex as fallback and for clean-up (see the package doc). The returned error is non-nil only for numerical
 // failure (ErrNumerical) or for bounds set to NaN, a lower bound of +Inf
 // or an upper bound of −Inf (ErrInvalid); infeasibility (including a
 // lower bound above the upper), unboundedness and limits are statuses.
