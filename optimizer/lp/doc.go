@@ -14,7 +14,7 @@
 //
 //	A x + s = 0,   ColLo ≤ x ≤ ColUp,   −RowUp ≤ s ≤ −RowLo,
 //
-// (Koberstein 2005, §2.2), so every constraint is a bound on a variable
+// (Koberstein 2005), so every constraint is a bound on a variable
 // and the logicals give the identity as a starting basis. A basis is m
 // of the n+m variables; the others are nonbasic at their lower bound, at
 // their upper bound, or (free variables) at zero. With B the basis
@@ -26,8 +26,8 @@
 //
 // # Algorithms
 //
-// Solve picks the method from the state of the basis (Koberstein 2005,
-// ch. 4; Bixby 2002 reports the dual simplex as the better default):
+// Solve picks the method from the state of the basis (after Koberstein
+// 2005; Bixby 2002 reports the dual simplex as the better default):
 //
 //   - dual feasible (always after bound changes, since boxed nonbasic
 //     variables are put at the bound their reduced cost calls for):
@@ -41,11 +41,11 @@
 //     Infeasible.
 //
 // Dual simplex (dual.go): dual steepest-edge pricing (Forrest & Goldfarb
-// 1992), the bound flipping ratio test (Fourer 1994; Koberstein 2005
-// §3.1.2) with Harris's (1973) two-pass tolerances, cost shifting when
+// 1992), the bound flipping ratio test (Fourer 1994; Koberstein 2005)
+// with Harris's (1973) two-pass tolerances, cost shifting when
 // the Harris step would leave the entering reduced cost wrong-signed, and
 // a random cost perturbation (fixed seed) against dual degeneracy
-// (Koberstein 2005 §6.2.2.3). Infeasibility is only reported when the
+// (Koberstein 2005). Infeasibility is only reported when the
 // pivot row proves it (the interval −Σ α_rj [l_j, u_j] that the row
 // allows for the leaving variable misses its violated bound); otherwise
 // the primal phase 1 decides.
@@ -53,8 +53,8 @@
 // Primal simplex (primal.go), used for the clean-up after the dual and
 // when the dual cannot start: composite phase 1 minimizing the sum of
 // bound violations (Maros 2003, ch. 9), then phase 2; Devex pricing in
-// the reference-framework form (Harris 1973; Forrest & Goldfarb 1992
-// §3); Harris ratio test; bound flips of a boxed entering variable.
+// the reference-framework form (Harris 1973; Forrest & Goldfarb 1992);
+// Harris ratio test; bound flips of a boxed entering variable.
 //
 // After either method the perturbation and shifts are removed, x, y and
 // d are recomputed, and the other method cleans up any infeasibility that
@@ -90,8 +90,8 @@
 //
 // Applied to the scaled problem: primal feasibility FeasTol·max(1,
 // |bound|) with FeasTol 1e-9 by default; dual feasibility OptTol 1e-9;
-// pivots |α| ≥ 1e-7 in the dual ratio test (Koberstein 2005 §6.2 lists
-// 1e-7…1e-9 as common practice); entries below 1e-12 are taken as zero in
+// pivots |α| ≥ 1e-7 in the dual ratio test (common practice; Koberstein 2005
+// discusses such values); entries below 1e-12 are taken as zero in
 // the primal ratio test; LU threshold 0.1 (Duff, Erisman & Reid 1986).
 //
 // # Determinism
@@ -101,6 +101,9 @@
 // same input gives the same output bit for bit.
 //
 // # References
+//
+// Cited by author and year; chapter numbers of books are from memory and
+// no page numbers are given.
 //
 //   - Bixby, R.E. (2002). Solving real-world linear programs: a decade and
 //     more of progress. Operations Research 50(1), 3–15.

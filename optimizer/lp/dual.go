@@ -3,9 +3,9 @@ package lp
 import "math"
 
 // dualSimplex runs the bounded dual simplex (phase 2) from a dual
-// feasible basis, following Koberstein (2005, Algorithm 4 with the bound
-// flipping ratio test of §3.1.2 and the dual steepest edge pricing of
-// §3.3, after Forrest & Goldfarb 1992).
+// feasible basis, following Koberstein (2005), with the bound flipping
+// ratio test and dual steepest edge pricing (after Forrest & Goldfarb
+// 1992) described there.
 //
 // Each iteration:
 //  1. Pricing: pick the basic variable p (position r) with the largest

@@ -91,7 +91,7 @@ type luFactor struct {
 // pivotRelTol is the threshold of threshold partial pivoting: a pivot
 // must be at least this fraction of the largest candidate in its column.
 // 0.1 is the common compromise between stability and sparsity (Duff,
-// Erisman & Reid, Direct Methods for Sparse Matrices, 1986, §7.8).
+// Erisman & Reid, Direct Methods for Sparse Matrices, 1986).
 const pivotRelTol = 0.1
 
 // singularTol: a reduced column whose largest entry is below this is
@@ -303,7 +303,7 @@ func (f *luFactor) clearEtas() {
 func (f *luFactor) numEtas() int { return len(f.etaPos) + len(f.rPiv) }
 
 // needRefactor reports whether the eta file is due for a fresh
-// factorization: after refactorEvery updates (Maros 2003 §8.2.2 discusses
+// factorization: after refactorEvery updates (Maros 2003 discusses
 // the trade-off; a rule on the eta nonzero count measured no better on
 // the OR-Library set-covering relaxations).
 func (f *luFactor) needRefactor() bool {

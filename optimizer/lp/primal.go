@@ -201,12 +201,8 @@ func (s *Solver) primalSimplex() (Status, error) {
 		if s.lo[p] == s.up[p] {
 			s.stat[p] = stLower
 		}
-		// Devex reference weights (Forrest & Goldfarb 1992, §3):
-		// w_j = max(w_j, (α_rj/α_rq)² w_q) for the pivot row; the pivot
-		// row is not computed here, so the leaving variable's weight is
-		// set from the entering one, a common simplification.
 		// Devex weights (Harris 1973; update as in Forrest & Goldfarb
-		// 1992, §3): with the pivot row α_r, w_j = max(w_j, (α_rj/α_rq)²
+		// 1992): with the pivot row α_r, w_j = max(w_j, (α_rj/α_rq)²
 		// w_q) for the other nonbasic j and w_p = max(w_q/α_rq², 1) for
 		// the leaving variable; the reference framework is reset when a
 		// weight grows past 1e6.

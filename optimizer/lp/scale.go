@@ -3,8 +3,8 @@ package lp
 import "math"
 
 // scalePasses is the number of alternating row/column geometric-mean
-// passes; a handful suffices in practice (Koberstein 2005 §6.1 and
-// Tomlin 1975 report most of the gain in the first few passes).
+// passes; a handful suffices in practice (common practice: most of the
+// gain comes in the first few passes, cf. Tomlin 1975).
 const scalePasses = 6
 
 // scaleFactors returns row factors r and column factors c, powers of 2,

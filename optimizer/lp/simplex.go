@@ -321,7 +321,7 @@ func (s *Solver) dualInfeasible() int {
 
 // makeDualFeasible moves boxed nonbasic variables to the bound their
 // reduced cost calls for (which keeps them dual feasible at no cost,
-// Koberstein 2005 §4.1) and reports whether the basis is then dual
+// Koberstein 2005) and reports whether the basis is then dual
 // feasible. Moved variables change x_B, which is recomputed.
 func (s *Solver) makeDualFeasible() bool {
 	tol := s.opt.optTol()
@@ -369,8 +369,8 @@ func (s *Solver) makeDualFeasible() bool {
 // perturbCosts adds a small random amount to the cost of each nonbasic
 // structural in the direction that widens its dual feasibility, to
 // break the dual degeneracy typical of combinatorial LPs (Koberstein
-// 2005 §6.2.2.3; magnitudes after the common practice there: relative
-// 1e-6 plus absolute 1e-7, times a random factor in [1, 2)).
+// 2005 describes the technique; the magnitudes, relative 1e-6 plus
+// absolute 1e-7 times a random factor in [1, 2), are our choice).
 func (s *Solver) perturbCosts() {
 	for j := 0; j < s.n; j++ {
 		st := s.stat[j]
@@ -468,8 +468,8 @@ func (s *Solver) ftranCol(j int, out []float64) {
 }
 
 // dualPhase1 seeks a dual feasible basis by solving, with the dual
-// simplex, the auxiliary problem of Fourer (1994) and Koberstein (2005,
-// §4.1.3): the same costs and matrix with every bound replaced by
+// simplex, the auxiliary problem of Fourer (1994) and Koberstein (2005):
+// the same costs and matrix with every bound replaced by
 //
 //	[0, 0] for boxed and fixed variables (always dual feasible by a flip),
 //	[0, 1] for variables with only a lower bound,

@@ -19,7 +19,7 @@ const (
 // solved warm.
 //
 // Internally the problem is put in the computational form of Koberstein
-// (2005, §2.2): one logical variable per row,
+// (2005): one logical variable per row,
 //
 //	A x + s = 0,   ColLo ≤ x ≤ ColUp,   −RowUp ≤ s ≤ −RowLo,
 //
@@ -31,7 +31,7 @@ type Solver struct {
 	m, n int
 	prob Problem // private copy
 
-	// Scaled copy of A by columns (R A C, Koberstein 2005 §6.1), the
+	// Scaled copy of A by columns (R A C, Koberstein 2005), the
 	// scaled costs C c, and the scale factors (powers of 2).
 	colStart []int
 	colRow   []int

@@ -58,9 +58,9 @@ var (
 	ErrNumerical = errors.New("lp: numerical trouble")
 )
 
-// Default tolerances. They apply to the scaled problem (see doc.go) and
-// follow the common practice surveyed by Koberstein (2005, §6.2), at the
-// tight end, since rigmix's models are small.
+// Default tolerances. They apply to the scaled problem (see the package
+// documentation) and are at the tight end of common practice (Koberstein
+// 2005 discusses the choice), since rigmix's models are small.
 const (
 	// DefaultFeasTol bounds the primal infeasibility accepted on a bound
 	// or row, relative to max(1, |bound|).
@@ -69,7 +69,7 @@ const (
 	// cost) accepted at optimality.
 	DefaultOptTol = 1e-9
 	// pivotTol is the smallest |α| accepted as a pivot in the ratio
-	// tests (Koberstein 2005, §6.2.2.2: 1e-7).
+	// tests (common practice; Koberstein 2005 discusses the choice).
 	pivotTol = 1e-7
 	// zeroTol: smaller entries of a transformed column are taken as
 	// round-off of zero in the primal ratio test, where skipping a real
@@ -77,7 +77,7 @@ const (
 	zeroTol = 1e-12
 	// refactorEvery is the number of basis updates after which the basis
 	// is refactorized from scratch (product-form eta file length); a
-	// value of the order of 100 is common practice (Maros 2003, ch. 8;
+	// value of the order of 100 is common practice (Maros 2003, ch. 8,
 	// from memory), and 50 measured faster than 100 on the OR-Library
 	// set-covering relaxations.
 	refactorEvery = 50
