@@ -2,6 +2,7 @@ package tradeoff
 
 import (
 	"context"
+	"errors"
 	"fmt"
 	"math"
 
@@ -38,6 +39,87 @@ type Frontier struct {
 	Balanced int `json:"balanced"`
 }
 
+// SpecPoint is one ε-constraint solve on a plain spec.
+type SpecPoint struct {
+	MaxDays int
+	Model   *model.Model
+	Result  *mip.Result
+	Sol     model.Solution // decoded; zero when Result.X is nil
+}
+
+// SpecFrontier is the raw ε-constraint sweep of a spec.
+type SpecFrontier struct {
+	FastestDays, FastestBound int
+	Points                    []SpecPoint // by ascending MaxDays
+}
+
+// EpsilonConstraint sweeps the day limit D over the integers from the
+// least finish to the cheapest plan's finish (at most maxPoints of them,
+// both ends kept) and solves min cost s.t. T ≤ D for each; s is not
+// changed. cheapest is a solve of s itself (no day limit): its plan
+// finishes in cheapestDays and is the least-cost plan with T ≤ that, so it
+// stands for the last point. The least finish is found first by minimizing
+// T alone (Spec.MinimizeDays).
+func EpsilonConstraint(ctx context.Context, s *model.Spec, cheapest *mip.Result, st Settings, maxPoints int) (*SpecFrontier, error) {
+	st = st.withDefaults()
+	if cheapest == nil || cheapest.X == nil {
+		return nil, errors.New("tradeoff: the ε-constraint sweep needs a solved cheapest plan")
+	}
+	base, err := model.Build(s)
+	if err != nil {
+		return nil, err
+	}
+	cheapestDays := base.Decode(cheapest.X).Finish
+	fs := *s
+	fs.MinimizeDays = true
+	fm, err := model.Build(&fs)
+	if err != nil {
+		return nil, err
+	}
+	res, err := mip.Solve(ctx, fm.Problem, st.mip())
+	if err != nil {
+		return nil, err
+	}
+	if res.X == nil {
+		return nil, fmt.Errorf("tradeoff: no plan found when minimizing field days (solver: %s)", res.Status)
+	}
+	out := &SpecFrontier{FastestDays: int(math.Round(res.Obj)), FastestBound: int(math.Ceil(res.Bound - 1e-6))}
+	if out.FastestDays > cheapestDays {
+		// The node limit stopped the first stage above the cheapest finish.
+		out.FastestDays = cheapestDays
+	}
+	ds := sweepDays(out.FastestDays, cheapestDays, maxPoints)
+	jobs := make([]func(context.Context) (SpecPoint, error), len(ds))
+	for k, d := range ds {
+		d := d
+		jobs[k] = func(ctx context.Context) (SpecPoint, error) {
+			if d == cheapestDays {
+				return SpecPoint{MaxDays: d, Model: base, Result: cheapest, Sol: base.Decode(cheapest.X)}, nil
+			}
+			v := *s
+			v.MaxDays = float64(d)
+			m, err := model.Build(&v)
+			if err != nil {
+				return SpecPoint{}, err
+			}
+			r, err := mip.Solve(ctx, m.Problem, st.mip())
+			if err != nil {
+				return SpecPoint{}, err
+			}
+			p := SpecPoint{MaxDays: d, Model: m, Result: r}
+			if r.X != nil {
+				p.Sol = m.Decode(r.X)
+			}
+			return p, nil
+		}
+	}
+	out.Points, err = runAll(ctx, st.Workers, jobs)
+	if err != nil {
+		return nil, err
+	}
+	return out, nil
+}
+
 // Frontier computes the cost–days frontier (once; later calls return it).
 func (a *Analyzer) Frontier(ctx context.Context) (*Frontier, error) {
 	if a.frontier != nil {
@@ -46,50 +128,19 @@ func (a *Analyzer) Frontier(ctx context.Context) (*Frontier, error) {
 	pr := a.pr
 	cheap := a.cheapest
 	f := &Frontier{Method: "epsilon-constraint (Haimes et al. 1971; Chankong & Haimes 1983)", GapRel: a.st.GapRel, CheapestDays: cheap.sum.FieldDays, Currency: pr.In.RateBook.Currency}
-
-	// Stage one of the fastest plan: the least finish alone.
-	fast, err := variant(pr, func(s *model.Spec) { s.MinimizeDays = true })
+	sf, err := EpsilonConstraint(ctx, pr.Spec, cheap.res, a.st, a.cfg.FrontierPoints)
 	if err != nil {
 		return nil, err
 	}
-	res, err := mip.Solve(ctx, fast.Model.Problem, a.st.mip())
-	if err != nil {
-		return nil, err
-	}
-	if res.X == nil {
-		return nil, fmt.Errorf("tradeoff: no plan found when minimizing field days (solver: %s)", res.Status)
-	}
-	f.FastestDays = int(math.Round(res.Obj))
-	f.FastestBound = int(math.Ceil(res.Bound - 1e-6))
-	if f.FastestDays > f.CheapestDays {
-		// The node limit stopped stage one above the cheapest plan's finish.
-		f.FastestDays = f.CheapestDays
-	}
-
-	ds := sweepDays(f.FastestDays, f.CheapestDays, a.cfg.FrontierPoints)
-	jobs := make([]func(context.Context) (FrontierPoint, error), len(ds))
-	for k, d := range ds {
-		d := d
-		jobs[k] = func(ctx context.Context) (FrontierPoint, error) {
-			if d == f.CheapestDays {
-				// The cheapest plan finishes in d days, so it is also the
-				// least-cost plan with T ≤ d.
-				return FrontierPoint{MaxDays: d, BoundCost: boundCost(cheap.res, pr.Spec, d), Summary: relabel(cheap.sum, d)}, nil
-			}
-			v, err := variant(pr, func(s *model.Spec) { s.MaxDays = float64(d) })
-			if err != nil {
-				return FrontierPoint{}, err
-			}
-			o, err := solveVariant(ctx, v, a.st, a.cfg.FeatureDiameterFt, "")
-			if err != nil {
-				return FrontierPoint{}, err
-			}
-			return FrontierPoint{MaxDays: d, BoundCost: boundCost(o.res, v.Spec, d), Summary: relabel(o.sum, d)}, nil
+	f.FastestDays, f.FastestBound = sf.FastestDays, sf.FastestBound
+	for _, p := range sf.Points {
+		cp := *pr
+		cp.Spec, cp.Model = p.Model.Spec, p.Model
+		sum, err := summarize(&cp, p.Result, a.cfg.FeatureDiameterFt, "")
+		if err != nil {
+			return nil, err
 		}
-	}
-	f.Swept, err = runAll(ctx, a.st.Workers, jobs)
-	if err != nil {
-		return nil, err
+		f.Swept = append(f.Swept, FrontierPoint{MaxDays: p.MaxDays, BoundCost: boundCost(p.Result, p.Model.Spec, p.MaxDays), Summary: relabel(sum, p.MaxDays)})
 	}
 	f.Points = nonDominated(f.Swept)
 	f.Balanced = balanced(f.Points)

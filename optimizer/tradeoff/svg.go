@@ -29,6 +29,7 @@ type chartMark struct {
 type chart struct {
 	title, xLabel, yLabel string
 	xMoney, yMoney        bool
+	xInteger              bool // x is a count: whole-number ticks
 	line                  []xy // the main series, joined
 	hollow                []xy // other points, hollow circles
 	marks                 []chartMark
@@ -39,11 +40,14 @@ func f1(v float64) string { return strconv.FormatFloat(v, 'f', 1, 64) }
 
 // niceTicks returns about n round tick values covering [lo, hi] (the
 // 1-2-5 rule of axis labelling).
-func niceTicks(lo, hi float64, n int) []float64 {
+func niceTicks(lo, hi float64, n int, integer bool) []float64 {
 	if hi <= lo {
 		hi = lo + 1
 	}
 	raw := (hi - lo) / float64(n)
+	if integer && raw < 1 {
+		raw = 1
+	}
 	mag := math.Pow(10, math.Floor(math.Log10(raw)))
 	step := mag
 	for _, m := range []float64{1, 2, 5, 10} {
@@ -104,12 +108,12 @@ func (c *chart) write(w io.Writer) error {
 	fmt.Fprintf(&b, `<rect x="0" y="0" width="%d" height="%d" fill="#ffffff"/>`+"\n", chartW, chartH)
 	fmt.Fprintf(&b, `<text x="%d" y="24" font-size="15" font-weight="bold">%s</text>`+"\n", marginL, esc(c.title))
 	// Grid and ticks.
-	for _, t := range niceTicks(x0, x1, 6) {
+	for _, t := range niceTicks(x0, x1, 6, c.xInteger) {
 		x := sx(t)
 		fmt.Fprintf(&b, `<line x1="%s" y1="%d" x2="%s" y2="%d" stroke="#d0d0d0" stroke-width="1"/>`+"\n", f1(x), marginT, f1(x), chartH-marginB)
 		fmt.Fprintf(&b, `<text x="%s" y="%d" text-anchor="middle">%s</text>`+"\n", f1(x), chartH-marginB+18, esc(label(t, c.xMoney)))
 	}
-	for _, t := range niceTicks(y0, y1, 6) {
+	for _, t := range niceTicks(y0, y1, 6, false) {
 		y := sy(t)
 		fmt.Fprintf(&b, `<line x1="%d" y1="%s" x2="%d" y2="%s" stroke="#d0d0d0" stroke-width="1"/>`+"\n", marginL, f1(y), chartW-marginR, f1(y))
 		fmt.Fprintf(&b, `<text x="%d" y="%s" text-anchor="end">%s</text>`+"\n", marginL-8, f1(y+4), esc(label(t, c.yMoney)))
@@ -133,7 +137,25 @@ func (c *chart) write(w io.Writer) error {
 	for _, p := range c.hollow {
 		fmt.Fprintf(&b, `<circle cx="%s" cy="%s" r="4" fill="#ffffff" stroke="#000000" stroke-width="1"/>`+"\n", f1(sx(p.x)), f1(sy(p.y)))
 	}
+	// Marks at the same spot share one label.
+	var marks []chartMark
 	for _, m := range c.marks {
+		merged := false
+		for k := range marks {
+			if marks[k].at == m.at {
+				marks[k].label += ", " + m.label
+				if marks[k].shape == "" {
+					marks[k].shape = m.shape
+				}
+				merged = true
+				break
+			}
+		}
+		if !merged {
+			marks = append(marks, m)
+		}
+	}
+	for _, m := range marks {
 		x, y := sx(m.at.x), sy(m.at.y)
 		switch m.shape {
 		case "ring":
@@ -169,7 +191,7 @@ func WriteFrontierSVG(w io.Writer, f *Frontier) error {
 	c := &chart{
 		title:  "Cost and field days: least cost for each day limit",
 		xLabel: "field days (rigs in parallel)", yLabel: "total cost (" + cur + ")",
-		yMoney: true,
+		yMoney: true, xInteger: true,
 	}
 	on := map[int]bool{}
 	for _, p := range f.Points {
