@@ -868,7 +868,7 @@ func (d *decoder) ground(m map[string]any, p string) (Ground, error) {
 func (d *decoder) rules(m map[string]any, p string, z *Zone) (Rules, error) {
 	r := Rules{Origins: map[string]string{}}
 	set := func(key string) { r.Origins[key] = OriginScenario }
-	pre, err := d.preset(m, p)
+	pre, err := d.preset(m, p, z.ID)
 	if err != nil {
 		return r, err
 	}

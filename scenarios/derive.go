@@ -21,7 +21,7 @@ func presetNames() []string {
 
 // preset reads rules.preset: the name of a published rule set. nil when
 // the zone names none.
-func (d *decoder) preset(m map[string]any, p string) (*rules.Preset, error) {
+func (d *decoder) preset(m map[string]any, p string, zoneID string) (*rules.Preset, error) {
 	names := presetNames()
 	name, ok, err := d.str(m, p, "preset", "one of: "+strings.Join(names, ", "))
 	if err != nil || !ok {
@@ -30,7 +30,7 @@ func (d *decoder) preset(m map[string]any, p string) (*rules.Preset, error) {
 	pr, err := rules.Lookup(name)
 	if err != nil {
 		return nil, d.errf(p+".preset", suggestOneOf(name, names)+" (each listed with its source in optimizer/rules/PRESETS.md)",
-			"unknown preset %q", name)
+			"zone %s: unknown preset %q", zoneID, name)
 	}
 	return &pr, nil
 }

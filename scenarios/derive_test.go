@@ -250,7 +250,7 @@ func TestDerivedBadInput(t *testing.T) {
 		field, problem, hint string
 	}{
 		{"unknown preset", oneZone("ft", openZone("{surface: firm}", "{preset: navfac-soft-strta, min_depth: 20}"), ""),
-			"zones[0].rules.preset", `unknown preset "navfac-soft-strta"`, "did you mean navfac-soft-strata?"},
+			"zones[0].rules.preset", `zone A: unknown preset "navfac-soft-strta"`, "did you mean navfac-soft-strata?"},
 		{"stories without structure", oneZone("ft", openZone("{surface: firm}", "{max_spacing: 100, min_depth: {from: stories}}"), ""),
 			"zones[0].rules.min_depth.from", "zone A: depth rule from: stories is missing the number of stories", "use: structure"},
 		{"footing without width", oneZone("ft", openZone("{surface: firm}", "{max_spacing: 100, min_depth: {from: footing, bearing_pressure: 3000}}"), ""),

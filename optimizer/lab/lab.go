@@ -362,6 +362,18 @@ func PitBagSamples(depthFt, intervalFt float64) int {
 // sieve, hydrometer, Atterberg, consolidation, UCS, UU). A nil program is
 // the default program. Each total is rounded up to whole tests.
 func (p *Program) Quantities(c Counts) ([]sdk.Quantity, error) {
+	return p.quantities(c, true)
+}
+
+// Expected is Quantities without the rounding: the expected number of
+// each test, in fractions. It is linear in the counts, so a model can
+// charge each point its own share of the lab cost (for example one
+// boring's samples); the estimate uses Quantities on the whole program.
+func (p *Program) Expected(c Counts) ([]sdk.Quantity, error) {
+	return p.quantities(c, false)
+}
+
+func (p *Program) quantities(c Counts, round bool) ([]sdk.Quantity, error) {
 	if p == nil {
 		p = Default()
 	}
@@ -401,7 +413,10 @@ func (p *Program) Quantities(c Counts) ([]sdk.Quantity, error) {
 				parts = append(parts, part)
 			}
 		}
-		amount := math.Ceil(total - 1e-9)
+		amount := total
+		if round {
+			amount = math.Ceil(total - 1e-9)
+		}
 		if amount <= 0 {
 			continue
 		}

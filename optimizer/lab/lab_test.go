@@ -151,6 +151,40 @@ func TestQuantities(t *testing.T) {
 	}
 }
 
+// TestExpected: the unrounded amounts are linear in the counts, so two
+// borings' shares add up to the shares of both together, and rounding
+// them up gives Quantities.
+func TestExpected(t *testing.T) {
+	p := Default()
+	a, b := Counts{SplitBarrel: 7}, Counts{SplitBarrel: 5, Tube: 3}
+	ea, _ := p.Expected(a)
+	eb, _ := p.Expected(b)
+	eab, _ := p.Expected(a.Add(b))
+	sum := amounts(ea)
+	for k, v := range amounts(eb) {
+		sum[k] += v
+	}
+	whole := amounts(eab)
+	if len(sum) != len(whole) {
+		t.Fatalf("items %v and %v", sum, whole)
+	}
+	for k, v := range whole {
+		if math.Abs(sum[k]-v) > 1e-9 {
+			t.Errorf("%s: separately %g, together %g", k, sum[k], v)
+		}
+	}
+	q, _ := p.Quantities(a.Add(b))
+	for k, v := range amounts(q) {
+		if v != math.Ceil(whole[k]-1e-9) {
+			t.Errorf("%s: rounded %g, expected %g", k, v, whole[k])
+		}
+	}
+	// 12 split-barrel + 3 tube: moisture exactly 15, UU 0.3.
+	if whole[ItemMoisture] != 15 || math.Abs(whole[ItemUU]-0.3) > 1e-12 {
+		t.Errorf("expected %v", whole)
+	}
+}
+
 func TestQuantitiesNote(t *testing.T) {
 	p := Default()
 	p.FineShare = 0.5
