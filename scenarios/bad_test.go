@@ -90,6 +90,11 @@ func TestBadInput(t *testing.T) {
 		{"negative_time_limit", "solver.time_limit_s", "must be ≥ 0 s, got -1", ""},
 		{"bad_name", "name", `"Base Case" is not a valid name`, ""},
 		{"origin_out_of_range", "origin.lat", "must be ≤ 85, got 141.25", ""},
+		{"unknown_preset", "zones[1].rules.preset", `zone B: unknown preset "navfac-soft-strta"`, "did you mean navfac-soft-strata?"},
+		{"depth_without_stories", "zones[0].rules.min_depth.from", "zone A: depth rule from: stories is missing the number of stories", "structure"},
+		{"footing_without_pressure", "zones[1].rules.min_depth.bearing_pressure", "zone B: depth rule from: footing is missing bearing_pressure", "psf"},
+		{"rock_without_depth", "zones[1].rules.min_depth.from", "zone B: depth rule from: rock is missing the depth to rock", "rock_depth"},
+		{"unknown_lab_program", "lab.program", `unknown lab program "ful"`, "default"},
 	}
 	covered := map[string]bool{}
 	for _, tc := range tests {
