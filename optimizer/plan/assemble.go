@@ -109,7 +109,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 			Method: string(od.method), Rig: pr.Rigs[od.rig].name,
 			DepthFt: od.depth, Hours: round(pr.Spec.Options[o].Hours, 2),
 			OnPointHours: round(od.prof.answer.Hours.Total(), 2), Surface: string(zn.Ground.Surface),
-			Cost: round(od.prof.cost, 2), Required: c.Required,
+			Cost: round(od.prof.cost, 2), Required: c.Required || c.Corner,
 		}
 		if od.method == sdk.Boring {
 			pt.SampleIntervalFt = zn.Rules.SampleIntervalFt
@@ -188,6 +188,16 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 	}
 
 	p.Excluded = pr.excluded()
+	if b := pr.baseline(); b != nil {
+		// Both costs unrounded (the plan's from the model), so that a
+		// baseline that is the plan itself saves exactly nothing.
+		b.Saving = round(b.Cost-sol.Cost, 2)
+		if b.Cost > 0 {
+			b.SavingPct = round(100*b.Saving/b.Cost, 2)
+		}
+		b.DaysSaved = b.FieldDays - p.Finish
+		p.Baseline = b
+	}
 	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth, pr.farthestCell(chosenPoint))
 	pb := pr.Model.Problem
 	p.Solver = SolverInfo{

@@ -19,6 +19,7 @@ type Plan struct {
 	Finish   int         `json:"field_days"` // days until the last rig is done (rigs in parallel)
 	Rules    []RuleCheck `json:"rules"`
 	Coverage Coverage    `json:"coverage"`
+	Baseline *Baseline   `json:"hand_grid_baseline,omitempty"`
 	Solver   SolverInfo  `json:"solver"`
 	Excluded []Excluded  `json:"excluded_options"`
 	Warnings []string    `json:"warnings"`

@@ -106,6 +106,12 @@ func TestDemoPlansHoldTogether(t *testing.T) {
 					t.Errorf("rule not met: %+v", r)
 				}
 			}
+			// The hand-laid grid meets the same rules (gaps filled, all
+			// sampled borings, one rig), so it is a feasible plan: the
+			// optimized plan can cost no more, up to the solver's gap.
+			if b := p.Baseline; b != nil && b.Saving < -p.Solver.Gap*b.Cost-0.01 {
+				t.Errorf("the hand-laid grid (%+v) is cheaper than the optimized plan", *b)
+			}
 			if len(p.Cautions) != len(Cautions) {
 				t.Errorf("plan carries %d cautions, want all %d", len(p.Cautions), len(Cautions))
 			}

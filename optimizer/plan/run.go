@@ -261,7 +261,9 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 	}
 	for p, c := range lay.Candidates {
 		spec.PointZone[p] = c.Zone
-		spec.Required[p] = c.Required
+		// A corner candidate exists only when the zone's rule asks for a
+		// point at each corner (Rules.Corners), so it is required too.
+		spec.Required[p] = c.Required || c.Corner
 		zn := sc.Zones[c.Zone]
 		for ri := range pr.Rigs {
 			rd := &pr.Rigs[ri]

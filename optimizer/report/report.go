@@ -96,6 +96,11 @@ func Text(w io.Writer, p *plan.Plan) error {
 	fmt.Fprintf(&b, "Program: %d points, %s total, %d field days (rigs in parallel), %.1f%% of ruled ground covered\n\n",
 		len(p.Points), money(p.Total, cur), p.Finish, p.Coverage.CoveredPercent)
 
+	if bl := p.Baseline; bl != nil {
+		fmt.Fprintf(&b, "Against a hand-laid grid (%s): %d points, %s, %d field days — this plan saves %s (%.1f%%) and %d field days\n\n",
+			bl.Note, bl.Points, money(bl.Cost, cur), bl.FieldDays, money(bl.Saving, cur), bl.SavingPct, bl.DaysSaved)
+	}
+
 	b.WriteString("Points by method and rig\n")
 	tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', tabwriter.AlignRight)
 	counts := map[[2]string]int{}
