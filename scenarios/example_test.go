@@ -30,3 +30,26 @@ func ExampleParse() {
 	// Output:
 	// site.yaml: yard_mile: unknown key (did you mean yard_miles?)
 }
+
+func ExampleRules_Origins() {
+	s, err := scenarios.LoadDemo("midrise", nil)
+	if err != nil {
+		panic(err)
+	}
+	for _, z := range s.Zones[:2] {
+		r := z.Rules
+		fmt.Printf("%s: spacing %.0f ft (%s lattice), depth %.1f ft\n", z.ID, r.MaxSpacingFt, r.Lattice, r.MinDepthFt)
+		for _, key := range []string{"max_spacing", "lattice", "min_depth"} {
+			fmt.Printf("  %-11s %s\n", key, r.Origins[key])
+		}
+	}
+	// Output:
+	// B1: spacing 50 ft (triangular lattice), depth 69.0 ft
+	//   max_spacing scenario
+	//   lattice     default: triangular
+	//   min_depth   computed: Sowers, in Das: D = 6·S^0.7 m, heavy building (formula from memory); S = 6 → 69.0 ft
+	// P1: spacing 75 ft (square lattice), depth 45.0 ft
+	//   max_spacing scenario
+	//   lattice     preset das-multistory-building: Das, Principles of Foundation Engineering, after Sowers & Sowers (1970)
+	//   min_depth   scenario
+}
