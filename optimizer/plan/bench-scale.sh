@@ -6,11 +6,12 @@
 # and /usr/bin/time (Debian time).
 #
 #   bash optimizer/plan/bench-scale.sh [sizes...]   # default: 1 10 100 1000 corridor
+#   RIGMIX_BIN=/path/to/rigmix bash optimizer/plan/bench-scale.sh   # measure a built binary
 set -euo pipefail
 cd "$(dirname "$0")/../.."
 work=$(mktemp -d)
 trap 'rm -rf "$work"' EXIT
-go build -o "$work/rigmix" ./cmd/rigmix
+if [ -n "${RIGMIX_BIN:-}" ]; then cp "$RIGMIX_BIN" "$work/rigmix"; else go build -o "$work/rigmix" ./cmd/rigmix; fi
 sizes=("$@")
 [ ${#sizes[@]} -gt 0 ] || sizes=(1 10 100 1000 corridor)
 
