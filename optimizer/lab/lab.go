@@ -10,8 +10,9 @@
 // fine-grained soil (silts and clays: hydrometer, Atterberg limits,
 // consolidation, strength) applies only to the share of samples expected to
 // be fine-grained, Program.FineShare; tube samples are taken in
-// fine-grained soil (ASTM D1587 is a sampler for cohesive soil), so every
-// tube sample counts as fine.
+// fine-grained soil (ASTM D1587 is a practice for tube sampling of
+// fine-grained soils; the title is from memory), so every tube sample
+// counts as fine.
 //
 // Quantities sums, for each test, count × soil share × test share over the
 // sample kinds and rounds the total up to whole tests:
