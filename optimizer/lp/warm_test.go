@@ -117,7 +117,14 @@ func TestBasisRestore(t *testing.T) {
 		}
 		b := s.Basis()
 		for j := 0; j < 3; j++ {
-			s.SetColBounds(j, p.ColLo[j], p.ColLo[j])
+			v := p.ColLo[j] // fix at a finite bound, or 0 if there is none
+			if math.IsInf(v, -1) {
+				v = p.ColUp[j]
+			}
+			if math.IsInf(v, 1) {
+				v = 0
+			}
+			s.SetColBounds(j, v, v)
 		}
 		if _, err := s.Solve(); err != nil {
 			t.Fatal(err)
