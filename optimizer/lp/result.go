@@ -9,6 +9,7 @@ func (s *Solver) result(st Status) *Result {
 	}
 	s.computeDual()
 	n, m := s.n, s.m
+	dualFeasible := st != Infeasible && s.dualInfeasible() == 0
 	res := &Result{
 		Status:      st,
 		X:           make([]float64, n),
@@ -16,6 +17,8 @@ func (s *Solver) result(st Status) *Result {
 		Dual:        make([]float64, m),
 		ReducedCost: make([]float64, n),
 		Iterations:  s.iters,
+
+		DualFeasible: dualFeasible,
 	}
 	for i := 0; i < m; i++ {
 		res.Dual[i] = s.rho[i] * s.rowScale[i]

@@ -129,4 +129,11 @@ type Result struct {
 	Dual        []float64 // y, length NumRows
 	ReducedCost []float64 // d = c − Aᵀy, length NumCols
 	Iterations  int       // simplex iterations (basis changes and bound flips)
+	// DualFeasible reports that the final basis is dual feasible for the
+	// true costs (every reduced cost has the sign its bound calls for).
+	// Obj is then a lower bound on the optimal value by weak duality even
+	// when Status is not Optimal — for instance after IterationLimit in
+	// the dual simplex, as in strong branching. It is false for
+	// Infeasible.
+	DualFeasible bool
 }

@@ -323,3 +323,38 @@ func TestDegenerateShapes(t *testing.T) {
 		}
 	}
 }
+
+// TestDualBoundAtLimit: a solve stopped by the iteration limit whose basis
+// is dual feasible reports an objective that does not exceed the optimum
+// (weak duality, e.g. Chvátal 1983, ch. 5).
+func TestDualBoundAtLimit(t *testing.T) {
+	rng := rand.New(rand.NewPCG(23, 29))
+	checked := 0
+	for k := 0; k < 80; k++ {
+		p := randomLP(rng, 15+rng.IntN(15), 20+rng.IntN(20), 0.3, 0)
+		full, err := Solve(p, Options{})
+		if err != nil || full.Status != Optimal {
+			continue
+		}
+		if !full.DualFeasible {
+			t.Errorf("instance %d: optimal result not flagged dual feasible", k)
+		}
+		for lim := 1; lim < full.Iterations; lim += 2 {
+			r, err := Solve(p, Options{MaxIterations: lim})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if r.Status != IterationLimit || !r.DualFeasible {
+				continue
+			}
+			checked++
+			if r.Obj > full.Obj+1e-7*math.Max(1, math.Abs(full.Obj)) {
+				t.Errorf("instance %d, limit %d: bound %g above the optimum %g", k, lim, r.Obj, full.Obj)
+			}
+		}
+	}
+	if checked < 50 {
+		t.Errorf("only %d dual-feasible stops checked", checked)
+	}
+	t.Logf("%d dual-feasible iteration-limit stops checked", checked)
+}
