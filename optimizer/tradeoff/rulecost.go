@@ -4,9 +4,11 @@ import (
 	"context"
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 
 	"github.com/rigmix/rigmix/optimizer/lp"
+	"github.com/rigmix/rigmix/optimizer/mip"
 	"github.com/rigmix/rigmix/optimizer/model"
 	"github.com/rigmix/rigmix/optimizer/plan"
 	"github.com/rigmix/rigmix/scenarios"
@@ -139,7 +141,7 @@ func (a *Analyzer) RuleCosts(ctx context.Context) ([]RuleCost, error) {
 				}
 				jobs = append(jobs, job{i, step, viaSpec(change, setZone(z, func(m *model.Zone) { m.MinCount = mc }))})
 			}
-			if duals != nil && pr.Model.NCol[z] >= 0 && cur == n {
+			if duals != nil && pr.Model.NCol[z] >= 0 && cur == n && cover < n {
 				// The reduced cost of the count column at its lower bound
 				// is the LP's price of one point more; so of one fewer.
 				v := roundTo(math.Max(0, duals.ReducedCost[pr.Model.NCol[z]]), 2)
@@ -162,14 +164,19 @@ func (a *Analyzer) RuleCosts(ctx context.Context) ([]RuleCost, error) {
 				job{i, true, viaSpec(fmt.Sprintf("share %.0f%% → %.0f%%", 100*r.SampledShare, 100*s1), setZone(z, func(m *model.Zone) { m.SampledShare = s1 }))},
 				job{i, false, viaSpec("no share rule", setZone(z, func(m *model.Zone) { m.SampledShare = 0 }))})
 			if duals != nil && pr.Model.ShareRow[z] >= 0 {
-				// Row s − share·n ≥ 0: ∂z/∂share = π·n (the sensitivity of
-				// an LP optimum to a matrix entry, −π_i x_j; Chvátal,
-				// Linear Programming, 1983, ch. 10 — from memory).
-				pi := duals.Dual[pr.Model.ShareRow[z]]
+				// The share acts through two places: the row s − share·n ≥ 0,
+				// where ∂z/∂share = π·n (the sensitivity of an LP optimum to
+				// a matrix entry, −π_i x_j; Chvátal, Linear Programming,
+				// 1983, ch. 10 — from memory), and the lower bound
+				// ⌈share·n_min⌉ of the sampled count s, priced by the
+				// reduced cost of s. The step's estimate sums both.
+				pi := math.Abs(duals.Dual[pr.Model.ShareRow[z]])
 				nLP := duals.X[pr.Model.NCol[z]]
-				v := roundTo(math.Max(0, math.Abs(pi)*nLP*ShareStep), 2)
+				nMin := float64(pr.Spec.Zones[z].MinCount)
+				dlb := math.Ceil(r.SampledShare*nMin-1e-9) - math.Ceil(s1*nMin-1e-9)
+				v := roundTo(pi*nLP*(r.SampledShare-s1)+math.Max(0, duals.ReducedCost[pr.Model.SCol[z]])*dlb, 2)
 				rules[i].LPEstimate = &v
-				rules[i].LPMeaning = "LP dual of the share row × points × 0.1: saving of the step (LP relaxation)"
+				rules[i].LPMeaning = "LP dual of the share row × points × step, plus the reduced cost of the sampled count × the drop in its lower bound (LP relaxation)"
 			}
 		}
 		if len(r.Methods) > 0 && len(r.Methods) < 4 {
@@ -205,7 +212,17 @@ func (a *Analyzer) RuleCosts(ctx context.Context) ([]RuleCost, error) {
 }
 
 // relaxed solves a relaxed program and prices it against the base cost.
+// When the relaxation leaves the program exactly as it was (a rule that
+// never binds the candidates or options, such as allowing a method no
+// offered rig performs), the engine would repeat the cheapest plan's solve
+// step for step — it is deterministic — so that solve is reused.
 func (a *Analyzer) relaxed(ctx context.Context, v *plan.Prepared, change string, base float64) (*Relaxation, error) {
+	if sameProblem(v.Model.Problem, a.pr.Model.Problem) {
+		c := a.cheapest
+		return &Relaxation{Change: change, Status: c.sum.Status, Feasible: true, Gap: c.sum.OptimalityGap, Cost: base,
+			MaxSaving: roundTo(base-boundCost(c.res, a.pr.Spec, c.sum.FieldDays), 2),
+			Note:      "the program is unchanged by this relaxation"}, nil
+	}
 	o, err := solveVariant(ctx, v, a.st, a.cfg.FeatureDiameterFt, change)
 	if err != nil {
 		return nil, err
@@ -231,4 +248,14 @@ func withZoneRules(in plan.Input, z int, edit func(*scenarios.Rules)) plan.Input
 	sc.Zones[z].Rules = r
 	in.Scenario = &sc
 	return in
+}
+
+// sameProblem reports whether two programs are identical in every number
+// the engine reads.
+func sameProblem(p, q *mip.Problem) bool {
+	return p.LP.NumRows == q.LP.NumRows && p.LP.NumCols == q.LP.NumCols && p.ObjOffset == q.ObjOffset &&
+		slices.Equal(p.LP.Obj, q.LP.Obj) && slices.Equal(p.LP.ColLo, q.LP.ColLo) && slices.Equal(p.LP.ColUp, q.LP.ColUp) &&
+		slices.Equal(p.LP.RowLo, q.LP.RowLo) && slices.Equal(p.LP.RowUp, q.LP.RowUp) &&
+		slices.Equal(p.LP.ColStart, q.LP.ColStart) && slices.Equal(p.LP.RowIndex, q.LP.RowIndex) &&
+		slices.Equal(p.LP.Value, q.LP.Value) && slices.Equal(p.Integer, q.Integer)
 }
