@@ -106,3 +106,53 @@ func benchFixings(x []float64) (fix []int, val []float64) {
 	}
 	return fix, val
 }
+
+// BenchmarkSCPDive imitates a branch and bound dive: from the LP optimum,
+// repeatedly fix the first fractional column (alternately to 0 and 1) and
+// re-solve warm without restoring the basis, up to 30 times or until
+// the LP is infeasible or integral. Reported per re-solve.
+func BenchmarkSCPDive(b *testing.B) {
+	dir := scpDir(b)
+	for _, name := range benchSCP {
+		p := readSCP(b, filepath.Join(dir, name+".txt"))
+		b.Run(name, func(b *testing.B) {
+			var cpu time.Duration
+			solves, iters := 0, 0
+			for b.Loop() {
+				s, err := New(p, Options{})
+				if err != nil {
+					b.Fatal(err)
+				}
+				r, err := s.Solve()
+				if err != nil {
+					b.Fatal(err)
+				}
+				c0 := processCPU()
+				for d := 0; d < 30 && r.Status == Optimal; d++ {
+					j := -1
+					for jj, x := range r.X {
+						if x > 1e-6 && x < 1-1e-6 {
+							j = jj
+							break
+						}
+					}
+					if j < 0 {
+						break
+					}
+					v := float64(d % 2)
+					s.SetColBounds(j, v, v)
+					if r, err = s.Solve(); err != nil {
+						b.Fatal(err)
+					}
+					solves++
+					iters += r.Iterations
+				}
+				cpu += processCPU() - c0
+			}
+			if solves > 0 {
+				b.ReportMetric(float64(cpu)/1e6/float64(solves), "cpu-ms/resolve")
+				b.ReportMetric(float64(iters)/float64(solves), "iters/resolve")
+			}
+		})
+	}
+}
