@@ -3,6 +3,7 @@ package mip
 import (
 	"context"
 	"math"
+	"math/rand/v2"
 	"reflect"
 	"testing"
 	"time"
@@ -176,6 +177,35 @@ func TestTwoThreadsDeterministic(t *testing.T) {
 		}
 		if runs[0].Status != Optimal || runs[0].Obj != want {
 			t.Errorf("%s: 2 threads give %v %v, want optimal %v", name, runs[0].Status, runs[0].Obj, want)
+		}
+	}
+}
+
+// TestRepairFindsPlanLikePoint: on problems shaped like an exploration
+// program model, the repair search must deliver a feasible incumbent
+// before the root LP (the first progress report comes at node 0), and
+// the final optimum must not be worse than that point.
+func TestRepairFindsPlanLikePoint(t *testing.T) {
+	rng := rand.New(rand.NewPCG(5, 8))
+	for k := 0; k < 10; k++ {
+		p := planLikeMIP(rng, 40+rng.IntN(60), 3)
+		var first *Progress
+		res, err := Solve(context.Background(), p, Options{Progress: func(pr Progress) {
+			if first == nil {
+				first = &pr
+			}
+		}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if first == nil || first.Nodes != 0 || math.IsInf(first.Incumbent, 1) {
+			t.Fatalf("problem %d: first progress %+v; want an incumbent before the root LP", k, first)
+		}
+		if res.Status != Optimal || res.Obj > first.Incumbent+1e-9 {
+			t.Errorf("problem %d: %v %v after a first point of %v", k, res.Status, res.Obj, first.Incumbent)
+		}
+		if _, ok := checkFeasible(p, res.X); !ok {
+			t.Errorf("problem %d: X infeasible", k)
 		}
 	}
 }

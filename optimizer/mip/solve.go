@@ -393,6 +393,15 @@ func (e *engine) run() (Status, error) {
 		}
 	}
 
+	// General MIPs: a first feasible point before the LP (the root LP of
+	// a large model can take long).
+	if e.cover == nil {
+		e.repair()
+		if e.stopped {
+			return e.stopStat, nil
+		}
+	}
+
 	root := &node{bound: math.Inf(-1), brVar: -1}
 	if e.curBound > root.bound {
 		root.bound = e.curBound

@@ -1,0 +1,245 @@
+package mip
+
+import (
+	"math"
+	"sort"
+)
+
+// Limits of the repair heuristic (common practice for weighted local
+// search: a budget proportional to the problem size).
+const (
+	repairMovesPerVar = 20
+	repairTabu        = 10
+)
+
+// repairSearch is a weighted-violation local search for a first feasible
+// point of a general MIP before any LP is solved, in the spirit of the
+// Feasibility Jump heuristic (Luteberget and Sartor 2023, Math. Prog.
+// Comp. 15:365–388): start at the bound nearest zero; repeatedly take a
+// violated row and move the one column of that row whose "jump" to the
+// value that satisfies the row lowers the weighted violation the most
+// (ties by objective); when no move helps, raise the row's weight. A
+// feasible point found is then improved by lowering (raising) columns of
+// positive (negative) cost as far as every row allows. The search is
+// deterministic: no randomness, a fixed move budget.
+type repairSearch struct {
+	e        *engine
+	x        []float64
+	act      []float64
+	w        []float64
+	viol     []int // violated rows in a deterministic order
+	pos      []int // position in viol, -1 if satisfied
+	rowStart []int
+	rowCol   []int
+	rowVal   []float64
+	lastMove []int
+	costW    float64
+}
+
+func (rs *repairSearch) violation(i int, act float64) float64 {
+	q := &rs.e.p.LP
+	lo, up := q.RowLo[i], q.RowUp[i]
+	tol := feasTol * 0.1
+	if act < lo-tol*(1+math.Abs(lo)) {
+		return lo - act
+	}
+	if act > up+tol*(1+math.Abs(up)) {
+		return act - up
+	}
+	return 0
+}
+
+func (rs *repairSearch) setViolated(i int, v bool) {
+	if v && rs.pos[i] < 0 {
+		rs.pos[i] = len(rs.viol)
+		rs.viol = append(rs.viol, i)
+	} else if !v && rs.pos[i] >= 0 {
+		k := rs.pos[i]
+		last := rs.viol[len(rs.viol)-1]
+		rs.viol[k] = last
+		rs.pos[last] = k
+		rs.viol = rs.viol[:len(rs.viol)-1]
+		rs.pos[i] = -1
+	}
+}
+
+// score is the change in weighted violation (plus a small objective
+// term) when column j moves to v.
+func (rs *repairSearch) score(j int, v float64) float64 {
+	q := &rs.e.p.LP
+	d := v - rs.x[j]
+	s := rs.costW * q.Obj[j] * d
+	for k := q.ColStart[j]; k < q.ColStart[j+1]; k++ {
+		i := q.RowIndex[k]
+		a := rs.act[i]
+		s += rs.w[i] * (rs.violation(i, a+q.Value[k]*d) - rs.violation(i, a))
+	}
+	return s
+}
+
+func (rs *repairSearch) move(j int, v float64) {
+	q := &rs.e.p.LP
+	d := v - rs.x[j]
+	rs.x[j] = v
+	for k := q.ColStart[j]; k < q.ColStart[j+1]; k++ {
+		i := q.RowIndex[k]
+		rs.act[i] += q.Value[k] * d
+		rs.setViolated(i, rs.violation(i, rs.act[i]) > 0)
+	}
+}
+
+// repair runs the search and offers any feasible point to the engine.
+// It reports whether the incumbent improved.
+func (e *engine) repair() bool {
+	q := &e.p.LP
+	n, m := e.n, e.m
+	rs := &repairSearch{e: e, x: make([]float64, n), act: make([]float64, m), w: make([]float64, m),
+		pos: make([]int, m), lastMove: make([]int, n)}
+	cmax := 0.0
+	for j := 0; j < n; j++ {
+		lo, up := e.glo[j], e.gup[j]
+		v := math.Max(lo, math.Min(up, 0))
+		if e.p.Integer[j] {
+			v = math.Max(math.Ceil(lo), math.Min(math.Floor(up), math.Round(v)))
+		}
+		rs.x[j] = v
+		cmax = math.Max(cmax, math.Abs(q.Obj[j]))
+		rs.lastMove[j] = -repairTabu - 1
+	}
+	// The objective only breaks ties between moves of equal violation.
+	rs.costW = 1e-3 / math.Max(1, cmax)
+	rs.rowStart = make([]int, m+1)
+	for _, i := range q.RowIndex[:q.ColStart[n]] {
+		rs.rowStart[i+1]++
+	}
+	for i := 0; i < m; i++ {
+		rs.rowStart[i+1] += rs.rowStart[i]
+	}
+	rs.rowCol = make([]int, q.ColStart[n])
+	rs.rowVal = make([]float64, q.ColStart[n])
+	next := append([]int(nil), rs.rowStart[:m]...)
+	for j := 0; j < n; j++ {
+		for k := q.ColStart[j]; k < q.ColStart[j+1]; k++ {
+			i := q.RowIndex[k]
+			rs.rowCol[next[i]] = j
+			rs.rowVal[next[i]] = q.Value[k]
+			next[i]++
+			rs.act[i] += q.Value[k] * rs.x[j]
+		}
+	}
+	for i := 0; i < m; i++ {
+		rs.w[i] = 1
+		rs.pos[i] = -1
+		rs.setViolated(i, rs.violation(i, rs.act[i]) > 0)
+	}
+	budget := repairMovesPerVar * (n + m)
+	for it := 0; it < budget && len(rs.viol) > 0; it++ {
+		if it%1024 == 0 && e.checkStop() {
+			return false
+		}
+		// Rotate through the violated rows deterministically.
+		i := rs.viol[(it*7919)%len(rs.viol)]
+		lo, up := q.RowLo[i], q.RowUp[i]
+		need := lo - rs.act[i]
+		if rs.act[i] > up {
+			need = up - rs.act[i]
+		}
+		best, bestScore := -1, math.Inf(1)
+		var bestVal float64
+		for k := rs.rowStart[i]; k < rs.rowStart[i+1]; k++ {
+			j, a := rs.rowCol[k], rs.rowVal[k]
+			if a == 0 || e.glo[j] == e.gup[j] {
+				continue
+			}
+			v := rs.x[j] + need/a
+			if e.p.Integer[j] {
+				if need/a > 0 {
+					v = math.Ceil(v - 1e-9)
+				} else {
+					v = math.Floor(v + 1e-9)
+				}
+			}
+			v = math.Max(e.glo[j], math.Min(e.gup[j], v))
+			if v == rs.x[j] {
+				continue
+			}
+			s := rs.score(j, v)
+			if it-rs.lastMove[j] <= repairTabu {
+				s += 1e6 // tabu: only if nothing else moves
+			}
+			if s < bestScore {
+				best, bestScore, bestVal = j, s, v
+			}
+		}
+		if best < 0 {
+			rs.w[i]++
+			continue
+		}
+		if bestScore >= 0 {
+			rs.w[i]++ // a local minimum: make this row count more
+		}
+		rs.move(best, bestVal)
+		rs.lastMove[best] = it
+	}
+	if len(rs.viol) > 0 {
+		return false
+	}
+	rs.lower()
+	return e.setIncumbent(append([]float64(nil), rs.x...))
+}
+
+// lower improves a feasible point: each column with positive cost is
+// lowered (negative cost: raised) as far as all its rows and bounds
+// allow, most expensive first, until nothing moves.
+func (rs *repairSearch) lower() {
+	e := rs.e
+	q := &e.p.LP
+	order := make([]int, e.n)
+	for j := range order {
+		order[j] = j
+	}
+	sortByAbsCostDesc(order, q.Obj)
+	for pass := 0; pass < 5; pass++ {
+		moved := false
+		for _, j := range order {
+			c := q.Obj[j]
+			if c == 0 {
+				continue
+			}
+			dir := -1.0
+			limit := rs.x[j] - e.glo[j]
+			if c < 0 {
+				dir = 1
+				limit = e.gup[j] - rs.x[j]
+			}
+			if limit <= 0 {
+				continue
+			}
+			for k := q.ColStart[j]; k < q.ColStart[j+1] && limit > 0; k++ {
+				i := q.RowIndex[k]
+				a := q.Value[k] * dir // activity change per unit step
+				switch {
+				case a < 0 && !math.IsInf(q.RowLo[i], -1):
+					limit = math.Min(limit, (rs.act[i]-q.RowLo[i])/-a)
+				case a > 0 && !math.IsInf(q.RowUp[i], 1):
+					limit = math.Min(limit, (q.RowUp[i]-rs.act[i])/a)
+				}
+			}
+			if e.p.Integer[j] {
+				limit = math.Floor(limit + 1e-9)
+			}
+			if limit <= 1e-12 || math.IsInf(limit, 1) {
+				continue
+			}
+			rs.move(j, rs.x[j]+dir*limit)
+			moved = true
+		}
+		if !moved {
+			break
+		}
+	}
+}
+
+func sortByAbsCostDesc(order []int, c []float64) {
+	sort.SliceStable(order, func(a, b int) bool { return math.Abs(c[order[a]]) > math.Abs(c[order[b]]) })
+}
