@@ -1,0 +1,219 @@
+package report
+
+import (
+	"bytes"
+	"encoding/xml"
+	"io"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+
+	"github.com/rigmix/rigmix/optimizer/geom"
+	"github.com/rigmix/rigmix/optimizer/plan"
+	"github.com/rigmix/rigmix/scenarios"
+)
+
+// sampleScenario is a small invented site that holds samplePlan's points
+// (for layout only; no value here is a check value from outside).
+func sampleScenario() *scenarios.Scenario {
+	return &scenarios.Scenario{
+		Name: "sample", Title: "Sample lot", Demo: true, Source: "demo:sample",
+		Note:     "Invented demo data for the report's layout tests.",
+		Boundary: poly(0, 0, 120, 0, 120, 70, 0, 70),
+		Zones: []scenarios.Zone{
+			{ID: "Z1", Name: "Shed <one story> & yard", Use: scenarios.UseStructure, Polygon: poly(0, 0, 80, 0, 80, 40, 0, 40)},
+			{ID: "Z2", Name: "Drive", Use: scenarios.UsePavement, Polygon: poly(80, 0, 120, 0, 120, 70, 80, 70)},
+		},
+		NoGo:       []scenarios.NoGo{{ID: "well", Reason: "Existing well", Polygon: poly(30, 5, 40, 5, 40, 12, 30, 12)}},
+		Rigs:       []string{"tire-drill", "cpt-rig"},
+		RateBook:   "book",
+		YardMiles:  12,
+		HoursDay:   10,
+		GapRel:     0.001,
+		TimeLimitS: 60,
+	}
+}
+
+// poly builds a polygon from x, y pairs in feet.
+func poly(xy ...float64) geom.Polygon {
+	out := make(geom.Polygon, 0, len(xy)/2)
+	for i := 0; i+1 < len(xy); i += 2 {
+		out = append(out, geom.Point{X: xy[i], Y: xy[i+1]})
+	}
+	return out
+}
+
+// checkGolden compares got with testdata/name, rewriting it under -update.
+func checkGolden(t *testing.T, name string, got []byte) {
+	t.Helper()
+	path := filepath.Join("testdata", name)
+	if *update {
+		if err := os.WriteFile(path, got, 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run go test ./optimizer/report -update to create it)", err)
+	}
+	if !bytes.Equal(got, want) {
+		t.Fatalf("%s differs from the golden file; run go test ./optimizer/report -update if intended\n%s", name, got)
+	}
+}
+
+// wellFormed parses b as strict XML (encoding/xml) to the end.
+func wellFormed(b []byte) error {
+	d := xml.NewDecoder(bytes.NewReader(b))
+	d.Strict = true
+	for {
+		_, err := d.Token()
+		if err == io.EOF {
+			return nil
+		}
+		if err != nil {
+			return err
+		}
+	}
+}
+
+func TestSiteMapGolden(t *testing.T) {
+	var b bytes.Buffer
+	if err := SiteMapSVG(&b, sampleScenario(), samplePlan()); err != nil {
+		t.Fatal(err)
+	}
+	if err := wellFormed(b.Bytes()); err != nil {
+		t.Fatalf("site map is not well-formed XML: %v", err)
+	}
+	var again bytes.Buffer
+	if err := SiteMapSVG(&again, sampleScenario(), samplePlan()); err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Equal(b.Bytes(), again.Bytes()) {
+		t.Fatal("two renders of the same plan differ")
+	}
+	checkGolden(t, "html-sitemap.svg.golden", b.Bytes())
+}
+
+// svgElement is the part of an SVG element the map checks look at.
+type svgElement struct {
+	name  string
+	attrs map[string]string
+	text  string
+}
+
+func svgElements(t *testing.T, b []byte) []svgElement {
+	t.Helper()
+	d := xml.NewDecoder(bytes.NewReader(b))
+	var out []svgElement
+	for {
+		tok, err := d.Token()
+		if err == io.EOF {
+			return out
+		}
+		if err != nil {
+			t.Fatal(err)
+		}
+		switch v := tok.(type) {
+		case xml.StartElement:
+			e := svgElement{name: v.Name.Local, attrs: map[string]string{}}
+			for _, a := range v.Attr {
+				e.attrs[a.Name.Local] = a.Value
+			}
+			out = append(out, e)
+		case xml.CharData:
+			if len(out) > 0 {
+				out[len(out)-1].text += string(v)
+			}
+		}
+	}
+}
+
+// TestSiteMapGeometry checks the drawing against the plan: north is up
+// (a point further north is drawn higher), east is right, distances keep
+// their ratio (one scale for both axes), and each method gets its shape and
+// each rig its letter.
+func TestSiteMapGeometry(t *testing.T) {
+	p := samplePlan()
+	// A third point due north of P001 by the distance P001–P002 is east
+	// of it, drawn by the first rig.
+	p.Points = append(p.Points, plan.Point{ID: "P003", Zone: "Z1", XFt: 10, YFt: 70.5, Method: "test_pit", Rig: "tire-drill", DepthFt: 8})
+	var b bytes.Buffer
+	if err := SiteMapSVG(&b, sampleScenario(), p); err != nil {
+		t.Fatal(err)
+	}
+	els := svgElements(t, b.Bytes())
+	// The marker of each point follows its <title> in the points group.
+	type xy struct{ x, y float64 }
+	pos := map[string]xy{}
+	shape := map[string]string{}
+	letter := map[string]string{}
+	for i, e := range els {
+		if e.name != "title" || i+2 >= len(els) {
+			continue
+		}
+		id, _, ok := strings.Cut(e.text, ":")
+		if !ok || !strings.HasPrefix(id, "P00") {
+			continue
+		}
+		m := els[i+1]
+		shape[id] = m.name
+		f := func(k string) float64 {
+			v, err := strconv.ParseFloat(m.attrs[k], 64)
+			if err != nil {
+				t.Fatalf("%s: %s=%q", id, k, m.attrs[k])
+			}
+			return v
+		}
+		switch m.name {
+		case "circle":
+			pos[id] = xy{f("cx"), f("cy")}
+		case "rect":
+			pos[id] = xy{f("x") + f("width")/2, f("y") + f("height")/2}
+		default: // paths: the letter sits at the centre
+		}
+		if els[i+2].name == "text" {
+			letter[id] = strings.TrimSpace(els[i+2].text)
+			if _, ok := pos[id]; !ok {
+				x, _ := strconv.ParseFloat(els[i+2].attrs["x"], 64)
+				pos[id] = xy{x, 0}
+			}
+		}
+	}
+	if shape["P001"] != "circle" || shape["P002"] != "path" || shape["P003"] != "rect" {
+		t.Fatalf("shapes by method: %v (want boring circle, CPT path, test pit rect)", shape)
+	}
+	if letter["P001"] != "A" || letter["P003"] != "A" || letter["P002"] != "B" {
+		t.Fatalf("rig letters %v: want tire-drill A (first in the plan's rigs), cpt-rig B", letter)
+	}
+	a, c := pos["P001"], pos["P003"]
+	if !(c.y < a.y) {
+		t.Fatalf("P003 is north of P001 but drawn at y %g, not above %g", c.y, a.y)
+	}
+	if pos["P002"].x <= a.x {
+		t.Fatalf("P002 is east of P001 but drawn at x %g, not right of %g", pos["P002"].x, a.x)
+	}
+	// Same feet, same pixels on both axes: 50.5 ft east vs 50.5 ft north.
+	east, north := pos["P002"].x-a.x, a.y-c.y
+	if d := east - north; d > 0.2 || d < -0.2 {
+		t.Fatalf("50.5 ft drawn as %g px east and %g px north: the axes do not share one scale", east, north)
+	}
+}
+
+func TestSiteMapNeedsScenario(t *testing.T) {
+	var b bytes.Buffer
+	if err := SiteMapSVG(&b, nil, samplePlan()); err == nil {
+		t.Fatal("no error without a scenario")
+	}
+}
+
+func TestNiceLength(t *testing.T) {
+	for _, c := range []struct{ in, want float64 }{
+		{30, 20}, {120, 100}, {260, 200}, {499, 200}, {500, 500}, {7, 5}, {1.5, 1},
+	} {
+		if got := niceLength(c.in); got != c.want {
+			t.Errorf("niceLength(%g) = %g, want %g", c.in, got, c.want)
+		}
+	}
+}
