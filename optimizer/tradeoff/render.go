@@ -241,3 +241,91 @@ func WriteRuleCostsCSV(w io.Writer, rules []RuleCost) error {
 	cw.Flush()
 	return cw.Error()
 }
+
+// WriteFrontierText prints the cost–days frontier: the non-dominated plans
+// and, after them, the swept day limits whose plans were dominated.
+func WriteFrontierText(w io.Writer, f *Frontier) error {
+	fmt.Fprintf(w, "Cost–days frontier (%s; each solve to a %.2g%% gap):\n", f.Method, 100*f.GapRel)
+	fmt.Fprintf(w, "fastest finish found %d days (proven bound %d); cheapest plan %d days\n", f.FastestDays, f.FastestBound, f.CheapestDays)
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
+	fmt.Fprintln(tw, "day limit\tfield days\ttotal cost\tcost bound\trigs\tpoints\topt. gap %\t\t")
+	on := map[int]bool{}
+	for _, p := range f.Points {
+		on[p.MaxDays] = true
+	}
+	bal := -1
+	if len(f.Points) > 0 {
+		bal = f.Points[f.Balanced].MaxDays
+	}
+	for _, p := range f.Swept {
+		if !p.Feasible {
+			fmt.Fprintf(tw, "%d\t%s\t\t\t\t\t\t\t\n", p.MaxDays, p.Status)
+			continue
+		}
+		mark := ""
+		switch {
+		case p.MaxDays == bal:
+			mark = "frontier, balanced"
+		case on[p.MaxDays]:
+			mark = "frontier"
+		default:
+			mark = "dominated"
+		}
+		fmt.Fprintf(tw, "%d\t%d\t%s\t%s\t%d\t%d\t%.2f\t%s\t\n", p.MaxDays, p.FieldDays, money(p.TotalCost), money(p.BoundCost),
+			p.RigsMobilized, p.Points, 100*p.OptimalityGap, mark)
+	}
+	return tw.Flush()
+}
+
+// WriteBudgetText prints the budget–coverage curve.
+func WriteBudgetText(w io.Writer, b *BudgetCurve) error {
+	fmt.Fprintf(w, "Budget–coverage curve (%s):\n", b.Method)
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
+	fmt.Fprintln(tw, "budget\tcost\tweighted covered %\tarea covered %\tpoints\trules met\topt. gap %\t\t")
+	for i, p := range b.Points {
+		if !p.Feasible {
+			fmt.Fprintf(tw, "%s\t%s\t\t\t\t\t\t\t\n", money(p.Budget), p.Status)
+			continue
+		}
+		var marks []string
+		if i == b.Full {
+			marks = append(marks, "every rule met")
+		}
+		if i == b.Knee {
+			marks = append(marks, "knee")
+		}
+		if p.FromLower {
+			marks = append(marks, "plan of a lower budget")
+		}
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%d\t%d/%d\t%.2f\t%s\t\n", money(p.Budget), money(p.TotalCost), pct(p.WeightedCoveredPct),
+			pct(p.AreaCoveredPct), p.Points, p.RulesMet, p.RulesTotal, 100*p.OptimalityGap, strings.Join(marks, ", "))
+	}
+	return tw.Flush()
+}
+
+// WriteText prints the whole analysis: alternatives, frontier, budget
+// curve and rule costs.
+func (an *Analysis) WriteText(w io.Writer) error {
+	fmt.Fprintf(w, "Trade-offs for scenario %s, rate book %s\n\n", an.Scenario, an.RateBook)
+	steps := []func() error{
+		func() error { return WriteAlternativesText(w, an.Alternatives, an.FeatureDiameterFt) },
+		func() error { return WriteFrontierText(w, an.Frontier) },
+		func() error { return WriteBudgetText(w, an.Budget) },
+		func() error {
+			base := 0.0
+			if len(an.Alternatives) > 0 {
+				base = an.Alternatives[0].TotalCost
+			}
+			return WriteRuleCostsText(w, an.RuleCosts, base)
+		},
+	}
+	for i, f := range steps {
+		if i > 0 {
+			fmt.Fprintln(w)
+		}
+		if err := f(); err != nil {
+			return err
+		}
+	}
+	return nil
+}

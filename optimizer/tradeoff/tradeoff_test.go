@@ -412,7 +412,7 @@ func TestAlternativesAndOutputs(t *testing.T) {
 		}
 		var b bytes.Buffer
 		for _, f := range []func() error{
-			func() error { return WriteAlternativesText(&b, an.Alternatives, an.FeatureDiameterFt) },
+			func() error { return an.WriteText(&b) },
 			func() error { return WriteAlternativesCSV(&b, an.Alternatives) },
 			func() error { return WriteFrontierCSV(&b, an.Frontier) },
 			func() error { return WriteFrontierSVG(&b, an.Frontier) },
