@@ -54,11 +54,17 @@
 // when the dual cannot start: composite phase 1 minimizing the sum of
 // bound violations (Maros 2003, ch. 9), then phase 2; Devex pricing in
 // the reference-framework form (Harris 1973; Forrest & Goldfarb 1992);
-// Harris ratio test; bound flips of a boxed entering variable.
+// Harris ratio test; bound flips of a boxed entering variable. A phase 1
+// that stops with bound violations reports Infeasible when the phase 1
+// multipliers y prove it (the range of yᵀ(A x + s) over the bounds
+// excludes zero) or, failing a proof, after one more pricing pass with a
+// thousand times smaller tolerance.
 //
 // After either method the perturbation and shifts are removed, x, y and
 // d are recomputed, and the other method cleans up any infeasibility that
-// appears.
+// appears. If that still leaves infeasibilities after eight rounds, the
+// basis is accepted when they are within a thousand times the
+// tolerances, else Solve returns ErrNumerical.
 //
 // # Linear algebra
 //
