@@ -17,9 +17,11 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"io/fs"
 	"os"
 	"os/exec"
 	"path/filepath"
+	"regexp"
 	"sort"
 	"strings"
 	"sync"
@@ -73,6 +75,8 @@ type Rig struct {
 	impl    sdk.Rig
 	client  *plugin.Client // nil when not run as a subprocess (tests)
 	timeout time.Duration
+	stderr  *tailWriter // the end of the plugin's own stderr; nil in tests
+	pid     int         // the plugin's process group id, when it leads its own group; else 0
 }
 
 var _ sdk.Rig = (*Rig)(nil)
@@ -158,7 +162,7 @@ func plan(opt Options) ([]launch, error) {
 	seen := map[string]bool{}
 	for _, name := range opt.Builtins {
 		if i := sort.SearchStrings(known, name); i == len(known) || known[i] != name {
-			return nil, fmt.Errorf("no built-in rig %q (built-in rigs: %s)", name, strings.Join(known, ", "))
+			return nil, inputError{fmt.Errorf("no built-in rig %q (built-in rigs: %s)", name, strings.Join(known, ", "))}
 		}
 		if seen[name] {
 			continue
@@ -178,7 +182,7 @@ func plan(opt Options) ([]launch, error) {
 			pinned[base] = true
 			sum, err := hex.DecodeString(strings.TrimSpace(hexSum))
 			if err != nil || len(sum) != sha256.Size {
-				return nil, fmt.Errorf("pin for %q: %q is not a SHA-256 digest (want 64 hex digits)", base, hexSum)
+				return nil, inputError{fmt.Errorf("pin for %q: %q is not a SHA-256 digest (want 64 hex digits)", base, hexSum)}
 			}
 			l.secure = &plugin.SecureConfig{Checksum: sum, Hash: sha256.New()}
 		}
@@ -192,7 +196,7 @@ func plan(opt Options) ([]launch, error) {
 	}
 	if len(missing) > 0 {
 		sort.Strings(missing)
-		return nil, fmt.Errorf("pins name %s, but no such executable is in the plugin folder %q", strings.Join(missing, ", "), opt.PluginDir)
+		return nil, inputError{fmt.Errorf("pins name %s, but no such executable is in the plugin folder %q", strings.Join(missing, ", "), opt.PluginDir)}
 	}
 	return out, nil
 }
@@ -207,6 +211,14 @@ func selfCommand(name string) *exec.Cmd {
 }
 
 func start(ctx context.Context, l launch, opt Options, logger hclog.Logger) (*Rig, error) {
+	// Each plugin leads a process group of its own, so that Close can end
+	// whatever it started too, and a Ctrl-C at the terminal reaches rigmix
+	// alone, which then stops the rigs in order.
+	grouped := ownProcessGroup(l.cmd)
+	tail := &tailWriter{}
+	// What the plugin prints on stdout or stderr once it serves is copied
+	// over go-plugin's stdio stream; it goes to the log, named by the rig.
+	stdio := logger.StandardWriter(&hclog.StandardLoggerOptions{InferLevels: true})
 	client := plugin.NewClient(&plugin.ClientConfig{
 		HandshakeConfig:  sdk.HandshakeConfig,
 		Plugins:          sdk.PluginMap,
@@ -216,17 +228,26 @@ func start(ctx context.Context, l launch, opt Options, logger hclog.Logger) (*Ri
 		Managed:          true,
 		StartTimeout:     opt.CallTimeout,
 		Logger:           logger,
+		Stderr:           tail,
+		SyncStdout:       stdio,
+		SyncStderr:       stdio,
 	})
+	pid := 0
 	fail := func(format string, args ...any) (*Rig, error) {
 		client.Kill()
+		killGroup(pid)
 		return nil, fmt.Errorf("%s: "+format, append([]any{l.label}, args...)...)
 	}
 	rpc, err := client.Client()
+	if grouped && l.cmd.Process != nil {
+		pid = l.cmd.Process.Pid
+	}
 	switch {
 	case errors.Is(err, plugin.ErrChecksumsDoNotMatch):
-		return fail("its SHA-256 digest does not match the pin; not run (re-pin it only if you trust the new file)")
+		_, err := fail("its SHA-256 digest does not match the pin; not run (re-pin it only if you trust the new file)")
+		return nil, inputError{err}
 	case err != nil:
-		return fail("did not start as a rigmix rig plugin (handshake failed): %v", err)
+		return fail("did not start as a rigmix rig plugin: %s", handshakeProblem(err, client, tail, opt.CallTimeout))
 	}
 	raw, err := rpc.Dispense(sdk.PluginName)
 	if err != nil {
@@ -236,16 +257,122 @@ func start(ctx context.Context, l launch, opt Options, logger hclog.Logger) (*Ri
 	if !ok {
 		return fail("dispensed %T, not a rig", raw)
 	}
-	r := &Rig{Path: l.path, impl: impl, client: client, timeout: opt.CallTimeout}
+	r := &Rig{Path: l.path, impl: impl, client: client, timeout: opt.CallTimeout, stderr: tail, pid: pid}
 	cctx, cancel := context.WithTimeout(ctx, opt.CallTimeout)
 	defer cancel()
 	info, err := impl.Describe(cctx)
 	if err != nil {
-		return fail("describe: %v", err)
+		// The rig has no name yet; the label names its file.
+		r.Info.Name = l.short
+		msg := r.wrap(cctx, "describe", err).Error()
+		msg = strings.TrimPrefix(msg, fmt.Sprintf("rig %q: ", l.short))
+		msg = strings.Replace(msg, `rig "(not yet described)": `, "", 1)
+		return fail("%s", msg)
 	}
 	r.Info = info
 	return r, nil
 }
+
+// versionMismatch is go-plugin's wording when the plugin speaks another
+// protocol version.
+var versionMismatch = regexp.MustCompile(`incompatible API version with plugin\. Plugin version: (\d+), Client versions: \[([\d ]+)\]`)
+
+// handshakeProblem turns go-plugin's start-up error, which can span a
+// dozen lines of generic advice, into one line saying what went wrong with
+// this plugin.
+func handshakeProblem(err error, client *plugin.Client, tail *tailWriter, timeout time.Duration) string {
+	msg := err.Error()
+	if m := versionMismatch.FindStringSubmatch(msg); m != nil {
+		return fmt.Sprintf("it speaks rig protocol version %s, this rigmix speaks version %s (rebuild the plugin against this rigmix's plugins/sdk)", m[1], m[2])
+	}
+	if strings.Contains(msg, "timeout while waiting for plugin to start") {
+		return fmt.Sprintf("no handshake within %s (the call timeout); is it a rigmix rig plugin?", timeout)
+	}
+	const unrecognized = "Unrecognized remote plugin message: "
+	if i := strings.Index(msg, unrecognized); i >= 0 {
+		line, _, _ := strings.Cut(msg[i+len(unrecognized):], "\n")
+		if line = strings.TrimSpace(line); line != "" {
+			return fmt.Sprintf("it printed %q on stdout where the handshake belongs (a rig plugin calls sdk.Serve and prints nothing on stdout before it)", clip(line, 120))
+		}
+		waitExited(client)
+		if last := tail.last(); last != "" {
+			return fmt.Sprintf("it exited before the handshake; its last words on stderr: %q", clip(last, 200))
+		}
+		return "it exited before the handshake, printing nothing"
+	}
+	first, _, _ := strings.Cut(msg, "\n")
+	return "handshake failed: " + strings.TrimSpace(first)
+}
+
+// waitExited gives go-plugin a moment to notice that the plugin process
+// ended (it learns it from a goroutine waiting on the process).
+func waitExited(client *plugin.Client) bool {
+	for range 50 {
+		if client.Exited() {
+			return true
+		}
+		time.Sleep(10 * time.Millisecond)
+	}
+	return client.Exited()
+}
+
+func clip(s string, n int) string {
+	if len(s) <= n {
+		return s
+	}
+	return s[:n] + "…"
+}
+
+// tailWriter keeps the last few KiB a plugin wrote on its own stderr, to
+// quote in an error when it dies.
+type tailWriter struct {
+	mu  sync.Mutex
+	buf []byte
+}
+
+const tailBytes = 4 << 10
+
+func (w *tailWriter) Write(p []byte) (int, error) {
+	w.mu.Lock()
+	defer w.mu.Unlock()
+	w.buf = append(w.buf, p...)
+	if len(w.buf) > tailBytes {
+		w.buf = append([]byte(nil), w.buf[len(w.buf)-tailBytes:]...)
+	}
+	return len(p), nil
+}
+
+// last returns the line that best says why the plugin died: a Go panic or
+// fatal error line if there is one, else the last non-empty line.
+func (w *tailWriter) last() string {
+	if w == nil {
+		return ""
+	}
+	w.mu.Lock()
+	defer w.mu.Unlock()
+	lines := strings.Split(string(w.buf), "\n")
+	for i := len(lines) - 1; i >= 0; i-- {
+		if l := strings.TrimSpace(lines[i]); strings.HasPrefix(l, "panic: ") || strings.HasPrefix(l, "fatal error: ") {
+			return l
+		}
+	}
+	for i := len(lines) - 1; i >= 0; i-- {
+		// go-plugin's own log lines (JSON, from the plugin's side of the
+		// library) say nothing about why the rig died.
+		if l := strings.TrimSpace(lines[i]); l != "" && !strings.HasPrefix(l, `{"@`) {
+			return l
+		}
+	}
+	return ""
+}
+
+// inputError is a mistake in what the user configured (the plugin folder,
+// the pins, a rig name): the command line maps it to exit code 2.
+type inputError struct{ error }
+
+func (inputError) BadInput() bool { return true }
+
+func (e inputError) Unwrap() error { return e.error }
 
 // Discover lists the candidate rig executables in dir, sorted: regular
 // files (or links to them) with an execute bit, not hidden. An empty dir
@@ -256,7 +383,7 @@ func Discover(dir string) ([]string, error) {
 	}
 	entries, err := os.ReadDir(dir)
 	if err != nil {
-		return nil, fmt.Errorf("rig plugin folder: %w", err)
+		return nil, inputError{fmt.Errorf("rig plugin folder %q: %w", dir, unwrapPath(err))}
 	}
 	var out []string
 	for _, e := range entries {
@@ -272,6 +399,15 @@ func Discover(dir string) ([]string, error) {
 	}
 	sort.Strings(out)
 	return out, nil
+}
+
+// unwrapPath drops the operation and path an *fs.PathError repeats.
+func unwrapPath(err error) error {
+	var pe *fs.PathError
+	if errors.As(err, &pe) {
+		return pe.Err
+	}
+	return err
 }
 
 // Rigs lists the running rigs sorted by name.
@@ -297,6 +433,7 @@ func (f *Fleet) Close() {
 			go func() {
 				defer wg.Done()
 				r.client.Kill()
+				killGroup(r.pid)
 			}()
 		}
 		wg.Wait()
@@ -331,7 +468,8 @@ func (r *Rig) Moves(ctx context.Context, req sdk.MovesRequest) (sdk.MovesRespons
 }
 
 // wrap names the rig in err (the gRPC shim already does; an in-process rig
-// may not) and says plainly when the per-call timeout ran out.
+// may not), says plainly when the per-call timeout ran out, and says when
+// the plugin process ended during the call (crashed, panicked, was killed).
 func (r *Rig) wrap(ctx context.Context, call string, err error) error {
 	if err == nil {
 		return nil
@@ -339,6 +477,13 @@ func (r *Rig) wrap(ctx context.Context, call string, err error) error {
 	if errors.Is(err, context.DeadlineExceeded) || errors.Is(ctx.Err(), context.DeadlineExceeded) {
 		return fmt.Errorf("rig %q: %s: no answer within %s (the per-call timeout) or before the caller's deadline: %w",
 			r.Info.Name, call, r.timeout, context.DeadlineExceeded)
+	}
+	if r.client != nil && errors.Is(err, sdk.ErrConnectionLost) && waitExited(r.client) {
+		why := "it printed nothing on stderr first"
+		if last := r.stderr.last(); last != "" {
+			why = fmt.Sprintf("its last words on stderr: %q", clip(last, 200))
+		}
+		return fmt.Errorf("rig %q: %s: the plugin process ended during the call (%s)", r.Info.Name, call, why)
 	}
 	if strings.HasPrefix(err.Error(), fmt.Sprintf("rig %q:", r.Info.Name)) {
 		return err

@@ -31,7 +31,11 @@ func TestMain(m *testing.M) {
 		}
 		os.Exit(0)
 	}
-	os.Exit(m.Run())
+	code := m.Run()
+	if misbehaveDir != "" {
+		os.RemoveAll(misbehaveDir)
+	}
+	os.Exit(code)
 }
 
 func testSelfCommand(name string) *exec.Cmd {

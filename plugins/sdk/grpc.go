@@ -5,7 +5,9 @@ import (
 	"errors"
 	"fmt"
 	"sync"
+	"time"
 
+	"google.golang.org/grpc/codes"
 	"google.golang.org/grpc/status"
 
 	"github.com/rigmix/rigmix/plugins/proto"
@@ -87,15 +89,39 @@ func (c *grpcClient) rigName() string {
 // callError turns a gRPC status error back into a plain error carrying the
 // rig's own message. When the caller's context ended, the context's error is
 // wrapped so errors.Is(err, context.DeadlineExceeded) works.
+//
+// The deadline travels with the call, so the plugin's side may give up a
+// moment before the caller's context ends and reset the stream: a
+// cancelled call within a moment of the caller's deadline is reported as
+// the deadline. A broken connection (the plugin process ended, most
+// likely) wraps ErrConnectionLost.
 func (c *grpcClient) callError(ctx context.Context, call string, err error) error {
 	if ctxErr := ctx.Err(); ctxErr != nil {
 		return fmt.Errorf("rig %q: %s: %w", c.rigName(), call, ctxErr)
 	}
 	if st, ok := status.FromError(err); ok {
+		dl, hasDL := ctx.Deadline()
+		switch {
+		case st.Code() == codes.DeadlineExceeded,
+			st.Code() == codes.Canceled && hasDL && time.Until(dl) < deadlineSlack:
+			return fmt.Errorf("rig %q: %s: %w", c.rigName(), call, context.DeadlineExceeded)
+		case st.Code() == codes.Unavailable:
+			return fmt.Errorf("rig %q: %s: %w (%s)", c.rigName(), call, ErrConnectionLost, st.Message())
+		}
 		return fmt.Errorf("rig %q: %s: %s", c.rigName(), call, st.Message())
 	}
 	return fmt.Errorf("rig %q: %s: %w", c.rigName(), call, err)
 }
+
+// deadlineSlack is how close to the caller's deadline a cancelled call
+// counts as timed out: clocks of the two processes and the scheduling of
+// their timers differ by far less (our own choice).
+const deadlineSlack = 250 * time.Millisecond
+
+// ErrConnectionLost is wrapped by a call's error when the connection to
+// the plugin broke during the call, which usually means the plugin process
+// ended (it crashed, panicked or was killed).
+var ErrConnectionLost = errors.New("connection to the rig plugin lost")
 
 func (c *grpcClient) Describe(ctx context.Context) (RigInfo, error) {
 	resp, err := c.client.Describe(ctx, &proto.DescribeRequest{})

@@ -1,0 +1,28 @@
+//go:build unix
+
+package host
+
+import (
+	"os/exec"
+	"syscall"
+)
+
+// ownProcessGroup makes cmd's process the leader of a new process group,
+// unless the caller already set process attributes; it reports whether it
+// did.
+func ownProcessGroup(cmd *exec.Cmd) bool {
+	if cmd.SysProcAttr != nil {
+		return false
+	}
+	cmd.SysProcAttr = &syscall.SysProcAttr{Setpgid: true}
+	return true
+}
+
+// killGroup kills what is left of the process group led by pid: processes
+// a plugin started and did not end. The plugin itself has been stopped by
+// then. pid 0 means none.
+func killGroup(pid int) {
+	if pid > 0 {
+		_ = syscall.Kill(-pid, syscall.SIGKILL)
+	}
+}
