@@ -23,9 +23,6 @@ import "math"
 func (s *Solver) dualSimplex() (Status, error) {
 	tolD := s.opt.optTol()
 	for {
-		if s.checkStop() {
-			return s.stopStat, nil
-		}
 		if s.lu.needRefactor() {
 			if err := s.refactor(); err != nil {
 				return 0, err
@@ -48,6 +45,10 @@ func (s *Solver) dualSimplex() (Status, error) {
 		}
 		if r < 0 {
 			return Optimal, nil
+		}
+		// Limits are checked once the basis is known not to be optimal.
+		if s.checkStop() {
+			return s.stopStat, nil
 		}
 		p := s.head[r]
 		sigma := 1.0

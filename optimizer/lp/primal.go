@@ -21,9 +21,6 @@ func (s *Solver) primalSimplex() (Status, error) {
 	}
 	lastPhase1 := true
 	for {
-		if s.checkStop() {
-			return s.stopStat, nil
-		}
 		if s.lu.needRefactor() {
 			if err := s.refactor(); err != nil {
 				return 0, err
@@ -119,6 +116,10 @@ func (s *Solver) primalSimplex() (Status, error) {
 				s.d[j] = 0
 			}
 			return Optimal, nil
+		}
+		// Limits are checked once the basis is known not to be optimal.
+		if s.checkStop() {
+			return s.stopStat, nil
 		}
 		dir := 1.0
 		if dq > 0 {

@@ -257,6 +257,15 @@ func TestLimits(t *testing.T) {
 	if r.Status != Optimal || math.Abs(r.Obj+math.Pow(5, 8)) > 1e-6 {
 		t.Errorf("after lifting the limit: %v %g, want Optimal %g (Klee & Minty 1972)", r.Status, r.Obj, -math.Pow(5, 8))
 	}
+	// An optimal basis is reported Optimal even past the deadline.
+	s2, _ := New(p, Options{})
+	if r, _ := s2.Solve(); r.Status != Optimal {
+		t.Fatalf("status %v", r.Status)
+	}
+	s2.SetOptions(Options{Deadline: time.Now().Add(-time.Second)})
+	if r, _ := s2.Solve(); r.Status != Optimal || r.Iterations != 0 {
+		t.Errorf("re-solve of an optimal basis past the deadline: %v after %d iterations, want Optimal after 0", r.Status, r.Iterations)
+	}
 	past := Options{Deadline: time.Now().Add(-time.Second)}
 	if r, _ := Solve(p, past); r.Status != TimeLimit {
 		t.Errorf("deadline in the past: status %v, want TimeLimit", r.Status)
