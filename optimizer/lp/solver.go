@@ -310,13 +310,25 @@ func (s *Solver) SetBasis(b *Basis) error {
 	if b == nil || b.owner != s || len(b.stat) != len(s.stat) || len(b.head) != s.m {
 		return ErrBasis
 	}
+	// The factorization depends only on which column sits in which basis
+	// position; if that is unchanged (a child solve that made no basis
+	// change) it stays valid.
+	same := true
+	for p, j := range b.head {
+		if s.head[p] != j {
+			same = false
+			break
+		}
+	}
 	copy(s.stat, b.stat)
 	copy(s.head, b.head)
 	copy(s.dse, b.dse)
 	for j := range s.stat {
 		s.fixNonbasic(j)
 	}
-	s.needFactor = true
+	if !same {
+		s.needFactor = true
+	}
 	return nil
 }
 
