@@ -9,6 +9,7 @@ import (
 
 	"github.com/rigmix/rigmix/optimizer/candidates"
 	"github.com/rigmix/rigmix/optimizer/geom"
+	"github.com/rigmix/rigmix/optimizer/lab"
 	"github.com/rigmix/rigmix/optimizer/mip"
 	"github.com/rigmix/rigmix/plugins/sdk"
 )
@@ -99,6 +100,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		rigBy[i] = map[string]int{}
 	}
 	chosenPoint := make([]bool, len(pr.Layout.Candidates))
+	var labCounts lab.Counts
 	for k, o := range sol.Chosen {
 		od := pr.Options[o]
 		c := pr.Layout.Candidates[od.point]
@@ -121,6 +123,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		}
 		p.Points = append(p.Points, pt)
 		addQ(od.prof.answer.Quantities, 1)
+		labCounts = labCounts.Add(od.prof.lab)
 		chosenPoint[od.point] = true
 		zoneCount[od.zone]++
 		if od.method.Sampled() {
@@ -136,6 +139,14 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 			p.Warnings = append(p.Warnings, pitWarnings(pt.ID, od.depth)...)
 		}
 	}
+	labQ, err := labProgram(sc).Quantities(labCounts)
+	if err != nil {
+		return nil, err
+	}
+	if _, err := price(rb, labQ, "lab program"); err != nil {
+		return nil, err
+	}
+	addQ(labQ, 1)
 	for r, rd := range pr.Rigs {
 		rp := RigPlan{Name: rd.name, Title: rd.info.Title, Mobilized: sol.Mobilized[r], Points: rigPts[r],
 			ByMethod: rigBy[r], Hours: round(rigHours[r], 2), FieldDays: sol.Days[r]}
@@ -200,6 +211,16 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 	}
 	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth, pr.farthestCell(chosenPoint))
 	pb := pr.Model.Problem
+	if math.IsInf(res.Bound, 0) || math.IsNaN(res.Bound) {
+		// Stopped before the root bound: every cost is ≥ 0, so 0 is a
+		// proven (if weak) lower bound.
+		res.Bound = 0
+		res.Gap = 1
+		if res.Obj != 0 {
+			res.Gap = res.Obj / math.Max(1, math.Abs(res.Obj))
+		}
+		p.Warnings = append(p.Warnings, "the solve stopped before it proved a lower bound; the gap shown is against zero cost")
+	}
 	p.Solver = SolverInfo{
 		Status: res.Status.String(), Objective: round(res.Obj, 4), Bound: round(res.Bound, 4), Gap: round(res.Gap, 6),
 		Nodes: res.Nodes, Candidates: len(pr.Layout.Candidates), Options: len(pr.Spec.Options),

@@ -11,6 +11,7 @@ import (
 
 	"github.com/rigmix/rigmix/optimizer/candidates"
 	"github.com/rigmix/rigmix/optimizer/geom"
+	"github.com/rigmix/rigmix/optimizer/lab"
 	"github.com/rigmix/rigmix/optimizer/mip"
 	"github.com/rigmix/rigmix/optimizer/model"
 	"github.com/rigmix/rigmix/plugins/sdk"
@@ -111,7 +112,8 @@ type profileKey struct {
 
 type profile struct {
 	answer sdk.Answer
-	move   float64 // hours to move to a point in this zone
+	lab    lab.Counts // samples the point recovers, by kind
+	move   float64    // hours to move to a point in this zone
 	cost   float64
 }
 
@@ -225,7 +227,19 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 				if err != nil {
 					return nil, err
 				}
-				p.cost = c
+				// Each point carries its expected share of the lab
+				// program on the samples it recovers (linear, so the
+				// model can weigh a sampled boring against a sounding).
+				p.lab = samplesOf(a.Quantities, sites[k])
+				labQ, err := labProgram(sc).Expected(p.lab)
+				if err != nil {
+					return nil, inputErrorf("%s: lab: %v", sc.Source, err)
+				}
+				lc, err := price(in.RateBook, labQ, "lab program")
+				if err != nil {
+					return nil, err
+				}
+				p.cost = c + lc
 			}
 			rd.profiles[keys[k]] = p
 		}
@@ -341,9 +355,13 @@ func containsMethod(ms []sdk.Method, m sdk.Method) bool {
 	return false
 }
 
+// depthFor is the depth a point of the zone is explored to: the zone's
+// minimum depth rounded up to a whole foot, as depths are bid and drilled
+// (common practice; rounding up keeps the rule met), or the method's default
+// when the zone has no depth rule.
 func depthFor(zn scenarios.Zone, m sdk.Method) float64 {
 	if zn.Rules.MinDepthFt > 0 {
-		return zn.Rules.MinDepthFt
+		return math.Ceil(zn.Rules.MinDepthFt - 1e-6)
 	}
 	return DefaultDepthFt[m]
 }
@@ -399,4 +417,23 @@ func zoneReachable(pr *Prepared, z int, zn scenarios.Zone) error {
 		why = append(why, "no rigs are offered")
 	}
 	return inputErrorf("%s: zone %q cannot be explored by any offered rig: %s", pr.In.Scenario.Source, zn.ID, strings.Join(why, "; "))
+}
+
+// labProgram is the scenario's lab program; nil means the default program.
+func labProgram(sc *scenarios.Scenario) *lab.Program {
+	if sc.Lab != nil {
+		return sc.Lab
+	}
+	return lab.Default()
+}
+
+// samplesOf counts the samples a point recovers: split-barrel and tube
+// samples from the rig's quantities, and bag samples from a test pit by the
+// rule the built-in excavator follows (lab.PitBagSamples).
+func samplesOf(qs []sdk.Quantity, s sdk.Site) lab.Counts {
+	c := lab.CountsFromQuantities(qs)
+	if s.Method == sdk.TestPit {
+		c.Bag += float64(lab.PitBagSamples(s.DepthFt, s.SampleIntervalFt))
+	}
+	return c
 }
