@@ -185,7 +185,125 @@ func (e *engine) repair() bool {
 		return false
 	}
 	rs.lower()
-	return e.setIncumbent(append([]float64(nil), rs.x...))
+	found := e.setIncumbent(append([]float64(nil), rs.x...))
+	if rs.improve() {
+		rs.lower()
+		if e.setIncumbent(append([]float64(nil), rs.x...)) {
+			found = true
+		}
+	}
+	return found
+}
+
+// Limits of the improvement phase (common practice for 1-opt with
+// repair: a short repair per trial, a few passes).
+const (
+	improveRepairMoves = 40
+	improvePasses      = 3
+)
+
+// improve is a 1-opt local search with repair on a feasible point: for
+// each column of positive cost (most expensive first), lower it by one
+// unit and repair the rows this breaks with the cheapest fixing moves
+// (a short budget, the lowered column kept down); keep the change when
+// the result is feasible and cheaper, undo it otherwise. It reports
+// whether the point improved.
+func (rs *repairSearch) improve() bool {
+	e := rs.e
+	q := &e.p.LP
+	order := make([]int, e.n)
+	for j := range order {
+		order[j] = j
+	}
+	sortByAbsCostDesc(order, q.Obj)
+	cmax := 0.0
+	for _, c := range q.Obj {
+		cmax = math.Max(cmax, math.Abs(c))
+	}
+	big := 1e3 * math.Max(1, cmax)
+	type undo struct {
+		j int
+		v float64
+	}
+	var log []undo
+	mv := func(j int, v float64) {
+		log = append(log, undo{j, rs.x[j]})
+		rs.move(j, v)
+	}
+	improved := false
+	stamp := make([]int, e.n)
+	trial := 0
+	for pass := 0; pass < improvePasses; pass++ {
+		passImproved := false
+		for _, j := range order {
+			c := q.Obj[j]
+			if c <= 0 || !e.p.Integer[j] || rs.x[j] <= e.glo[j] {
+				continue
+			}
+			if trial%256 == 0 && e.checkStop() {
+				return improved
+			}
+			trial++
+			log = log[:0]
+			delta := -c
+			mv(j, rs.x[j]-1)
+			stamp[j] = trial
+			for k := 0; k < improveRepairMoves && len(rs.viol) > 0; k++ {
+				i := rs.viol[0]
+				lo, up := q.RowLo[i], q.RowUp[i]
+				need := lo - rs.act[i]
+				if rs.act[i] > up {
+					need = up - rs.act[i]
+				}
+				best, bestScore := -1, math.Inf(1)
+				var bestVal float64
+				for t := rs.rowStart[i]; t < rs.rowStart[i+1]; t++ {
+					jj, a := rs.rowCol[t], rs.rowVal[t]
+					if a == 0 || stamp[jj] == trial || e.glo[jj] == e.gup[jj] {
+						continue
+					}
+					v := rs.x[jj] + need/a
+					if e.p.Integer[jj] {
+						if need/a > 0 {
+							v = math.Ceil(v - 1e-9)
+						} else {
+							v = math.Floor(v + 1e-9)
+						}
+					}
+					v = math.Max(e.glo[jj], math.Min(e.gup[jj], v))
+					if v == rs.x[jj] {
+						continue
+					}
+					d := v - rs.x[jj]
+					sc := q.Obj[jj] * d
+					for u := q.ColStart[jj]; u < q.ColStart[jj+1]; u++ {
+						r := q.RowIndex[u]
+						sc += big * (rs.violation(r, rs.act[r]+q.Value[u]*d) - rs.violation(r, rs.act[r]))
+					}
+					if sc < bestScore {
+						best, bestScore, bestVal = jj, sc, v
+					}
+				}
+				if best < 0 {
+					break
+				}
+				delta += q.Obj[best] * (bestVal - rs.x[best])
+				stamp[best] = trial
+				mv(best, bestVal)
+			}
+			if len(rs.viol) == 0 && delta < -1e-9*math.Max(1, math.Abs(c)) {
+				improved, passImproved = true, true
+				continue
+			}
+			for k := len(log) - 1; k >= 0; k-- {
+				rs.move(log[k].j, log[k].v)
+			}
+		}
+		if !passImproved {
+			break
+		}
+	}
+	return improved
 }
 
 // lower improves a feasible point: each column with positive cost is
