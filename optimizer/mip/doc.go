@@ -35,10 +35,14 @@
 //
 // Primal heuristics: for covering, the greedy rule of Chvátal (1979) with
 // redundant-column removal and 1-opt exchanges, an LP-guided greedy at
-// nodes; for every MIP, nearest rounding (with an LP over the continuous
-// columns) and fractional diving on the LP (Achterberg 2007, §9.1). Every
-// candidate is checked against all rows and bounds before it is accepted,
-// so the heuristics are safe on general MIPs.
+// nodes; for general MIPs, before any LP, a weighted-violation repair
+// search in the spirit of Feasibility Jump (Luteberget and Sartor 2023)
+// followed by lowering of costly columns and 1-opt with repair, so that a
+// large model has a feasible point even when its root LP is slow; for
+// every MIP, nearest rounding (with an LP over the continuous columns) and
+// fractional diving on the LP (Achterberg 2007, §9.1). Every candidate is
+// checked against all rows and bounds before it is accepted, so the
+// heuristics are safe on general MIPs.
 //
 // For set covering the root also runs Lagrangian relaxation of the
 // covering rows with subgradient optimization (Beasley 1990): it gives a
@@ -49,9 +53,12 @@
 //
 // Options.GapRel stops the search when (incumbent − bound)/max(1,|incumbent|)
 // ≤ GapRel; such a result has status Optimal (the default GapRel 1e-9
-// means proven optimal). Results are deterministic: the search is
-// sequential, ties are broken by index or creation order, and only
-// time or node limits and cancellation depend on the clock.
+// means proven optimal). Results are deterministic: ties are broken by
+// index or creation order, and only time limits and cancellation depend
+// on the clock. With Options.Threads 2 a second LP solver runs in
+// lockstep with the first (node LPs solved on both, strong-branching
+// candidates shared between them, results used in candidate order), so
+// that run is deterministic too.
 //
 // # References
 //
@@ -67,6 +74,9 @@
 //     revisited, Operations Research Letters 33:42–54.
 //   - T. Achterberg (2007), Constraint Integer Programming, PhD thesis,
 //     TU Berlin (SCIP).
+//   - B. Luteberget and G. Sartor (2023), Feasibility Jump: an LP-free
+//     Lagrangian MIP heuristic, Mathematical Programming Computation
+//     15:365–388 (volume and pages from memory).
 //
 // Files in free MPS format are read and written by ReadMPS and WriteMPS;
 // OR-Library set-covering files by ReadORLibSetCover.

@@ -15,7 +15,7 @@ const (
 // repairSearch is a weighted-violation local search for a first feasible
 // point of a general MIP before any LP is solved, in the spirit of the
 // Feasibility Jump heuristic (Luteberget and Sartor 2023, Math. Prog.
-// Comp. 15:365–388): start at the bound nearest zero; repeatedly take a
+// Comp. 15:365–388, from memory): start at the bound nearest zero; repeatedly take a
 // violated row and move the one column of that row whose "jump" to the
 // value that satisfies the row lowers the weighted violation the most
 // (ties by objective); when no move helps, raise the row's weight. A
