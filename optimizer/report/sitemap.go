@@ -30,7 +30,7 @@ const (
 	mapMinWidth  = 900.0 // room for three legend columns
 	mapLegendRow = 20.0
 	mapLegendTop = 34.0 // legend heading and gap under the drawing
-	mapMarkerR   = 6.5  // marker half-size, px
+	mapMarkerR   = 7.5  // marker half-size, px
 	mapInk       = "#202020"
 	mapBoundary  = "#000000"
 	mapNoGoInk   = "#8c2d19"
@@ -194,7 +194,7 @@ func marker(b *bufio.Writer, method string, st rigStyle, letter string, cx, cy, 
 			halo = ` stroke="#ffffff" stroke-width="2.2" paint-order="stroke"`
 		}
 		fmt.Fprintf(b, `<text x="%s" y="%s" text-anchor="middle" dominant-baseline="central" font-size="%s" font-weight="bold" fill="%s"%s>%s</text>`,
-			num(cx), num(letterY(method, cy, r)), num(r*1.25), st.letterInk, halo, esc(letter))
+			num(cx), num(letterY(method, cy, r)), num(r*1.3), st.letterInk, halo, esc(letter))
 	}
 }
 
@@ -213,15 +213,49 @@ func niceLength(maxFt float64) float64 {
 	return p
 }
 
-// labelPoint finds where to write a polygon's label: its centroid when that
-// lies inside, else the middle of the widest inside span on the row through
-// the middle of its bounds.
-func labelPoint(poly geom.Polygon) geom.Point {
+// labelPoint finds where to write a zone's label: the spot inside the zone
+// farthest from its edges, from the no-go areas and from the chosen points,
+// among the centroid and a 9 × 9 grid over the zone's bounds, so the label
+// does not sit on a marker or a hatched area. The centroid wins when it is
+// at least half as clear as the best spot (it reads as the zone's middle).
+// For a zone with no room at all it falls back to the middle of the widest
+// inside span through the middle of its bounds.
+func labelPoint(poly geom.Polygon, avoid []geom.Polygon, pts []geom.Point) geom.Point {
+	clear := func(q geom.Point) float64 {
+		if !poly.Contains(q) {
+			return -1
+		}
+		d := poly.DistanceToBoundary(q)
+		for _, a := range avoid {
+			if a.Contains(q) {
+				return 0
+			}
+			d = math.Min(d, a.DistanceToBoundary(q))
+		}
+		for _, p := range pts {
+			d = math.Min(d, q.Dist(p))
+		}
+		return d
+	}
 	c := poly.Centroid()
-	if poly.Contains(c) {
+	cScore := clear(c)
+	bb := poly.Bounds()
+	best, bestScore := c, cScore
+	const n = 9
+	for i := 1; i <= n; i++ {
+		for j := 1; j <= n; j++ {
+			q := geom.Point{X: bb.Min.X + (bb.Max.X-bb.Min.X)*float64(i)/(n+1), Y: bb.Min.Y + (bb.Max.Y-bb.Min.Y)*float64(j)/(n+1)}
+			if sc := clear(q); sc > bestScore {
+				best, bestScore = q, sc
+			}
+		}
+	}
+	if cScore > 0 && cScore >= bestScore/2 {
 		return c
 	}
-	bb := poly.Bounds()
+	if bestScore > 0 {
+		return best
+	}
 	y := (bb.Min.Y + bb.Max.Y) / 2
 	xs := poly.RowCrossings(y, nil)
 	best, bestW := c, -1.0
@@ -352,13 +386,21 @@ func SiteMapSVG(w io.Writer, sc *scenarios.Scenario, p *plan.Plan) error {
 	// Labels of zones and no-go areas, with a white halo so they read
 	// over tints and hatching.
 	b.WriteString(`<g id="sitemap-labels" stroke="#ffffff" stroke-width="3" paint-order="stroke" stroke-linejoin="round">` + "\n")
+	var noGo []geom.Polygon
+	for _, ng := range sc.NoGo {
+		noGo = append(noGo, ng.Polygon)
+	}
+	var chosen []geom.Point
+	for _, pt := range p.Points {
+		chosen = append(chosen, geom.Point{X: pt.XFt, Y: pt.YFt})
+	}
 	for _, z := range sc.Zones {
-		c := labelPoint(z.Polygon)
+		c := labelPoint(z.Polygon, noGo, chosen)
 		fmt.Fprintf(b, `<text x="%s" y="%s" text-anchor="middle" font-size="13" font-weight="bold" fill="%s">%s</text>`+"\n",
 			num(sx(c.X)), num(sy(c.Y)), mapInk, esc(z.ID))
 	}
 	for _, ng := range sc.NoGo {
-		c := labelPoint(ng.Polygon)
+		c := labelPoint(ng.Polygon, nil, nil)
 		fmt.Fprintf(b, `<text x="%s" y="%s" text-anchor="middle" font-size="10" font-style="italic" fill="%s">%s</text>`+"\n",
 			num(sx(c.X)), num(sy(c.Y)-4), mapNoGoInk, esc(ng.ID))
 	}
@@ -368,15 +410,15 @@ func SiteMapSVG(w io.Writer, sc *scenarios.Scenario, p *plan.Plan) error {
 	b.WriteString(`<g id="sitemap-points">` + "\n")
 	for _, pt := range p.Points {
 		r := rigByName[pt.Rig]
-		fmt.Fprintf(b, `<g><title>%s: %s by %s, %s ft deep, zone %s</title>`, esc(pt.ID), esc(methodName(pt.Method)), esc(pt.Rig), ftoa(pt.DepthFt), esc(pt.Zone))
+		fmt.Fprintf(b, `<g><title>%s: %s by %s, %s ft deep, zone %s</title>`, esc(pt.ID), esc(methodName(pt.Method)), esc(pt.Rig), feet(pt.DepthFt), esc(pt.Zone))
 		marker(b, pt.Method, r.style, r.letter, sx(pt.XFt), sy(pt.YFt), mapMarkerR)
 		b.WriteString("</g>\n")
 	}
 	b.WriteString("</g>\n")
 
-	// North arrow, top right of the drawing: y grows north in the
-	// scenario's frame.
-	ax, ay := width-mapMargin-14, top+8
+	// North arrow, above the drawing's top right corner: y grows north in
+	// the scenario's frame.
+	ax, ay := width-mapMargin-8, 8.0 // in the title band, clear of the drawing
 	fmt.Fprintf(b, `<g id="sitemap-north"><path d="M%s,%s L%s,%s L%s,%s L%s,%s Z" fill="%s" stroke="%s" stroke-width="1"/><path d="M%s,%s L%s,%s L%s,%s Z" fill="#ffffff" stroke="%s" stroke-width="1"/><text x="%s" y="%s" text-anchor="middle" font-size="13" font-weight="bold" fill="%s" stroke="#ffffff" stroke-width="3" paint-order="stroke">N</text></g>`+"\n",
 		num(ax), num(ay+8), num(ax+8), num(ay+36), num(ax), num(ay+30), num(ax), num(ay+8), mapInk, mapInk,
 		num(ax), num(ay+8), num(ax-8), num(ay+36), num(ax), num(ay+30), mapInk,
