@@ -69,6 +69,19 @@ func TableFromCSV(title string, r io.Reader, note string) (*Table, error) {
 // screen and prints with each section starting on a new sheet. Every number
 // is taken from the plan (or from the optional pieces) as it is; none is
 // worked out again here.
+//
+// The command layer calls it after planning, handing over the pieces it has
+// made for its other outputs:
+//
+//	var gantt, risk bytes.Buffer
+//	schedule.WriteGanttSVG(&gantt, sched)           // optional
+//	schedule.WriteRiskText(&risk, riskResult)       // optional
+//	alt, _ := report.TableFromCSV("Alternatives", &alternativesCSV, "")
+//	err := report.HTML(f, report.HTMLInput{
+//		Plan: p, Scenario: sc, Version: version, RunDate: time.Now().Format("2006-01-02"),
+//		GanttSVG: gantt.Bytes(), Schedule: sched, RiskText: risk.String(),
+//		Alternatives: alt, FrontierSVG: frontierSVG, BudgetSVG: budgetSVG, RuleCosts: ruleCosts,
+//	})
 func HTML(w io.Writer, in HTMLInput) error {
 	if in.Plan == nil || in.Scenario == nil {
 		return errors.New("report: the HTML report needs both the plan and the scenario")

@@ -138,6 +138,9 @@ func standInChart(title string) []byte {
 // throws first proves this Chromium's log shows console errors at all, so
 // the console check can fail.
 func TestHTMLInBrowser(t *testing.T) {
+	if testing.Short() {
+		t.Skip("-short: the browser test of the HTML report takes some 20 s")
+	}
 	bin := findChromium()
 	if bin == "" {
 		t.Skip("no chromium or chromium-browser on PATH: the browser test of the HTML report is skipped (Debian: apt-get install chromium; .ci/run installs it)")

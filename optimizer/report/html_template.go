@@ -3,8 +3,11 @@ package report
 import "html/template"
 
 // htmlStyle is the report's only stylesheet. Fonts are the reader's own
-// system fonts (nothing is fetched). On paper each top-level section starts
-// a new sheet, rows and figures are not split, table headers repeat, and
+// system fonts (nothing is fetched). On paper the first sheet holds the
+// title, summary and cautions; the site map, the points with the estimate
+// and rigs, the rules with the options ruled out, the alternatives, the
+// schedule, the warnings with the inputs, and the point list each start a
+// new sheet; rows and figures are not split, table headers repeat, and
 // backgrounds print as shown; every mark that carries meaning also differs
 // in text, border or pattern, so a grey print keeps it.
 const htmlStyle = `
@@ -135,7 +138,7 @@ var htmlPage = template.Must(template.New("report").Parse(`<!DOCTYPE html>
 <p class="note">Letters are the rigs' markers on the site map. The full point list closes the report.</p>
 </section>
 
-<section id="estimate" class="sheet long">
+<section id="estimate" class="long">
 <h2>Itemized estimate</h2>
 <div class="table-wrap">
 <table id="estimate-table">
@@ -151,7 +154,7 @@ var htmlPage = template.Must(template.New("report").Parse(`<!DOCTYPE html>
 <p class="note">Extension is quantity × unit price, rounded to cents. Unit prices are the rate book's, effective {{.RateBook.Effective}}.</p>
 </section>
 
-<section id="rigs" class="sheet">
+<section id="rigs">
 <h2>Rigs</h2>
 {{template "table" .Rigs}}
 </section>
@@ -177,7 +180,7 @@ var htmlPage = template.Must(template.New("report").Parse(`<!DOCTYPE html>
 </section>
 {{- if .Excluded.Rows}}
 
-<section id="excluded" class="sheet long">
+<section id="excluded" class="long">
 <h2>Options ruled out</h2>
 <p>Ways of exploring a zone that the zone's rules allow but a rig cannot do there.</p>
 {{template "table" .Excluded}}
