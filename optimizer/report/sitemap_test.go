@@ -217,3 +217,51 @@ func TestNiceLength(t *testing.T) {
 		}
 	}
 }
+
+// TestSiteMapVariants draws unusual plans: each must give well-formed SVG
+// with one marker group per point and a legend entry per rig.
+func TestSiteMapVariants(t *testing.T) {
+	many := samplePlan()
+	many.Points = nil
+	for i := 0; i < 8; i++ { // more rigs than fill styles: letters keep them apart
+		many.Points = append(many.Points, plan.Point{ID: "P" + strconv.Itoa(i), Zone: "Z1", XFt: float64(5 + 9*i), YFt: 30,
+			Method: methodOrder[i%len(methodOrder)], Rig: "rig-" + strconv.Itoa(i), DepthFt: 10})
+	}
+	odd := samplePlan()
+	odd.Points[1].Method = "vane_shear" // a method rigmix has no marker for: the plus sign
+	bare := sampleScenario()
+	bare.Boundary, bare.NoGo = nil, nil
+	for _, c := range []struct {
+		name string
+		sc   func() *scenarios.Scenario
+		p    *plan.Plan
+		rigs int
+	}{
+		{"no points", sampleScenario, func() *plan.Plan { p := samplePlan(); p.Points = nil; return p }(), 0},
+		{"eight rigs", sampleScenario, many, 8},
+		{"unknown method", sampleScenario, odd, 2},
+		{"no boundary or no-go", func() *scenarios.Scenario { return bare }, samplePlan(), 2},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			var b bytes.Buffer
+			if err := SiteMapSVG(&b, c.sc(), c.p); err != nil {
+				t.Fatal(err)
+			}
+			if err := wellFormed(b.Bytes()); err != nil {
+				t.Fatalf("not well-formed: %v", err)
+			}
+			s := b.String()
+			if n := strings.Count(s, "<g><title>"); n != len(c.p.Points) {
+				t.Errorf("%d markers, plan has %d points", n, len(c.p.Points))
+			}
+			for i := 0; i < c.rigs; i++ {
+				if !strings.Contains(s, ">"+rigLetter(i)+"</text>") {
+					t.Errorf("rig letter %s missing", rigLetter(i))
+				}
+			}
+		})
+	}
+	if rigLetter(0) != "A" || rigLetter(25) != "Z" || rigLetter(26) != "AA" || rigLetter(27) != "AB" {
+		t.Errorf("rig letters: %s %s %s %s", rigLetter(0), rigLetter(25), rigLetter(26), rigLetter(27))
+	}
+}
