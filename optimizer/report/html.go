@@ -105,8 +105,8 @@ type htmlView struct {
 	RateBook                                                                              plan.RateBookInfo
 	Version, RunDate                                                                      string
 
-	Points, Total, FieldDays, Coverage, CoverageDetail string
-	Baseline                                           *baselineView
+	Points, TotalAmount, FieldDays, Coverage, CoverageDetail string
+	Baseline                                                 *baselineView
 
 	Cautions []string
 	SiteMap  template.HTML
@@ -134,7 +134,7 @@ type htmlView struct {
 }
 
 type baselineView struct {
-	Note, Rig, Points, Cost, FieldDays, Saving, SavingPct, DaysSaved string
+	Note, Rig, Points, Cost, FieldDays, Saving, SavingAmount, SavingPct, DaysSaved string
 }
 
 type ruleView struct {
@@ -208,7 +208,7 @@ func newHTMLView(in HTMLInput) (*htmlView, error) {
 		Version:             in.Version,
 		RunDate:             in.RunDate,
 		Points:              fmt.Sprint(len(p.Points)),
-		Total:               money(p.Total, cur),
+		TotalAmount:         money(p.Total, ""),
 		FieldDays:           fmt.Sprint(p.Finish),
 		Coverage:            fmt.Sprintf("%.1f%%", p.Coverage.CoveredPercent),
 		CoverageDetail: fmt.Sprintf("%s of %s ft² of ground under spacing rules lies within the covering radius of a chosen point",
@@ -231,7 +231,7 @@ func newHTMLView(in HTMLInput) (*htmlView, error) {
 	if bl := p.Baseline; bl != nil {
 		v.Baseline = &baselineView{
 			Note: bl.Note, Rig: bl.Rig, Points: fmt.Sprint(bl.Points), Cost: money(bl.Cost, cur),
-			FieldDays: fmt.Sprint(bl.FieldDays), Saving: money(bl.Saving, cur),
+			FieldDays: fmt.Sprint(bl.FieldDays), Saving: money(bl.Saving, cur), SavingAmount: money(bl.Saving, ""),
 			SavingPct: fmt.Sprintf("%.1f%%", bl.SavingPct), DaysSaved: fmt.Sprint(bl.DaysSaved),
 		}
 	}

@@ -26,9 +26,9 @@ nav.contents a { color: var(--accent); margin-right: .9rem; white-space: nowrap;
 dl.meta { display: grid; grid-template-columns: max-content 1fr; gap: .15rem 1.2rem; margin: .4rem 0 0; }
 dl.meta dt { color: var(--muted); }
 dl.meta dd { margin: 0; }
-.figures { display: grid; grid-template-columns: repeat(auto-fit, minmax(150px, 1fr)); gap: .8rem; margin: .6rem 0 1rem; }
+.figures { display: grid; grid-template-columns: repeat(auto-fit, minmax(170px, 1fr)); gap: .8rem; margin: .6rem 0 1rem; }
 .figure { border: 1px solid var(--rule); border-top: 5px solid var(--accent); padding: .55rem .75rem; background: #fff; }
-.figure .value { display: block; font-size: 1.45rem; font-weight: 700; font-variant-numeric: tabular-nums; }
+.figure .value { display: block; white-space: nowrap; font-size: 1.45rem; font-weight: 700; font-variant-numeric: tabular-nums; }
 .figure .label { color: var(--muted); font-size: .88rem; }
 .cautions { border: 2px solid var(--warn); border-left: 10px solid var(--warn); background: #fff1ec; padding: .7rem 1rem .5rem; }
 .cautions h2 { color: var(--warn); border-bottom-color: var(--warn); }
@@ -102,11 +102,11 @@ var htmlPage = template.Must(template.New("report").Parse(`<!DOCTYPE html>
 <h2>Summary</h2>
 <div class="figures">
 <div class="figure"><span class="value" id="summary-points">{{.Points}}</span><span class="label">exploration points</span></div>
-<div class="figure"><span class="value" id="summary-total">{{.Total}}</span><span class="label">estimated total</span></div>
+<div class="figure"><span class="value" id="summary-total">{{.TotalAmount}}</span><span class="label">estimated total ({{.Currency}})</span></div>
 <div class="figure"><span class="value" id="summary-days">{{.FieldDays}}</span><span class="label">field days (rigs in parallel)</span></div>
 <div class="figure"><span class="value" id="summary-coverage">{{.Coverage}}</span><span class="label">of ruled ground covered</span></div>
 {{- with .Baseline}}
-<div class="figure"><span class="value" id="summary-saving">{{.Saving}}</span><span class="label">saved against a hand-laid grid ({{.SavingPct}})</span></div>
+<div class="figure"><span class="value" id="summary-saving">{{.SavingAmount}}</span><span class="label">{{$.Currency}} saved against a hand-laid grid ({{.SavingPct}})</span></div>
 {{- end}}
 </div>
 <p>{{.CoverageDetail}}.</p>
