@@ -30,6 +30,22 @@ func (o *outputs) write() error {
 }
 
 func writeAtomic(path string, data []byte) error {
+	if st, err := os.Stat(path); err == nil && !st.Mode().IsRegular() {
+		// A device or pipe (/dev/null, /dev/stdout, a FIFO) is written as
+		// it is: renaming a file over it would replace the device.
+		if st.IsDir() {
+			return usageError{fmt.Errorf("%s: is a folder; give a file name", path)}
+		}
+		f, err := os.OpenFile(path, os.O_WRONLY, 0)
+		if err != nil {
+			return usageError{fmt.Errorf("%s: cannot write: %v", path, err)}
+		}
+		_, werr := f.Write(data)
+		if err := f.Close(); werr == nil {
+			werr = err
+		}
+		return werr
+	}
 	dir := filepath.Dir(path)
 	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp-*")
 	if err != nil {
