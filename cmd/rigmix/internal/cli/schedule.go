@@ -12,10 +12,13 @@ import (
 	"time"
 
 	"github.com/spf13/cobra"
+	"github.com/spf13/pflag"
 
 	"github.com/rigmix/rigmix/optimizer/plan"
 	"github.com/rigmix/rigmix/optimizer/schedule"
 	"github.com/rigmix/rigmix/plugins/sdk"
+	"github.com/rigmix/rigmix/ratebooks"
+	"github.com/rigmix/rigmix/scenarios"
 )
 
 type scheduleOptions struct {
@@ -58,14 +61,7 @@ func newScheduleCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	f.String("rate-book", "", "price standby with this rate book (demo name or file)")
 	f.Float64("gap", 0, "optimality gap for planning on the fly")
 	f.Float64("time-limit", 0, "seconds for planning on the fly")
-	f.StringVar(&o.start, "start", "", "first field day, YYYY-MM-DD (default: the next Monday after today)")
-	f.StringVar(&o.workStart, "work-start", "07:00", "start of the working day, HH:MM")
-	f.StringVar(&o.workDays, "work-days", "mon-fri", "days worked: mon-fri, mon-sat or all")
-	f.StringVar(&o.wetDates, "wet-dates", "", "comma-separated dates (YYYY-MM-DD) known or assumed wet")
-	f.StringVar(&o.wetProb, "wet-prob", "", "probability a day is wet, one value for every month or twelve comma-separated values from January")
-	f.Uint64Var(&o.seed, "seed", 1, "seed of the weather and production Monte Carlo")
-	f.IntVar(&o.runs, "runs", 1000, "Monte Carlo runs")
-	f.Float64Var(&o.cv, "production-cv", 0.2, "coefficient of variation of hours on points")
+	o.addCalendarFlags(f)
 	f.StringVar(&o.csvOut, "csv", "", "write the day-by-day table as CSV to this file")
 	f.StringVar(&o.ganttOut, "gantt-svg", "", "write a Gantt chart as SVG to this file")
 	f.StringVar(&o.stakeCSV, "stakeout-csv", "", "write the stakeout list as CSV to this file")
@@ -166,15 +162,7 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 			return err
 		}
 	}
-	jobs, specs, err := plan.ScheduleInputs(ctx, p, sc, rb, rigs)
-	if err != nil {
-		return err
-	}
-	s, err := schedule.Build(jobs, specs, cal)
-	if err != nil {
-		return err
-	}
-	risk, err := schedule.Risk(jobs, specs, cal, schedule.Options{Seed: o.seed, Runs: o.runs, ProductionCV: o.cv})
+	s, risk, err := o.build(ctx, p, sc, rb, rigs, cal)
 	if err != nil {
 		return err
 	}
@@ -210,4 +198,34 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 	}
 	_, err = stdout.Write(b.Bytes())
 	return err
+}
+
+// build schedules a plan and runs the weather and production risk.
+func (o *scheduleOptions) build(ctx context.Context, p *plan.Plan, sc *scenarios.Scenario, rb *ratebooks.RateBook, rigs map[string]sdk.Rig, cal schedule.Calendar) (*schedule.Schedule, *schedule.RiskResult, error) {
+	jobs, specs, err := plan.ScheduleInputs(ctx, p, sc, rb, rigs)
+	if err != nil {
+		return nil, nil, err
+	}
+	s, err := schedule.Build(jobs, specs, cal)
+	if err != nil {
+		return nil, nil, err
+	}
+	risk, err := schedule.Risk(jobs, specs, cal, schedule.Options{Seed: o.seed, Runs: o.runs, ProductionCV: o.cv})
+	if err != nil {
+		return nil, nil, err
+	}
+	return s, risk, nil
+}
+
+// addCalendarFlags binds the calendar and risk flags shared by schedule and
+// report.
+func (o *scheduleOptions) addCalendarFlags(f *pflag.FlagSet) {
+	f.StringVar(&o.start, "start", "", "first field day, YYYY-MM-DD (default: the next Monday after today)")
+	f.StringVar(&o.workStart, "work-start", "07:00", "start of the working day, HH:MM")
+	f.StringVar(&o.workDays, "work-days", "mon-fri", "days worked: mon-fri, mon-sat or all")
+	f.StringVar(&o.wetDates, "wet-dates", "", "comma-separated dates (YYYY-MM-DD) known or assumed wet")
+	f.StringVar(&o.wetProb, "wet-prob", "", "probability a day is wet, one value for every month or twelve comma-separated values from January")
+	f.Uint64Var(&o.seed, "seed", 1, "seed of the weather and production Monte Carlo")
+	f.IntVar(&o.runs, "runs", 1000, "Monte Carlo runs")
+	f.Float64Var(&o.cv, "production-cv", 0.2, "coefficient of variation of hours on points")
 }

@@ -1,0 +1,123 @@
+package cli
+
+import (
+	"bytes"
+	"context"
+	"fmt"
+	"io"
+	"time"
+
+	"github.com/spf13/cobra"
+
+	"github.com/rigmix/rigmix/optimizer/plan"
+	"github.com/rigmix/rigmix/optimizer/report"
+	"github.com/rigmix/rigmix/optimizer/schedule"
+	"github.com/rigmix/rigmix/plugins/sdk"
+)
+
+type reportOptions struct {
+	demo      string
+	out       string
+	sched     scheduleOptions
+	tradeoffs bool
+	runDate   string
+}
+
+func newReportCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
+	o := &reportOptions{}
+	c := &cobra.Command{
+		Use:   "report [SCENARIO.yaml] --out REPORT.html",
+		Short: "Write one self-contained HTML report of the program for a bid: map, estimate, rules, alternatives, schedule, cautions",
+		Args:  cobra.MaximumNArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			cfg, err := g.load(cmd.Flags())
+			if err != nil {
+				return err
+			}
+			if o.out == "" {
+				return usageError{fmt.Errorf("--out: give the HTML file to write, e.g. --out report.html")}
+			}
+			return runReport(cmd.Context(), cfg, o, args, stdout, stderr)
+		},
+	}
+	f := c.Flags()
+	f.StringVar(&o.demo, "demo", "", "report on an embedded demo scenario by name")
+	f.StringVar(&o.out, "out", "", "the HTML file to write")
+	f.String("rate-book", "", "price with this rate book (demo name or file)")
+	f.Float64("gap", 0, "optimality gap of the plan")
+	f.Float64("time-limit", 0, "seconds for the plan's solve")
+	f.BoolVar(&o.tradeoffs, "tradeoffs", true, "include the alternatives table, the cost–days frontier and the budget–coverage curve")
+	f.StringVar(&o.runDate, "run-date", "", "date shown as the date of the run (default: today)")
+	o.sched.addCalendarFlags(f)
+	return c
+}
+
+func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string, stdout, stderr io.Writer) error {
+	sc, rb, err := loadInputs(cfg, o.demo, args)
+	if err != nil {
+		return err
+	}
+	now := time.Now()
+	cal, err := o.sched.calendar(sc.HoursDay, now)
+	if err != nil {
+		return err
+	}
+	fleet, err := openFleet(ctx, cfg, sc.Rigs)
+	if err != nil {
+		return err
+	}
+	defer fleet.Close()
+	rigs := map[string]sdk.Rig{}
+	for _, r := range fleet.Rigs() {
+		rigs[r.Info.Name] = r
+	}
+	in := plan.Input{Scenario: sc, RateBook: rb, Rigs: rigs}
+	popt := plan.Options{GapRel: cfg.Gap, TimeLimit: cfg.TimeLimit, Threads: cfg.Threads}
+	pr, err := plan.Prepare(ctx, in, popt)
+	if err != nil {
+		return err
+	}
+	res, err := pr.Solve(ctx, popt)
+	if err != nil {
+		return err
+	}
+	p, err := pr.Assemble(res)
+	if err != nil {
+		return err
+	}
+	s, risk, err := o.sched.build(ctx, p, sc, rb, rigs, cal)
+	if err != nil {
+		return err
+	}
+	var gantt, riskText bytes.Buffer
+	if err := schedule.WriteGanttSVG(&gantt, s); err != nil {
+		return err
+	}
+	if err := schedule.WriteRiskText(&riskText, risk); err != nil {
+		return err
+	}
+	hin := report.HTMLInput{
+		Plan: p, Scenario: sc, Version: Version, RunDate: o.runDate,
+		GanttSVG: gantt.Bytes(), Schedule: s, RiskText: riskText.String(),
+	}
+	if hin.RunDate == "" {
+		hin.RunDate = now.Format("2006-01-02")
+	}
+	if o.tradeoffs {
+		if err := addTradeoffs(ctx, &hin, pr, in, popt); err != nil {
+			return err
+		}
+	}
+	var b bytes.Buffer
+	if err := report.HTML(&b, hin); err != nil {
+		return err
+	}
+	if err := writeAtomic(o.out, b.Bytes()); err != nil {
+		return err
+	}
+	fmt.Fprintf(stdout, "wrote %s: %d points, %s %s, %d field days in the plan; schedule %s to %s\n",
+		o.out, len(p.Points), p.RateBook.Currency, moneyText(p.Total), p.Finish, s.Start.Format("2006-01-02"), s.Finish.Format("2006-01-02"))
+	return nil
+}
+
+func moneyText(v float64) string { return fmt.Sprintf("%.2f", v) }
