@@ -31,6 +31,9 @@ func TestMain(m *testing.M) {
 		}
 		os.Exit(0)
 	}
+	if os.Getenv(holdEnv) != "" {
+		holdFleet()
+	}
 	code := m.Run()
 	if misbehaveDir != "" {
 		os.RemoveAll(misbehaveDir)

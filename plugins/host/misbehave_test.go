@@ -10,7 +10,6 @@ import (
 	"strconv"
 	"strings"
 	"sync"
-	"syscall"
 	"testing"
 	"time"
 
@@ -291,8 +290,89 @@ func TestPluginGrandchild(t *testing.T) {
 		time.Sleep(50 * time.Millisecond)
 	}
 	if alive(helper) {
-		_ = syscall.Kill(helper, syscall.SIGKILL)
+		if p, err := os.FindProcess(helper); err == nil {
+			_ = p.Kill()
+		}
 		t.Errorf("the plugin's helper process %d outlived Close", helper)
+	}
+}
+
+// holdEnv makes the test binary open a fleet, print its rigs' process ids
+// and wait to be killed: TestHostKilled plays a rigmix that dies without
+// closing its fleet.
+const holdEnv = "RIGMIX_TEST_HOLD_FLEET"
+
+func holdFleet() {
+	opt := testOptions()
+	opt.Builtins = []string{"tire-drill", "cpt-rig"}
+	f, err := Open(context.Background(), opt)
+	if err != nil {
+		os.Stderr.WriteString(err.Error() + "\n")
+		os.Exit(1)
+	}
+	var ids []string
+	for _, r := range f.Rigs() {
+		ids = append(ids, strconv.Itoa(r.client.ReattachConfig().Pid))
+	}
+	os.Stdout.WriteString(strings.Join(ids, " ") + "\n")
+	time.Sleep(time.Minute)
+	os.Exit(2)
+}
+
+// TestHostKilled: when rigmix itself is killed (SIGKILL: no deferred
+// Close, no plugin.CleanupClients), its rig processes end too instead of
+// living on as orphans.
+func TestHostKilled(t *testing.T) {
+	if _, err := os.Stat("/proc/self/stat"); err != nil {
+		t.Skip("no /proc")
+	}
+	cmd := exec.Command(os.Args[0], "-test.run=^$")
+	cmd.Env = append(os.Environ(), holdEnv+"=1")
+	out, err := cmd.StdoutPipe()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := cmd.Start(); err != nil {
+		t.Fatal(err)
+	}
+	defer cmd.Process.Kill()
+	line := make(chan string, 1)
+	go func() {
+		b := make([]byte, 256)
+		n, _ := out.Read(b)
+		line <- string(b[:n])
+	}()
+	var pids []int
+	select {
+	case l := <-line:
+		for _, f := range strings.Fields(l) {
+			n, err := strconv.Atoi(f)
+			if err != nil {
+				t.Fatalf("holder printed %q", l)
+			}
+			pids = append(pids, n)
+		}
+	case <-time.After(30 * time.Second):
+		t.Fatal("the holder did not open its fleet within 30 s")
+	}
+	if len(pids) != 2 {
+		t.Fatalf("holder's rigs: %v", pids)
+	}
+	if err := cmd.Process.Kill(); err != nil {
+		t.Fatal(err)
+	}
+	_ = cmd.Wait()
+	deadline := time.Now().Add(5 * time.Second)
+	for time.Now().Before(deadline) && (alive(pids[0]) || alive(pids[1])) {
+		time.Sleep(50 * time.Millisecond)
+	}
+	for _, pid := range pids {
+		if alive(pid) {
+			if p, err := os.FindProcess(pid); err == nil {
+				_ = p.Kill()
+			}
+			t.Errorf("rig process %d outlived its killed host", pid)
+		}
 	}
 }
 

@@ -1,4 +1,4 @@
-//go:build unix
+//go:build unix && !linux
 
 package host
 
@@ -19,8 +19,7 @@ func ownProcessGroup(cmd *exec.Cmd) bool {
 }
 
 // killGroup kills what is left of the process group led by pid: processes
-// a plugin started and did not end. The plugin itself has been stopped by
-// then. pid 0 means none.
+// a plugin started and did not end. pid 0 means none.
 func killGroup(pid int) {
 	if pid > 0 {
 		_ = syscall.Kill(-pid, syscall.SIGKILL)
