@@ -46,7 +46,7 @@ type badCase struct {
 }
 
 const (
-	gapZonePath = "the message names the zone, not the field path zones[i]... that cannot be met (finding F1)"
+	gapZonePath = "the message names the zone by id, not by its field path zones[i] (finding F1)"
 	gapCurrency = "no check that --rate-book prices in the scenario's rate book's currency (finding F2)"
 	gapInfeas   = "an infeasible model is reported without file, zone or rule (finding F3)"
 	gapRigName  = "an unknown rig gets no suggestion and no hint about the plugin folder (finding F4)"
@@ -133,9 +133,9 @@ var badCases = []badCase{
 	// fail after the rigs have started.
 	{file: "share_sampled_cpt_only.yaml", path: "zones[0].rules.sampled_share", what: []string{"none of the methods (cpt) recovers samples"}},
 	{file: "no_rule_for_points.yaml", path: "zones[1].rules", what: []string{"asks for no points"}},
-	{file: "depth_no_rig_reaches.yaml", path: "zones[0].rules.min_depth", what: []string{`zone "bldg"`, "depth 400 ft is beyond the 150 ft tire-drill reaches"}, gap: gapZonePath},
-	{file: "soft_ground_tire_rig_only.yaml", path: "zones[1].ground.surface", what: []string{`zone "yard"`, "tire-drill works only on firm ground"}, gap: gapZonePath},
-	{file: "overhead_too_low.yaml", path: "zones[1].ground.overhead_clearance", what: []string{`zone "yard"`, "overhead clearance 5 ft is less than"}, gap: gapZonePath},
+	{file: "depth_no_rig_reaches.yaml", path: "zones[0]", what: []string{`zone "bldg"`, "depth 400 ft is beyond the 150 ft tire-drill reaches"}, gap: gapZonePath},
+	{file: "soft_ground_tire_rig_only.yaml", path: "zones[1]", what: []string{`zone "yard"`, "tire-drill works only on firm ground"}, gap: gapZonePath},
+	{file: "overhead_too_low.yaml", path: "zones[1]", what: []string{`zone "yard"`, "overhead clearance 5 ft is less than"}, gap: gapZonePath},
 	{file: "min_points_impossible.yaml", path: "zones[1].rules.min_points", what: []string{"5000"}, gap: gapInfeas},
 
 	// Rate books.
