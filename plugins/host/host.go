@@ -307,7 +307,7 @@ func handshakeProblem(err error, client *plugin.Client, tail *tailWriter, timeou
 // waitExited gives go-plugin a moment to notice that the plugin process
 // ended (it learns it from a goroutine waiting on the process).
 func waitExited(client *plugin.Client) bool {
-	for range 50 {
+	for range 200 { // up to 2 s
 		if client.Exited() {
 			return true
 		}
