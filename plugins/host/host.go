@@ -5,6 +5,14 @@
 // itself once, refuses two rigs of one name, applies a per-call timeout,
 // names the rig in every error, and kills every child on Close.
 //
+// Each plugin runs in a process group of its own; Close kills the group, so
+// a process a plugin started does not outlive the run, and on Linux a rig
+// process is killed when rigmix dies without closing (PR_SET_PDEATHSIG).
+// A plugin that crashes, hangs, speaks another protocol version, prints on
+// stdout where the handshake belongs, or answers out of contract gets a
+// one-line error naming its file or its rig (see misbehave_test.go and
+// plugins/examples/misbehave).
+//
 // External executables may be pinned to a SHA-256 digest; a pinned file
 // whose digest differs is not run (go-plugin's SecureConfig). Plugins run
 // with the user's rights: only put executables you trust in the folder.
