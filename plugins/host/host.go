@@ -491,7 +491,11 @@ func (r *Rig) wrap(ctx context.Context, call string, err error) error {
 		if last := r.stderr.last(); last != "" {
 			why = fmt.Sprintf("its last words on stderr: %q", clip(last, 200))
 		}
-		return fmt.Errorf("rig %q: %s: the plugin process ended during the call (%s)", r.Info.Name, call, why)
+		proc := "the plugin process"
+		if r.Path != "" {
+			proc = fmt.Sprintf("the plugin process (%s)", r.Path)
+		}
+		return fmt.Errorf("rig %q: %s: %s ended during the call (%s)", r.Info.Name, call, proc, why)
 	}
 	if strings.HasPrefix(err.Error(), fmt.Sprintf("rig %q:", r.Info.Name)) {
 		return err

@@ -162,8 +162,8 @@ func TestMisbehavingPluginInCalls(t *testing.T) {
 		call func(ctx context.Context, r *Rig) error
 		want []string
 	}{
-		{"crash-in-assess", assess, []string{"assess", "plugin process ended during the call"}},
-		{"panic-in-assess", assess, []string{"assess", "plugin process ended during the call"}},
+		{"crash-in-assess", assess, []string{"assess", "/crash-in-assess) ended during the call", "printed nothing on stderr"}},
+		{"panic-in-assess", assess, []string{"assess", "/panic-in-assess) ended during the call", `"panic: misbehave: assess went wrong"`}},
 		{"hang-in-assess", assess, []string{"assess", "no answer within 1.5s"}},
 		{"error-in-assess", assess, []string{"assess", "rate table for 3 sites not loaded"}},
 		{"negative-hours", assess, []string{"assess", `site "B-1": setup hours -1`}},
