@@ -12,6 +12,7 @@ import (
 	"github.com/rigmix/rigmix/optimizer/lab"
 	"github.com/rigmix/rigmix/optimizer/mip"
 	"github.com/rigmix/rigmix/plugins/sdk"
+	"github.com/rigmix/rigmix/scenarios"
 )
 
 // ErrNoPlan is returned when the solve ends without any plan meeting the
@@ -263,7 +264,33 @@ func (pr *Prepared) ruleChecks(count, sampled []int, minDepth, farthest []float6
 				Met: share >= r.SampledShare-1e-9, Source: r.Source})
 		}
 	}
+	for i := range out {
+		zn := sc.Zones[zoneIndex(sc.Zones, out[i].Zone)]
+		o := zn.Rules.Origins
+		switch out[i].Rule {
+		case "max spacing":
+			out[i].Origin = o["max_spacing"]
+		case "minimum points":
+			out[i].Origin = o["min_points"]
+			if zn.Rules.AreaPerPointFt2 > 0 && pr.ZoneMin[zoneIndex(sc.Zones, out[i].Zone)] > zn.Rules.MinPoints {
+				out[i].Origin = o["area_per_point"]
+			}
+		case "minimum depth":
+			out[i].Origin = o["min_depth"]
+		case "sampled share":
+			out[i].Origin = o["sampled_share"]
+		}
+	}
 	return out
+}
+
+func zoneIndex(zs []scenarios.Zone, id string) int {
+	for i, z := range zs {
+		if z.ID == id {
+			return i
+		}
+	}
+	return -1
 }
 
 // pitWarnings flags the excavation safety requirements a test pit of a

@@ -95,13 +95,16 @@ type Excluded struct {
 
 // RuleCheck tells whether one rule of one zone is met.
 type RuleCheck struct {
-	Zone     string  `json:"zone"`
-	Rule     string  `json:"rule"`
-	Required string  `json:"required"`
-	Achieved string  `json:"achieved"`
-	Met      bool    `json:"met"`
-	Source   string  `json:"source,omitempty"`
-	Value    float64 `json:"-"`
+	Zone     string `json:"zone"`
+	Rule     string `json:"rule"`
+	Required string `json:"required"`
+	Achieved string `json:"achieved"`
+	Met      bool   `json:"met"`
+	Source   string `json:"source,omitempty"`
+	// Origin says where the rule's value came from: "scenario", "preset
+	// NAME: SOURCE", "computed: …" or "default: …".
+	Origin string  `json:"origin,omitempty"`
+	Value  float64 `json:"-"`
 }
 
 // Coverage summarizes how much of the ground under spacing rules lies within

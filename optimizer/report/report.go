@@ -142,11 +142,11 @@ func Text(w io.Writer, p *plan.Plan) error {
 
 	b.WriteString("\nRules\n")
 	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
-	fmt.Fprintf(tw, "zone\trule\trequired\tachieved\tmet\n")
+	fmt.Fprintf(tw, "zone\trule\trequired\tachieved\tmet\tset by\n")
 	var zones []string
 	source := map[string]string{}
 	for _, r := range p.Rules {
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\n", r.Zone, r.Rule, r.Required, r.Achieved, yesNo(r.Met))
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\n", r.Zone, r.Rule, r.Required, r.Achieved, yesNo(r.Met), originWord(r.Origin))
 		if _, ok := source[r.Zone]; !ok {
 			zones = append(zones, r.Zone)
 			source[r.Zone] = r.Source
@@ -225,4 +225,16 @@ func money(v float64, cur string) string {
 		out = cur + " " + out
 	}
 	return out
+}
+
+// originWord shortens a rule's origin for the terminal table: "scenario",
+// "preset NAME", "computed" or "default"; the plan JSON keeps it whole.
+func originWord(o string) string {
+	if i := strings.Index(o, ":"); i >= 0 {
+		o = o[:i]
+	}
+	if o == "" {
+		return "-"
+	}
+	return o
 }
