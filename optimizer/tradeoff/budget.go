@@ -137,13 +137,14 @@ func (a *Analyzer) BudgetCurve(ctx context.Context) (*BudgetCurve, error) {
 		Currency:      a.pr.In.RateBook.Currency,
 		MinimalBudget: minimal.TotalCost, FullBudget: full.TotalCost,
 	}
+	// Budgets allow the estimate's rounding (half a cent a line) at both
+	// ends, so that the plans that set them fit them.
+	lo := minimal.TotalCost + 0.005*float64(len(minimal.plan.Estimate)+1)
 	n := a.cfg.BudgetPoints
 	budgets := make([]float64, n)
 	for k := range budgets {
-		budgets[k] = roundTo(minimal.TotalCost+float64(k)*(full.TotalCost-minimal.TotalCost)/float64(n-1), 2)
+		budgets[k] = roundTo(lo+float64(k)*(full.TotalCost-lo)/float64(n-1), 2)
 	}
-	// The model's cost is unrounded: allow the estimate's rounding (half a
-	// cent a line) on the full budget so the cheapest plan fits it.
 	budgets[n-1] = full.TotalCost + 0.005*float64(len(full.plan.Estimate)+1)
 	jobs := make([]func(context.Context) (Summary, error), n)
 	for k, b := range budgets {

@@ -7,6 +7,7 @@ import (
 	"math"
 	"sort"
 	"sync"
+	"time"
 
 	"github.com/rigmix/rigmix/optimizer/geom"
 	"github.com/rigmix/rigmix/optimizer/mip"
@@ -34,6 +35,11 @@ const (
 	// alternative is given three quarters of the cheapest plan's cost
 	// (our choice, to show what a cut of a quarter buys).
 	DefaultBudgetShare = 0.75
+	// DefaultTimeLimit is a safety net on each solve, far above what the
+	// node limit takes on the demos; a solve that reaches it says so in
+	// its status ("time limit"), and only then may the output depend on
+	// the machine.
+	DefaultTimeLimit = 60 * time.Second
 	// DefaultWorkers: independent solves run two at a time (one per core
 	// of the reference machine); results do not depend on the order.
 	DefaultWorkers = 2
@@ -44,6 +50,8 @@ type Settings struct {
 	GapRel    float64 // relative gap each solve stops at; 0: DefaultGapRel
 	NodeLimit int     // nodes per solve; 0: DefaultNodeLimit, <0: none
 	Workers   int     // solves run at once; 0: DefaultWorkers
+	// TimeLimit per solve; 0: DefaultTimeLimit, <0: none.
+	TimeLimit time.Duration
 }
 
 func (s Settings) withDefaults() Settings {
@@ -59,11 +67,17 @@ func (s Settings) withDefaults() Settings {
 	if s.Workers <= 0 {
 		s.Workers = DefaultWorkers
 	}
+	if s.TimeLimit == 0 {
+		s.TimeLimit = DefaultTimeLimit
+	}
+	if s.TimeLimit < 0 {
+		s.TimeLimit = 0
+	}
 	return s
 }
 
 func (s Settings) mip() mip.Options {
-	return mip.Options{GapRel: s.GapRel, NodeLimit: s.NodeLimit}
+	return mip.Options{GapRel: s.GapRel, NodeLimit: s.NodeLimit, TimeLimit: s.TimeLimit}
 }
 
 // Summary is one plan in the trade-off tables.
