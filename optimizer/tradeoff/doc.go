@@ -8,7 +8,8 @@
 // the exact engine (package mip), never from a guess. Each solve runs to a
 // stated relative gap and a node limit (not a time limit, so the same input
 // gives the same output on any machine); the gap each solve reached is
-// reported beside its figures.
+// reported beside its figures. A generous time limit per solve is kept as
+// a safety net only; a solve that reaches it says so in its status.
 //
 // # Methods
 //
