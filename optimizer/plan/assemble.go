@@ -23,6 +23,12 @@ type ErrNoPlan struct {
 }
 
 func (e *ErrNoPlan) Error() string {
+	switch e.Status {
+	case mip.Interrupted:
+		return "plan: interrupted before the solve found a plan; no file written"
+	case mip.TimeLimit, mip.NodeLimit:
+		return fmt.Sprintf("plan: the solve reached its %s before it found a plan; raise the limit (--time-limit) or relax the rules%s", e.Status, e.Why)
+	}
 	return fmt.Sprintf("plan: no plan meets every rule (solver: %s)%s", e.Status, e.Why)
 }
 

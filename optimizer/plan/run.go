@@ -416,7 +416,7 @@ func zoneReachable(pr *Prepared, z int, zn scenarios.Zone) error {
 	if len(pr.Rigs) == 0 {
 		why = append(why, "no rigs are offered")
 	}
-	return inputErrorf("%s: zone %q cannot be explored by any offered rig: %s", pr.In.Scenario.Source, zn.ID, strings.Join(why, "; "))
+	return inputErrorf("%s: zones[%d]: zone %q cannot be explored by any offered rig: %s", pr.In.Scenario.Source, z, zn.ID, strings.Join(why, "; "))
 }
 
 // labProgram is the scenario's lab program; nil means the default program.

@@ -7,7 +7,7 @@
 // rigmix would. Build it and put the executable in the plugin folder:
 //
 //	go build -o ~/rigs/hand-crew ./plugins/examples/handcrew
-//	rigmix plan --rig-plugins ~/rigs ...
+//	rigmix plan --plugin-dir ~/rigs ...
 //
 // The rates are common practice or from memory, as noted beside each.
 package main

@@ -26,6 +26,9 @@ const (
 // badInput is implemented by errors the user can fix by changing input.
 type badInput interface{ BadInput() bool }
 
+// interruptedError is a run stopped by the user; it exits 1.
+type interruptedError struct{ error }
+
 // usageError marks a mistake in the command line.
 type usageError struct{ error }
 
@@ -38,6 +41,12 @@ var Version = "0.1.0-dev"
 func Main(args []string, stdout, stderr io.Writer) int {
 	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
 	defer stop()
+	go func() {
+		// After the first Ctrl-C the run winds down; a second one ends
+		// the program at once (rig processes die with it).
+		<-ctx.Done()
+		stop()
+	}()
 	defer plugin.CleanupClients()
 
 	root := newRoot(stdout, stderr)

@@ -86,12 +86,19 @@ func loadInputs(cfg Config, demo string, args []string) (*scenarios.Scenario, *r
 	if len(args) == 1 {
 		base = filepath.Dir(args[0])
 	}
+	var own *ratebooks.RateBook
 	if cfg.RateBook != "" {
+		if own, err = loadRateBook(name, base); err != nil {
+			return nil, nil, err
+		}
 		name, base = cfg.RateBook, "."
 	}
 	rb, err := loadRateBook(name, base)
 	if err != nil {
 		return nil, nil, err
+	}
+	if own != nil && own.Currency != rb.Currency {
+		return nil, nil, usageError{fmt.Errorf("%s: rate_book: %s prices in %s, but --rate-book %s prices in %s; compare plans in one currency", sc.Source, own.Name, own.Currency, rb.Name, rb.Currency)}
 	}
 	return sc, rb, nil
 }
@@ -203,8 +210,9 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 		}
 		outs.add(w.path, b.Bytes())
 	}
-	if res.Status == mip.Interrupted {
-		fmt.Fprintf(stderr, "rigmix: solve interrupted; best plan so far is within %.2f%% of optimal\n", 100*res.Gap)
+	if res.Status == mip.Interrupted && ctx.Err() != nil {
+		// Ctrl-C: keep the previous files; the run did not finish.
+		return interruptedError{fmt.Errorf("interrupted; the best plan so far (within %.2f%% of optimal) was not written, and earlier output files are unchanged", 100*res.Gap)}
 	}
 	if err := outs.write(); err != nil {
 		return err
