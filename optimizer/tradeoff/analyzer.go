@@ -156,7 +156,7 @@ func (a *Analyzer) Alternatives(ctx context.Context) ([]Summary, error) {
 	}
 	budget := a.cfg.Budget
 	if budget <= 0 {
-		budget = roundTo(DefaultBudgetShare*a.cheapest.sum.TotalCost, 0)
+		budget = roundTo(DefaultBudgetShare*a.cheapest.sum.PricedCost, 0)
 	}
 	cov, err := a.maxCover(ctx, budget, "most coverage")
 	if err != nil {

@@ -135,17 +135,16 @@ func (a *Analyzer) BudgetCurve(ctx context.Context) (*BudgetCurve, error) {
 		Method:        "maximal covering (Church & ReVelle 1974), priority-weighted area, cost ≤ budget",
 		GapRel:        a.st.GapRel,
 		Currency:      a.pr.In.RateBook.Currency,
-		MinimalBudget: minimal.TotalCost, FullBudget: full.TotalCost,
+		MinimalBudget: minimal.PricedCost, FullBudget: full.PricedCost,
 	}
-	// Budgets allow the estimate's rounding (half a cent a line) at both
-	// ends, so that the plans that set them fit them.
-	lo := minimal.TotalCost + 0.005*float64(len(minimal.plan.Estimate)+1)
+	// Budgets bound the priced cost; a cent at both ends allows the
+	// rounding of PricedCost, so that the plans that set them fit them.
+	lo := minimal.PricedCost + 0.01
 	n := a.cfg.BudgetPoints
 	budgets := make([]float64, n)
 	for k := range budgets {
-		budgets[k] = roundTo(lo+float64(k)*(full.TotalCost-lo)/float64(n-1), 2)
+		budgets[k] = roundTo(lo+float64(k)*(full.PricedCost+0.01-lo)/float64(n-1), 2)
 	}
-	budgets[n-1] = full.TotalCost + 0.005*float64(len(full.plan.Estimate)+1)
 	jobs := make([]func(context.Context) (Summary, error), n)
 	for k, b := range budgets {
 		b := b

@@ -202,8 +202,8 @@ func nonDominated(pts []FrontierPoint) []FrontierPoint {
 			if i == j || !q.Feasible {
 				continue
 			}
-			noWorse := q.FieldDays <= p.FieldDays && q.TotalCost <= p.TotalCost
-			better := q.FieldDays < p.FieldDays || q.TotalCost < p.TotalCost
+			noWorse := q.FieldDays <= p.FieldDays && q.PricedCost <= p.PricedCost
+			better := q.FieldDays < p.FieldDays || q.PricedCost < p.PricedCost
 			if noWorse && (better || j < i) {
 				dom = true
 				break
@@ -232,7 +232,7 @@ func balanced(pts []FrontierPoint) int {
 	minC, maxC := math.Inf(1), math.Inf(-1)
 	minD, maxD := math.Inf(1), math.Inf(-1)
 	for _, p := range pts {
-		minC, maxC = math.Min(minC, p.TotalCost), math.Max(maxC, p.TotalCost)
+		minC, maxC = math.Min(minC, p.PricedCost), math.Max(maxC, p.PricedCost)
 		minD, maxD = math.Min(minD, float64(p.FieldDays)), math.Max(maxD, float64(p.FieldDays))
 	}
 	scale := func(v, lo, hi float64) float64 {
@@ -243,7 +243,7 @@ func balanced(pts []FrontierPoint) int {
 	}
 	best, bestD := 0, math.Inf(1)
 	for i, p := range pts {
-		dc := scale(p.TotalCost, minC, maxC)
+		dc := scale(p.PricedCost, minC, maxC)
 		dd := scale(float64(p.FieldDays), minD, maxD)
 		if d := math.Hypot(dc, dd); d < bestD-1e-12 {
 			best, bestD = i, d

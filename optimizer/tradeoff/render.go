@@ -95,7 +95,7 @@ func WriteAlternativesText(w io.Writer, rows []Summary, featureFt float64) error
 // one miss-chance column per zone.
 func WriteAlternativesCSV(w io.Writer, rows []Summary) error {
 	cw := csv.NewWriter(w)
-	head := []string{"alternative", "feasible", "status", "rate_book", "total_cost", "field_days", "rigs_mobilized", "rigs",
+	head := []string{"alternative", "feasible", "status", "rate_book", "total_cost", "priced_cost", "field_days", "rigs_mobilized", "rigs",
 		"points", "boring", "cpt", "test_pit", "probe", "area_covered_percent", "weighted_covered_percent",
 		"largest_gap_ft", "rules_met", "rules_total", "optimality_gap"}
 	var zones []string
@@ -118,7 +118,7 @@ func WriteAlternativesCSV(w io.Writer, rows []Summary) error {
 		if s.LargestGapFt != nil {
 			gap = ff(*s.LargestGapFt, 1)
 		}
-		rec := []string{s.Label, strconv.FormatBool(s.Feasible), s.Status, s.RateBook, ff(s.TotalCost, 2), strconv.Itoa(s.FieldDays),
+		rec := []string{s.Label, strconv.FormatBool(s.Feasible), s.Status, s.RateBook, ff(s.TotalCost, 2), ff(s.PricedCost, 2), strconv.Itoa(s.FieldDays),
 			strconv.Itoa(s.RigsMobilized), strings.Join(s.Rigs, " "), strconv.Itoa(s.Points),
 			strconv.Itoa(s.PointsByMethod["boring"]), strconv.Itoa(s.PointsByMethod["cpt"]),
 			strconv.Itoa(s.PointsByMethod["test_pit"]), strconv.Itoa(s.PointsByMethod["probe"]),
@@ -145,7 +145,7 @@ func ff(v float64, places int) string { return strconv.FormatFloat(v, 'f', place
 // points.
 func WriteFrontierCSV(w io.Writer, f *Frontier) error {
 	cw := csv.NewWriter(w)
-	if err := cw.Write([]string{"max_days", "feasible", "status", "field_days", "total_cost", "bound_cost", "optimality_gap", "rigs_mobilized", "rigs", "points", "on_frontier", "balanced"}); err != nil {
+	if err := cw.Write([]string{"max_days", "feasible", "status", "field_days", "total_cost", "priced_cost", "bound_cost", "optimality_gap", "rigs_mobilized", "rigs", "points", "on_frontier", "balanced"}); err != nil {
 		return err
 	}
 	on := map[int]bool{}
@@ -158,7 +158,7 @@ func WriteFrontierCSV(w io.Writer, f *Frontier) error {
 	}
 	for _, p := range f.Swept {
 		rec := []string{strconv.Itoa(p.MaxDays), strconv.FormatBool(p.Feasible), p.Status, strconv.Itoa(p.FieldDays),
-			ff(p.TotalCost, 2), ff(p.BoundCost, 2), ff(p.OptimalityGap, 6), strconv.Itoa(p.RigsMobilized), strings.Join(p.Rigs, " "),
+			ff(p.TotalCost, 2), ff(p.PricedCost, 2), ff(p.BoundCost, 2), ff(p.OptimalityGap, 6), strconv.Itoa(p.RigsMobilized), strings.Join(p.Rigs, " "),
 			strconv.Itoa(p.Points), strconv.FormatBool(on[p.MaxDays]), strconv.FormatBool(p.MaxDays == bal)}
 		if err := cw.Write(rec); err != nil {
 			return err
@@ -171,11 +171,11 @@ func WriteFrontierCSV(w io.Writer, f *Frontier) error {
 // WriteBudgetCSV writes the budget–coverage curve.
 func WriteBudgetCSV(w io.Writer, b *BudgetCurve) error {
 	cw := csv.NewWriter(w)
-	if err := cw.Write([]string{"budget", "feasible", "status", "total_cost", "weighted_covered_percent", "area_covered_percent", "points", "field_days", "rules_met", "rules_total", "optimality_gap", "from_lower_budget", "every_rule_met_budget", "knee"}); err != nil {
+	if err := cw.Write([]string{"budget", "feasible", "status", "total_cost", "priced_cost", "weighted_covered_percent", "area_covered_percent", "points", "field_days", "rules_met", "rules_total", "optimality_gap", "from_lower_budget", "every_rule_met_budget", "knee"}); err != nil {
 		return err
 	}
 	for i, p := range b.Points {
-		rec := []string{ff(p.Budget, 2), strconv.FormatBool(p.Feasible), p.Status, ff(p.TotalCost, 2), ff(p.WeightedCoveredPct, 2),
+		rec := []string{ff(p.Budget, 2), strconv.FormatBool(p.Feasible), p.Status, ff(p.TotalCost, 2), ff(p.PricedCost, 2), ff(p.WeightedCoveredPct, 2),
 			ff(p.AreaCoveredPct, 2), strconv.Itoa(p.Points), strconv.Itoa(p.FieldDays), strconv.Itoa(p.RulesMet), strconv.Itoa(p.RulesTotal),
 			ff(p.OptimalityGap, 6), strconv.FormatBool(p.FromLower), strconv.FormatBool(i == b.Full), strconv.FormatBool(i == b.Knee)}
 		if err := cw.Write(rec); err != nil {
@@ -188,7 +188,7 @@ func WriteBudgetCSV(w io.Writer, b *BudgetCurve) error {
 
 // WriteRuleCostsText writes what each rule costs, the dearest first.
 func WriteRuleCostsText(w io.Writer, rules []RuleCost, base float64) error {
-	fmt.Fprintf(w, "What each rule costs (cheapest plan %s; savings re-solved):\n", money(base))
+	fmt.Fprintf(w, "What each rule costs (cheapest plan priced at %s; savings in priced cost, re-solved):\n", money(base))
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "zone\trule\trequired\tone step\tsaving\tdropped\tsaving\tLP estimate of the step")
 	rel := func(r *Relaxation) (string, string) {
@@ -248,7 +248,7 @@ func WriteFrontierText(w io.Writer, f *Frontier) error {
 	fmt.Fprintf(w, "Cost–days frontier (%s; each solve to a %.2g%% gap):\n", f.Method, 100*f.GapRel)
 	fmt.Fprintf(w, "fastest finish found %d days (proven bound %d); cheapest plan %d days\n", f.FastestDays, f.FastestBound, f.CheapestDays)
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
-	fmt.Fprintln(tw, "day limit\tfield days\ttotal cost\tcost bound\trigs\tpoints\topt. gap %\t\t")
+	fmt.Fprintln(tw, "day limit\tfield days\tpriced cost\tcost bound\trigs\tpoints\topt. gap %\t\t")
 	on := map[int]bool{}
 	for _, p := range f.Points {
 		on[p.MaxDays] = true
@@ -271,7 +271,7 @@ func WriteFrontierText(w io.Writer, f *Frontier) error {
 		default:
 			mark = "dominated"
 		}
-		fmt.Fprintf(tw, "%d\t%d\t%s\t%s\t%d\t%d\t%.2f\t%s\t\n", p.MaxDays, p.FieldDays, money(p.TotalCost), money(p.BoundCost),
+		fmt.Fprintf(tw, "%d\t%d\t%s\t%s\t%d\t%d\t%.2f\t%s\t\n", p.MaxDays, p.FieldDays, money(p.PricedCost), money(p.BoundCost),
 			p.RigsMobilized, p.Points, 100*p.OptimalityGap, mark)
 	}
 	return tw.Flush()
@@ -281,7 +281,7 @@ func WriteFrontierText(w io.Writer, f *Frontier) error {
 func WriteBudgetText(w io.Writer, b *BudgetCurve) error {
 	fmt.Fprintf(w, "Budget–coverage curve (%s):\n", b.Method)
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
-	fmt.Fprintln(tw, "budget\tcost\tweighted covered %\tarea covered %\tpoints\trules met\topt. gap %\t\t")
+	fmt.Fprintln(tw, "budget\tpriced cost\tweighted covered %\tarea covered %\tpoints\trules met\topt. gap %\t\t")
 	for i, p := range b.Points {
 		if !p.Feasible {
 			fmt.Fprintf(tw, "%s\t%s\t\t\t\t\t\t\t\n", money(p.Budget), p.Status)
@@ -297,7 +297,7 @@ func WriteBudgetText(w io.Writer, b *BudgetCurve) error {
 		if p.FromLower {
 			marks = append(marks, "plan of a lower budget")
 		}
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%d\t%d/%d\t%.2f\t%s\t\n", money(p.Budget), money(p.TotalCost), pct(p.WeightedCoveredPct),
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%d\t%d/%d\t%.2f\t%s\t\n", money(p.Budget), money(p.PricedCost), pct(p.WeightedCoveredPct),
 			pct(p.AreaCoveredPct), p.Points, p.RulesMet, p.RulesTotal, 100*p.OptimalityGap, strings.Join(marks, ", "))
 	}
 	return tw.Flush()
@@ -314,7 +314,7 @@ func (an *Analysis) WriteText(w io.Writer) error {
 		func() error {
 			base := 0.0
 			if len(an.Alternatives) > 0 {
-				base = an.Alternatives[0].TotalCost
+				base = an.Alternatives[0].PricedCost
 			}
 			return WriteRuleCostsText(w, an.RuleCosts, base)
 		},

@@ -18,8 +18,9 @@ import (
 type Relaxation struct {
 	Change string  `json:"change"`
 	Cost   float64 `json:"cost"`
-	// Saving is the cheapest plan's cost less Cost. Both are found to
-	// the stated gap, so a saving may read up to that gap below zero.
+	// Cost is the relaxed plan's priced cost (Summary.PricedCost); Saving
+	// is the cheapest plan's priced cost less Cost. Both are found to the
+	// stated gap, so a saving may read up to that gap below zero.
 	Saving float64 `json:"saving"`
 	// MaxSaving is the most the relaxation can save, proven: the
 	// cheapest plan's cost less the relaxed solve's bound.
@@ -68,7 +69,7 @@ const (
 func (a *Analyzer) RuleCosts(ctx context.Context) ([]RuleCost, error) {
 	pr := a.pr
 	sc := pr.In.Scenario
-	base := a.cheapest.sum.TotalCost
+	base := a.cheapest.sum.PricedCost
 	duals, err := lp.Solve(&pr.Model.Problem.LP, lp.Options{})
 	if err != nil || duals.Status != lp.Optimal {
 		duals = nil // no LP estimates; the re-solves still stand
@@ -232,7 +233,7 @@ func (a *Analyzer) relaxed(ctx context.Context, v *plan.Prepared, change string,
 		r.Note = "no plan found within the limits"
 		return r, nil
 	}
-	r.Cost = o.sum.TotalCost
+	r.Cost = o.sum.PricedCost
 	r.Saving = roundTo(base-r.Cost, 2)
 	r.MaxSaving = roundTo(base-boundCost(o.res, v.Spec, o.sum.FieldDays), 2)
 	return r, nil

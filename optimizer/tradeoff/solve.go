@@ -86,8 +86,14 @@ type Summary struct {
 	Note   string `json:"note,omitempty"`
 	Status string `json:"status"` // solver status; "no plan" when none was found
 	// Feasible is false when no plan was found within the limits.
-	Feasible       bool           `json:"feasible"`
-	TotalCost      float64        `json:"total_cost"`
+	Feasible bool `json:"feasible"`
+	// TotalCost is the plan's itemized estimate total.
+	TotalCost float64 `json:"total_cost"`
+	// PricedCost is the cost the model prices and the solver minimizes
+	// (Σ option costs + mobilizations + day costs). Budgets, savings and
+	// the frontier's ordering use it; the estimate may differ where the
+	// plan prices items outside the model.
+	PricedCost     float64        `json:"priced_cost"`
 	FieldDays      int            `json:"field_days"`
 	RigsMobilized  int            `json:"rigs_mobilized"`
 	Rigs           []string       `json:"rigs"`
@@ -176,6 +182,7 @@ func summarize(pr *plan.Prepared, res *mip.Result, featureFt float64, label stri
 	s.plan = p
 	s.Feasible = true
 	s.TotalCost = p.Total
+	s.PricedCost = roundTo(pr.Model.Decode(res.X).Cost, 2)
 	s.FieldDays = p.Finish
 	s.OptimalityGap = roundTo(res.Gap, 6)
 	for _, r := range p.Rigs {

@@ -190,26 +190,26 @@ func WriteFrontierSVG(w io.Writer, f *Frontier) error {
 	}
 	c := &chart{
 		title:  "Cost and field days: least cost for each day limit",
-		xLabel: "field days (rigs in parallel)", yLabel: "total cost (" + cur + ")",
+		xLabel: "field days (rigs in parallel)", yLabel: "priced cost (" + cur + ")",
 		yMoney: true, xInteger: true,
 	}
 	on := map[int]bool{}
 	for _, p := range f.Points {
-		c.line = append(c.line, xy{float64(p.FieldDays), p.TotalCost})
+		c.line = append(c.line, xy{float64(p.FieldDays), p.PricedCost})
 		on[p.MaxDays] = true
 	}
 	for _, p := range f.Swept {
 		if p.Feasible && !on[p.MaxDays] {
-			c.hollow = append(c.hollow, xy{float64(p.FieldDays), p.TotalCost})
+			c.hollow = append(c.hollow, xy{float64(p.FieldDays), p.PricedCost})
 		}
 	}
 	if n := len(f.Points); n > 0 {
 		first, last, bal := f.Points[0], f.Points[n-1], f.Points[f.Balanced]
-		c.marks = append(c.marks, chartMark{xy{float64(bal.FieldDays), bal.TotalCost}, "ring", "balanced"})
+		c.marks = append(c.marks, chartMark{xy{float64(bal.FieldDays), bal.PricedCost}, "ring", "balanced"})
 		if n > 1 {
-			c.marks = append(c.marks, chartMark{xy{float64(first.FieldDays), first.TotalCost}, "", "fastest"})
+			c.marks = append(c.marks, chartMark{xy{float64(first.FieldDays), first.PricedCost}, "", "fastest"})
 		}
-		c.marks = append(c.marks, chartMark{xy{float64(last.FieldDays), last.TotalCost}, "", "cheapest"})
+		c.marks = append(c.marks, chartMark{xy{float64(last.FieldDays), last.PricedCost}, "", "cheapest"})
 	}
 	return c.write(w)
 }

@@ -105,16 +105,16 @@ func TestFrontierMonotoneAndFeasible(t *testing.T) {
 				prev := f.Swept[i-1]
 				// cost(D) ≤ optimum(D) + gap·cost(D) ≤ optimum(D−1) + gap·cost(D)
 				// ≤ cost(D−1) + gap·cost(D); cents for rounding.
-				if tol := p.OptimalityGap*p.TotalCost + 0.05*float64(p.MaxDays) + 0.05; p.TotalCost > prev.TotalCost+tol {
-					t.Errorf("cost rises from %.2f at D=%d to %.2f at D=%d (tolerance %.2f)", prev.TotalCost, prev.MaxDays, p.TotalCost, p.MaxDays, tol)
+				if tol := p.OptimalityGap*p.PricedCost + 0.05*float64(p.MaxDays) + 0.05; p.PricedCost > prev.PricedCost+tol {
+					t.Errorf("cost rises from %.2f at D=%d to %.2f at D=%d (tolerance %.2f)", prev.PricedCost, prev.MaxDays, p.PricedCost, p.MaxDays, tol)
 				}
-				if p.BoundCost > p.TotalCost+0.01 {
-					t.Errorf("D=%d: bound %.2f above the plan's cost %.2f", p.MaxDays, p.BoundCost, p.TotalCost)
+				if p.BoundCost > p.PricedCost+0.01 {
+					t.Errorf("D=%d: bound %.2f above the plan's cost %.2f", p.MaxDays, p.BoundCost, p.PricedCost)
 				}
 			}
 			for i := 1; i < len(f.Points); i++ {
-				if !(f.Points[i].FieldDays > f.Points[i-1].FieldDays && f.Points[i].TotalCost < f.Points[i-1].TotalCost) {
-					t.Errorf("frontier points %d and %d do not trade days for cost: %+v / %+v", i-1, i, f.Points[i-1].Summary.TotalCost, f.Points[i].Summary.TotalCost)
+				if !(f.Points[i].FieldDays > f.Points[i-1].FieldDays && f.Points[i].PricedCost < f.Points[i-1].PricedCost) {
+					t.Errorf("frontier points %d and %d do not trade days for cost: %+v / %+v", i-1, i, f.Points[i-1].Summary.PricedCost, f.Points[i].Summary.PricedCost)
 				}
 			}
 		})
@@ -199,7 +199,7 @@ func TestSweepAndFilter(t *testing.T) {
 		}
 	}
 	pt := func(d, days int, cost float64) FrontierPoint {
-		return FrontierPoint{MaxDays: d, Summary: Summary{Feasible: true, FieldDays: days, TotalCost: cost}}
+		return FrontierPoint{MaxDays: d, Summary: Summary{Feasible: true, FieldDays: days, PricedCost: cost}}
 	}
 	// D=7 found a dearer plan than D=6 (a node limit can do that): it is
 	// dominated; D=8's plan ties D=6 on days and is dearer.
@@ -259,7 +259,7 @@ func TestFrontierAndBudgetPointsAgreeWithCBC(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	budget := roundTo(0.6*a.Cheapest().TotalCost, 0)
+	budget := roundTo(0.6*a.Cheapest().PricedCost, 0)
 	cells := a.modelCells()
 	for _, tc := range []struct {
 		name string
@@ -305,16 +305,16 @@ func TestBudgetCurve(t *testing.T) {
 		if !p.Feasible {
 			t.Fatalf("budget %.2f: no plan (%s)", p.Budget, p.Status)
 		}
-		if p.TotalCost > p.Budget+0.05 {
-			t.Errorf("budget %.2f: plan costs %.2f", p.Budget, p.TotalCost)
+		if p.PricedCost > p.Budget+0.05 {
+			t.Errorf("budget %.2f: plan costs %.2f", p.Budget, p.PricedCost)
 		}
 		if i > 0 && p.WeightedCoveredPct < bc.Points[i-1].WeightedCoveredPct-1e-9 {
 			t.Errorf("coverage falls from %.2f%% to %.2f%% as the budget grows", bc.Points[i-1].WeightedCoveredPct, p.WeightedCoveredPct)
 		}
 	}
 	full := bc.Points[bc.Full]
-	if math.Abs(bc.FullBudget-a.Cheapest().TotalCost) > 0.01 || full.WeightedCoveredPct < 100-1e-9 {
-		t.Errorf("full budget %.2f (cheapest %.2f) covers %.2f%%", bc.FullBudget, a.Cheapest().TotalCost, full.WeightedCoveredPct)
+	if math.Abs(bc.FullBudget-a.Cheapest().PricedCost) > 0.01 || full.WeightedCoveredPct < 100-1e-9 {
+		t.Errorf("full budget %.2f (cheapest %.2f) covers %.2f%%", bc.FullBudget, a.Cheapest().PricedCost, full.WeightedCoveredPct)
 	}
 	if bc.Points[0].WeightedCoveredPct >= full.WeightedCoveredPct {
 		t.Errorf("the minimal budget covers as much as the full one: no curve")
@@ -381,12 +381,8 @@ func TestRuleCosts(t *testing.T) {
 		if err != nil || res.X == nil {
 			t.Fatalf("re-plan: %v %v", res.Status, err)
 		}
-		p, err := pr.Assemble(res)
-		if err != nil {
-			t.Fatal(err)
-		}
-		saving := base.TotalCost - p.Total
-		tol := r.Step.Gap*r.Step.Cost + base.OptimalityGap*base.TotalCost + 1
+		saving := base.PricedCost - pr.Model.Decode(res.X).Cost
+		tol := r.Step.Gap*r.Step.Cost + base.OptimalityGap*base.PricedCost + 1
 		if math.Abs(saving-r.Step.Saving) > tol {
 			t.Fatalf("%s minimum points %d → %d: analysis saves %.2f, re-planned scenario saves %.2f (tolerance %.2f)", r.Zone, n, n-1, r.Step.Saving, saving, tol)
 		}
@@ -418,7 +414,7 @@ func TestAlternativesAndOutputs(t *testing.T) {
 			func() error { return WriteFrontierSVG(&b, an.Frontier) },
 			func() error { return WriteBudgetCSV(&b, an.Budget) },
 			func() error { return WriteBudgetSVG(&b, an.Budget) },
-			func() error { return WriteRuleCostsText(&b, an.RuleCosts, an.Alternatives[0].TotalCost) },
+			func() error { return WriteRuleCostsText(&b, an.RuleCosts, an.Alternatives[0].PricedCost) },
 			func() error { return WriteRuleCostsCSV(&b, an.RuleCosts) },
 			func() error { return json.NewEncoder(&b).Encode(an) },
 		} {
@@ -441,11 +437,11 @@ func TestAlternativesAndOutputs(t *testing.T) {
 		t.Fatalf("rows %s", got)
 	}
 	cheap, fast, cov := an.Alternatives[0], an.Alternatives[1], an.Alternatives[3]
-	if fast.FieldDays > cheap.FieldDays || fast.TotalCost < cheap.TotalCost-cheap.OptimalityGap*cheap.TotalCost {
-		t.Errorf("fastest (%d days, %.2f) does not trade money for days against cheapest (%d days, %.2f)", fast.FieldDays, fast.TotalCost, cheap.FieldDays, cheap.TotalCost)
+	if fast.FieldDays > cheap.FieldDays || fast.PricedCost < cheap.PricedCost-cheap.OptimalityGap*cheap.PricedCost {
+		t.Errorf("fastest (%d days, %.2f) does not trade money for days against cheapest (%d days, %.2f)", fast.FieldDays, fast.PricedCost, cheap.FieldDays, cheap.PricedCost)
 	}
-	if cov.TotalCost > roundTo(DefaultBudgetShare*cheap.TotalCost, 0)+0.05 {
-		t.Errorf("most coverage spends %.2f over its budget", cov.TotalCost)
+	if cov.PricedCost > roundTo(DefaultBudgetShare*cheap.PricedCost, 0)+0.05 {
+		t.Errorf("most coverage spends %.2f over its budget", cov.PricedCost)
 	}
 	if cheap.RulesMet != cheap.RulesTotal || cheap.LargestGapFt == nil || len(cheap.Miss) != len(an.Alternatives[0].Miss) {
 		t.Errorf("cheapest row: %+v", cheap)
