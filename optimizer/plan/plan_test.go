@@ -274,3 +274,22 @@ func TestDemoModelsAgreeWithCBC(t *testing.T) {
 		})
 	}
 }
+
+// TestInfeasibleRulesAreExplained: a depth no offered rig reaches and a count
+// no zone has room for are named with the zone, the rule and the nearest
+// change that would make them plannable.
+func TestInfeasibleRulesAreExplained(t *testing.T) {
+	in := demoInput(t, "hillside")
+	in.Scenario.Zones[0].Rules.MinDepthFt = 400
+	_, err := Prepare(context.Background(), in, Options{})
+	if err == nil || !strings.Contains(err.Error(), "zones[0]") || !strings.Contains(err.Error(), "lower rules.min_depth to at most 150 ft") {
+		t.Fatalf("want the zone and the deepest reach named, got %v", err)
+	}
+
+	in = demoInput(t, "hillside")
+	in.Scenario.Zones[0].Rules.MinPoints = 5000
+	_, err = Prepare(context.Background(), in, Options{})
+	if err == nil || !strings.Contains(err.Error(), "zones[0].rules.min_points") || !strings.Contains(err.Error(), "needs 5000 points but has room for") {
+		t.Fatalf("want min_points named with the room there is, got %v", err)
+	}
+}

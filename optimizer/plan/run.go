@@ -315,6 +315,9 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 	for _, rd := range pr.Rigs {
 		spec.Rigs = append(spec.Rigs, model.Rig{Name: rd.name, MobCost: rd.mobCost, MobHours: rd.mob.Hours, DayCost: rd.dayCost})
 	}
+	if err := checkRoom(pr, spec); err != nil {
+		return nil, err
+	}
 	t0 = time.Now()
 	m, err := model.Build(spec)
 	pr.Timings.add("model build", t0)
@@ -416,7 +419,78 @@ func zoneReachable(pr *Prepared, z int, zn scenarios.Zone) error {
 	if len(pr.Rigs) == 0 {
 		why = append(why, "no rigs are offered")
 	}
-	return inputErrorf("%s: zones[%d]: zone %q cannot be explored by any offered rig: %s", pr.In.Scenario.Source, z, zn.ID, strings.Join(why, "; "))
+	return inputErrorf("%s: zones[%d]: zone %q cannot be explored by any offered rig: %s%s", pr.In.Scenario.Source, z, zn.ID, strings.Join(why, "; "), relaxations(pr, zn))
+}
+
+// relaxations suggests the nearest changes that would let an offered rig
+// explore a zone, from the rigs' own stated limits: a depth they reach, the
+// ground they work on, the slope they climb, the clearance they need.
+func relaxations(pr *Prepared, zn scenarios.Zone) string {
+	var deepest, steepest, lowest float64
+	lowest = math.Inf(1)
+	surfaceOK, methodOK := false, false
+	for _, rd := range pr.Rigs {
+		for _, m := range zoneMethods(zn, rd.info) {
+			methodOK = true
+			for _, ml := range rd.info.Methods {
+				if ml.Method == m {
+					deepest = math.Max(deepest, ml.MaxDepthFt)
+				}
+			}
+		}
+		for _, s := range rd.info.Access.Surfaces {
+			surfaceOK = surfaceOK || s == zn.Ground.Surface
+		}
+		steepest = math.Max(steepest, rd.info.Access.MaxSlopePct)
+		lowest = math.Min(lowest, rd.info.Access.MinOverheadFt)
+	}
+	var s []string
+	if !methodOK {
+		s = append(s, "allow another method in rules.methods, or offer a rig that performs one of those allowed")
+	}
+	if methodOK && zn.Rules.MinDepthFt > deepest {
+		s = append(s, fmt.Sprintf("lower rules.min_depth to at most %.0f ft (the deepest an offered rig reaches with an allowed method)", deepest))
+	}
+	if !surfaceOK {
+		s = append(s, fmt.Sprintf("offer a rig that works on %s ground (see `rigmix rigs`)", zn.Ground.Surface))
+	}
+	if zn.Ground.SlopePct > steepest {
+		s = append(s, fmt.Sprintf("offer a rig that climbs %.0f %% slopes (the steepest offered climbs %.0f %%)", zn.Ground.SlopePct, steepest))
+	}
+	if zn.Ground.OverheadFt > 0 && zn.Ground.OverheadFt < lowest {
+		s = append(s, fmt.Sprintf("offer a rig that works under %.0f ft of clearance (the lowest offered needs %.0f ft)", zn.Ground.OverheadFt, lowest))
+	}
+	if len(s) == 0 {
+		return ""
+	}
+	return ". Nearest changes that would let a rig in: " + strings.Join(s, "; ")
+}
+
+// checkRoom reports a zone whose count or share rules no plan can meet: more
+// points asked than allowed spots in the zone, or a sampled share with no
+// sampling method possible.
+func checkRoom(pr *Prepared, spec *model.Spec) error {
+	sc := pr.In.Scenario
+	room := make([]int, len(sc.Zones))
+	sampled := make([]bool, len(sc.Zones))
+	seen := make([]bool, spec.NumPoints)
+	for _, op := range spec.Options {
+		z := spec.PointZone[op.Point]
+		if !seen[op.Point] {
+			seen[op.Point] = true
+			room[z]++
+		}
+		sampled[z] = sampled[z] || op.Sampled
+	}
+	for z, zn := range sc.Zones {
+		if n := pr.ZoneMin[z]; n > room[z] {
+			return inputErrorf("%s: zones[%d].rules.min_points: zone %q needs %d points but has room for %d at its candidate spacing (outside no-go areas, where an offered rig can work); lower min_points or raise area_per_point", sc.Source, z, zn.ID, n, room[z])
+		}
+		if zn.Rules.SampledShare > 0 && !sampled[z] && room[z] > 0 {
+			return inputErrorf("%s: zones[%d].rules.sampled_share: zone %q asks for %.0f %% sampled points, but no allowed method and offered rig recovers samples there; allow boring or test_pit, or drop the share", sc.Source, z, zn.ID, 100*zn.Rules.SampledShare)
+		}
+	}
+	return nil
 }
 
 // labProgram is the scenario's lab program; nil means the default program.
