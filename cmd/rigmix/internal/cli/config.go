@@ -20,6 +20,10 @@ type Config struct {
 	TimeLimit   float64 `mapstructure:"time_limit"`   // seconds; 0: the scenario's
 	Threads     int     `mapstructure:"threads"`
 	RateBook    string  `mapstructure:"rate_book"` // demo name or file; "": the scenario's
+	// PluginPins pins external rig plugins by SHA-256: executable name in
+	// the plugin folder → hex digest. A pinned plugin whose file does not
+	// match is refused. Set in the configuration file only.
+	PluginPins map[string]string `mapstructure:"plugin_pins"`
 }
 
 // defaults is the bottom layer.
@@ -75,8 +79,11 @@ func (g *globalOptions) load(fs *pflag.FlagSet) (Config, error) {
 			known[k] = true
 		}
 		for _, k := range v.AllKeys() {
+			if strings.HasPrefix(k, "plugin_pins.") {
+				continue
+			}
 			if !known[k] && v.InConfig(k) {
-				return Config{}, usageError{fmt.Errorf("%s: %s: unknown setting (known: call_timeout, gap, plugin_dir, rate_book, threads, time_limit)", file, k)}
+				return Config{}, usageError{fmt.Errorf("%s: %s: unknown setting (known: call_timeout, gap, plugin_dir, plugin_pins, rate_book, threads, time_limit)", file, k)}
 			}
 		}
 	}

@@ -80,3 +80,19 @@ func TestConfigRejects(t *testing.T) {
 		})
 	}
 }
+
+func TestConfigPins(t *testing.T) {
+	file := filepath.Join(t.TempDir(), "rigmix.yaml")
+	digest := "9f86d081884c7d659a2feaa0c55ad015a3bf4f1b2b0b822cd15d6c15b0f00a08"
+	if err := os.WriteFile(file, []byte("plugin_dir: /opt/rigs\nplugin_pins:\n  hand-crew: "+digest+"\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	g := &globalOptions{configFile: file}
+	cfg, err := g.load(pflag.NewFlagSet("x", pflag.ContinueOnError))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if cfg.PluginPins["hand-crew"] != digest || cfg.PluginDir != "/opt/rigs" {
+		t.Fatalf("pins %v, plugin dir %q", cfg.PluginPins, cfg.PluginDir)
+	}
+}

@@ -133,6 +133,7 @@ func openFleet(ctx context.Context, cfg Config, want []string) (*host.Fleet, err
 	return host.Open(ctx, host.Options{
 		Builtins:    bs,
 		PluginDir:   cfg.PluginDir,
+		Pins:        cfg.PluginPins,
 		CallTimeout: time.Duration(cfg.CallTimeout * float64(time.Second)),
 		SelfCommand: selfCommand,
 	})
