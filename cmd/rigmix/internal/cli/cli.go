@@ -106,6 +106,7 @@ func newRoot(stdout, stderr io.Writer) *cobra.Command {
 	root.AddCommand(newSolveCmd(g, stdout, stderr))
 	root.AddCommand(newScheduleCmd(g, stdout, stderr))
 	root.AddCommand(newReportCmd(g, stdout, stderr))
+	root.AddCommand(newTradeoffsCmd(g, stdout, stderr))
 	root.AddCommand(newRigServeCmd())
 	root.AddCommand(newGenSiteCmd(stdout))
 	return root
