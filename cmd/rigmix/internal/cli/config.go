@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"os"
+	"strconv"
 	"strings"
 
 	"github.com/spf13/pflag"
@@ -97,21 +98,58 @@ func (g *globalOptions) load(fs *pflag.FlagSet) (Config, error) {
 			}
 		})
 	}
+	// where names the layer a bad value came from, so the message points
+	// at the file when the file set it.
+	where := func(key string) string {
+		if file != "" && v.InConfig(key) && (fs == nil || !changed(fs, key)) && os.Getenv("RIGMIX_"+strings.ToUpper(key)) == "" {
+			return file + ": " + key
+		}
+		return key
+	}
+	if t := v.GetString("threads"); t != "" {
+		if _, err := strconv.Atoi(t); err != nil {
+			return Config{}, usageError{fmt.Errorf("%s: must be a whole number, 1 or 2, got %q", where("threads"), t)}
+		}
+	}
 	var c Config
 	if err := v.Unmarshal(&c); err != nil {
-		return Config{}, usageError{fmt.Errorf("configuration: %v", err)}
+		return Config{}, usageError{fmt.Errorf("%s: %v", firstNonEmpty(file, "configuration"), strings.ReplaceAll(err.Error(), "\n", " "))}
 	}
 	if c.Gap < 0 || c.Gap >= 1 {
-		return Config{}, usageError{fmt.Errorf("gap: must be in [0, 1), got %g", c.Gap)}
+		return Config{}, usageError{fmt.Errorf("%s: must be in [0, 1), got %g", where("gap"), c.Gap)}
 	}
 	if c.TimeLimit < 0 {
-		return Config{}, usageError{fmt.Errorf("time_limit: must be ≥ 0 seconds, got %g", c.TimeLimit)}
+		return Config{}, usageError{fmt.Errorf("%s: must be ≥ 0 seconds, got %g", where("time_limit"), c.TimeLimit)}
 	}
 	if c.CallTimeout <= 0 {
-		return Config{}, usageError{fmt.Errorf("call_timeout: must be > 0 seconds, got %g", c.CallTimeout)}
+		return Config{}, usageError{fmt.Errorf("%s: must be > 0 seconds, got %g", where("call_timeout"), c.CallTimeout)}
 	}
 	if c.Threads < 1 || c.Threads > 2 {
-		return Config{}, usageError{fmt.Errorf("threads: must be 1 or 2, got %d", c.Threads)}
+		return Config{}, usageError{fmt.Errorf("%s: must be 1 or 2, got %d", where("threads"), c.Threads)}
+	}
+	if c.PluginDir != "" {
+		if st, err := os.Stat(c.PluginDir); err != nil || !st.IsDir() {
+			return Config{}, usageError{fmt.Errorf("%s: %s: no such folder; give the folder that holds the rig plugin executables", where("plugin_dir"), c.PluginDir)}
+		}
 	}
 	return c, nil
+}
+
+// changed reports whether the flag bound to a configuration key was set.
+func changed(fs *pflag.FlagSet, key string) bool {
+	for flag, k := range flagKeys {
+		if k == key {
+			if f := fs.Lookup(flag); f != nil && f.Changed {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+func firstNonEmpty(a, b string) string {
+	if a != "" {
+		return a
+	}
+	return b
 }

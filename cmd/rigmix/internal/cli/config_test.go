@@ -82,9 +82,10 @@ func TestConfigRejects(t *testing.T) {
 }
 
 func TestConfigPins(t *testing.T) {
-	file := filepath.Join(t.TempDir(), "rigmix.yaml")
+	dir := t.TempDir()
+	file := filepath.Join(dir, "rigmix.yaml")
 	digest := "9f86d081884c7d659a2feaa0c55ad015a3bf4f1b2b0b822cd15d6c15b0f00a08"
-	if err := os.WriteFile(file, []byte("plugin_dir: /opt/rigs\nplugin_pins:\n  hand-crew: "+digest+"\n"), 0o644); err != nil {
+	if err := os.WriteFile(file, []byte("plugin_dir: "+dir+"\nplugin_pins:\n  hand-crew: "+digest+"\n"), 0o644); err != nil {
 		t.Fatal(err)
 	}
 	g := &globalOptions{configFile: file}
@@ -92,7 +93,7 @@ func TestConfigPins(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if cfg.PluginPins["hand-crew"] != digest || cfg.PluginDir != "/opt/rigs" {
+	if cfg.PluginPins["hand-crew"] != digest || cfg.PluginDir != dir {
 		t.Fatalf("pins %v, plugin dir %q", cfg.PluginPins, cfg.PluginDir)
 	}
 }

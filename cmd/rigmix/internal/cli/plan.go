@@ -7,6 +7,7 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"strings"
 	"time"
 
 	"github.com/spf13/cobra"
@@ -130,13 +131,83 @@ func openFleet(ctx context.Context, cfg Config, want []string) (*host.Fleet, err
 			bs = append(bs, n)
 		}
 	}
-	return host.Open(ctx, host.Options{
+	fleet, err := host.Open(ctx, host.Options{
 		Builtins:    bs,
 		PluginDir:   cfg.PluginDir,
 		Pins:        cfg.PluginPins,
 		CallTimeout: time.Duration(cfg.CallTimeout * float64(time.Second)),
 		SelfCommand: selfCommand,
 	})
+	if err != nil {
+		return nil, err
+	}
+	return fleet, nil
+}
+
+// checkRigsOffered names, by its field path, a rig the scenario offers that
+// neither a built-in nor a plugin in the plugin folder provides, with the
+// nearest name and where plugin rigs come from.
+func checkRigsOffered(sc *scenarios.Scenario, fleet *host.Fleet, cfg Config) error {
+	have := map[string]bool{}
+	var names []string
+	for _, r := range fleet.Rigs() {
+		have[r.Info.Name] = true
+		names = append(names, r.Info.Name)
+	}
+	for _, n := range builtin.Names() {
+		if !have[n] {
+			names = append(names, n)
+		}
+	}
+	for i, n := range sc.Rigs {
+		if have[n] {
+			continue
+		}
+		hint := ""
+		if near := nearest(n, names); near != "" {
+			hint = fmt.Sprintf("did you mean %s? ", near)
+		}
+		where := "no plugin folder is set (--plugin-dir or plugin_dir)"
+		if cfg.PluginDir != "" {
+			where = "the plugin folder " + cfg.PluginDir + " has no rig of that name"
+		}
+		return usageError{fmt.Errorf("%s: rigs[%d]: rig %q is not available; %sbuilt-in rigs are %s, and a plugin rig needs its executable in the plugin folder: %s",
+			sc.Source, i, n, hint, strings.Join(builtin.Names(), ", "), where)}
+	}
+	return nil
+}
+
+// nearest returns the name closest to s by edit distance, if it is close
+// enough to be a likely misspelling.
+func nearest(s string, names []string) string {
+	best, bestD := "", len(s)/2+1
+	for _, n := range names {
+		if d := editDistance(s, n); d < bestD {
+			best, bestD = n, d
+		}
+	}
+	return best
+}
+
+// editDistance is the Levenshtein distance between a and b.
+func editDistance(a, b string) int {
+	prev := make([]int, len(b)+1)
+	cur := make([]int, len(b)+1)
+	for j := range prev {
+		prev[j] = j
+	}
+	for i := 1; i <= len(a); i++ {
+		cur[0] = i
+		for j := 1; j <= len(b); j++ {
+			c := 1
+			if a[i-1] == b[j-1] {
+				c = 0
+			}
+			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+c)
+		}
+		prev, cur = cur, prev
+	}
+	return prev[len(b)]
 }
 
 func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, stdout, stderr io.Writer) error {
@@ -152,6 +223,9 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 		return err
 	}
 	defer fleet.Close()
+	if err := checkRigsOffered(sc, fleet, cfg); err != nil {
+		return err
+	}
 	tLaunch := time.Since(t0)
 	rigs := map[string]sdk.Rig{}
 	for _, r := range fleet.Rigs() {

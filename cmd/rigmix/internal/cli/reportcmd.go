@@ -67,6 +67,9 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 		return err
 	}
 	defer fleet.Close()
+	if err := checkRigsOffered(sc, fleet, cfg); err != nil {
+		return err
+	}
 	rigs := map[string]sdk.Rig{}
 	for _, r := range fleet.Rigs() {
 		rigs[r.Info.Name] = r

@@ -142,6 +142,9 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 		return err
 	}
 	defer fleet.Close()
+	if err := checkRigsOffered(sc, fleet, cfg); err != nil {
+		return err
+	}
 	rigs := map[string]sdk.Rig{}
 	for _, r := range fleet.Rigs() {
 		rigs[r.Info.Name] = r

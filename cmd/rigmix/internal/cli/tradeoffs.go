@@ -89,6 +89,9 @@ func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []st
 		return err
 	}
 	defer fleet.Close()
+	if err := checkRigsOffered(sc, fleet, cfg); err != nil {
+		return err
+	}
 	rigs := map[string]sdk.Rig{}
 	for _, r := range fleet.Rigs() {
 		rigs[r.Info.Name] = r
