@@ -293,3 +293,13 @@ func TestInfeasibleRulesAreExplained(t *testing.T) {
 		t.Fatalf("want min_points named with the room there is, got %v", err)
 	}
 }
+
+func TestSpacingTooFineIsRefused(t *testing.T) {
+	in := demoInput(t, "hillside")
+	in.Scenario.Zones[0].Rules.MaxSpacingFt = 0.5 // likely meant 0.5 of something else
+	_, err := Prepare(context.Background(), in, Options{})
+	var ie *InputError
+	if !errors.As(err, &ie) || !strings.Contains(err.Error(), "zones[0].rules.max_spacing") {
+		t.Fatalf("want the zone's spacing rule named, got %v", err)
+	}
+}

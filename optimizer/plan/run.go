@@ -169,6 +169,9 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 			Weight: zn.Priority,
 		}
 	}
+	if err := checkSize(sc); err != nil {
+		return nil, err
+	}
 	nogo := make([]geom.Polygon, len(sc.NoGo))
 	for i, ng := range sc.NoGo {
 		nogo[i] = ng.Polygon
@@ -510,4 +513,25 @@ func samplesOf(qs []sdk.Quantity, s sdk.Site) lab.Counts {
 		c.Bag += float64(lab.PitBagSamples(s.DepthFt, s.SampleIntervalFt))
 	}
 	return c
+}
+
+// maxCellsPerZone bounds the coverage cells of one zone (cells are laid at a
+// quarter of the spacing). A million cells is a zone some 250 times the
+// spacing on a side — far past any real rule — and almost always a spacing
+// given in the wrong unit; refusing it early beats minutes of work.
+const maxCellsPerZone = 1_000_000
+
+// checkSize refuses a spacing rule so fine for its zone that the model
+// would be unworkably large, naming the zone's rule and the likely cause.
+func checkSize(sc *scenarios.Scenario) error {
+	for z, zn := range sc.Zones {
+		s := zn.Rules.MaxSpacingFt
+		if s <= 0 {
+			continue
+		}
+		if cells := 16 * zn.Polygon.Area() / (s * s); cells > maxCellsPerZone {
+			return inputErrorf("%s: zones[%d].rules.max_spacing: %g ft in zone %q (%.0f ft²) would need about %.0f coverage cells, more than %d; is the spacing in the file's unit (%s)?", sc.Source, z, s, zn.ID, zn.Polygon.Area(), cells, maxCellsPerZone, sc.Units)
+		}
+	}
+	return nil
 }
