@@ -279,7 +279,11 @@ func (s *Solver) certifyInfeasible(p int, sigma float64, list []int) bool {
 	sum, scale := 0.0, 1.0
 	for _, j := range list {
 		a := s.rowAlpha[j]
-		if a == 0 {
+		if math.Abs(a) <= zeroTol {
+			// Round-off of a true zero (such as 1e-15 left by the
+			// cancellation in ρᵀa_j): counted as zero, as in the primal
+			// ratio test, so that an unbounded variable it multiplies
+			// does not void the proof.
 			continue
 		}
 		var b float64
