@@ -14,8 +14,9 @@ const (
 
 // heuristics runs the primal heuristics at a node with LP solution r and
 // reports whether the incumbent improved: covering-specific LP-guided
-// greedy completion and local improvement, rounding, and fractional
-// diving on the LP.
+// greedy completion and local improvement; for general MIPs rounding,
+// the repair search started from the LP point and, at the root, RENS;
+// fractional diving on the LP for both.
 func (e *engine) heuristics(nd *node, r *lp.Result, isRoot bool) bool {
 	improved := false
 	if e.cover != nil {
@@ -33,8 +34,16 @@ func (e *engine) heuristics(nd *node, r *lp.Result, isRoot bool) bool {
 		if c := cd.greedy(sel, sc, nil); c != nil && e.setIncumbent(e.coverX(c)) {
 			improved = true
 		}
-	} else if e.round(r) {
-		improved = true
+	} else {
+		if e.round(r) {
+			improved = true
+		}
+		if e.repairFrom(r.X) {
+			improved = true
+		}
+		if isRoot && e.rens(r) {
+			improved = true
+		}
 	}
 	if e.dive(r, isRoot) {
 		improved = true
@@ -142,6 +151,20 @@ func (e *engine) dive(r0 *lp.Result, isRoot bool) bool {
 			break
 		}
 		used += res.Iterations
+		if res.Status == lp.Infeasible && used < budget {
+			// Single backtrack (Achterberg 2007, §9.1): bound the column
+			// the other way and try once more.
+			if bestVal > x[best] {
+				e.s.SetColBounds(best, lo, bestVal-1)
+			} else {
+				e.s.SetColBounds(best, bestVal+1, up)
+			}
+			res, err = e.solveLP(budget - used)
+			if err != nil || res == nil {
+				break
+			}
+			used += res.Iterations
+		}
 		if res.Status != lp.Optimal || e.wouldPrune(res.Obj) {
 			break
 		}

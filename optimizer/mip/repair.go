@@ -88,9 +88,18 @@ func (rs *repairSearch) move(j int, v float64) {
 	}
 }
 
-// repair runs the search and offers any feasible point to the engine.
-// It reports whether the incumbent improved.
-func (e *engine) repair() bool {
+// repair runs the search from the bound nearest zero and offers any
+// feasible point to the engine. It reports whether the incumbent
+// improved.
+func (e *engine) repair() bool { return e.repairFrom(nil) }
+
+// repairFrom runs the search from start (nil: the bound nearest zero),
+// with integer columns rounded to the nearest integer and every column
+// clipped to its global bounds. Started from an LP optimum it is an
+// LP-guided repair: the rounded LP point usually breaks only a few rows
+// (links and counts next to fractional columns), which the search fixes
+// locally, and lower and improve then remove what rounding added.
+func (e *engine) repairFrom(start []float64) bool {
 	q := &e.p.LP
 	n, m := e.n, e.m
 	rs := &repairSearch{e: e, x: make([]float64, n), act: make([]float64, m), w: make([]float64, m),
@@ -99,6 +108,9 @@ func (e *engine) repair() bool {
 	for j := 0; j < n; j++ {
 		lo, up := e.glo[j], e.gup[j]
 		v := math.Max(lo, math.Min(up, 0))
+		if start != nil {
+			v = math.Max(lo, math.Min(up, start[j]))
+		}
 		if e.p.Integer[j] {
 			v = math.Max(math.Ceil(lo), math.Min(math.Floor(up), math.Round(v)))
 		}

@@ -66,6 +66,10 @@ type Options struct {
 	// Progress, when not nil, is called (on the solving goroutine) as the
 	// incumbent or the bound improve.
 	Progress func(Progress)
+
+	// subMIP marks the solve of a sub-problem built by a heuristic, which
+	// runs no sub-MIP heuristic of its own (rensMaxDepth).
+	subDepth int
 }
 
 // Result is the outcome of Solve. Obj, Bound and X are in the original
