@@ -10,6 +10,7 @@ import (
 const (
 	diveMaxDepth   = 400
 	diveIterFactor = 2 // a dive may use this many times the root LP's iterations, at least 2000
+	rinsEvery      = 100
 )
 
 // heuristics runs the primal heuristics at a node with LP solution r and
@@ -43,6 +44,12 @@ func (e *engine) heuristics(nd *node, r *lp.Result, isRoot bool) bool {
 		}
 		if isRoot && e.rens(r) {
 			improved = true
+		}
+		if !isRoot && e.nodes-e.lastRinsNode >= rinsEvery && e.rins(r) {
+			improved = true
+		}
+		if !isRoot && e.nodes-e.lastRinsNode >= rinsEvery {
+			e.lastRinsNode = e.nodes
 		}
 	}
 	if e.dive(r, isRoot) {

@@ -29,7 +29,21 @@ const (
 // of the LP optimum is integral, so the sub-MIP is small. The node
 // limit keeps the work deterministic; only the caller's deadline cuts
 // it short. It reports whether the incumbent improved.
-func (e *engine) rens(r *lp.Result) bool {
+func (e *engine) rens(r *lp.Result) bool { return e.subMIP(r, nil) }
+
+// rins is RINS (Danna, Rothberg and Le Pape 2005, Math. Prog. 102:71–90):
+// as rens, but a binary is fixed only where the node's LP value and the
+// incumbent agree, so the sub-MIP searches around the incumbent.
+func (e *engine) rins(r *lp.Result) bool {
+	if e.inc == nil {
+		return false
+	}
+	return e.subMIP(r, e.inc)
+}
+
+// subMIP fixes the binaries that are integral in r (and equal to ref
+// where ref is given) and solves the rest with a node limit.
+func (e *engine) subMIP(r *lp.Result, ref []float64) bool {
 	if e.opt.subDepth >= rensMaxDepth || e.cover != nil {
 		return false
 	}
@@ -43,7 +57,7 @@ func (e *engine) rens(r *lp.Result) bool {
 		}
 		nInt++
 		v := r.X[j]
-		if !isFrac(v) && up[j]-lo[j] <= 1 {
+		if !isFrac(v) && up[j]-lo[j] <= 1 && (ref == nil || math.Round(v) == ref[j]) {
 			lo[j] = math.Round(v)
 			up[j] = lo[j]
 			fixed++

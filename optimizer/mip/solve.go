@@ -208,6 +208,7 @@ type engine struct {
 	rootDone       bool
 	diveEvery      int
 	lastDiveNode   int
+	lastRinsNode   int
 	rcFixedGlobal  int
 	rootLPObj      float64
 	rootRC, rootX  []float64
