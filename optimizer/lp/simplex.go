@@ -285,11 +285,20 @@ func (s *Solver) primalTol(bound float64) float64 {
 
 // infeasibility of basic variable j: negative below lo, positive above up.
 func (s *Solver) infeasibility(j int) float64 {
-	if v := s.x[j] - s.lo[j]; v < -s.primalTol(s.lo[j]) {
-		return v
+	// The tolerance is computed only for a value outside its bounds:
+	// the dual pricing calls this for every basic variable in every
+	// iteration, and most of them are within their bounds.
+	x := s.x[j]
+	if lo := s.lo[j]; x < lo {
+		if v := x - lo; v < -s.primalTol(lo) {
+			return v
+		}
+		return 0
 	}
-	if v := s.x[j] - s.up[j]; v > s.primalTol(s.up[j]) {
-		return v
+	if up := s.up[j]; x > up {
+		if v := x - up; v > s.primalTol(up) {
+			return v
+		}
 	}
 	return 0
 }
