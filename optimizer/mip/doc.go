@@ -38,9 +38,15 @@
 // nodes; for general MIPs, before any LP, a weighted-violation repair
 // search in the spirit of Feasibility Jump (Luteberget and Sartor 2023)
 // followed by lowering of costly columns and 1-opt with repair, so that a
-// large model has a feasible point even when its root LP is slow; for
-// every MIP, nearest rounding (with an LP over the continuous columns) and
-// fractional diving on the LP (Achterberg 2007, §9.1). Every candidate is
+// large model has a feasible point even when its root LP is slow; the
+// same repair search started again from the rounded LP optimum; at the
+// root RENS (Berthold 2014), a sub-MIP with the binaries that are
+// integral in the LP fixed, and every hundred nodes RINS (Danna,
+// Rothberg and Le Pape 2005), fixing the binaries where the node LP and
+// the incumbent agree, both solved by this engine with a node limit;
+// for every MIP, nearest rounding (with an LP over the continuous
+// columns) and fractional diving on the LP with a single backtrack
+// (Achterberg 2007, §9.1). Every candidate is
 // checked against all rows and bounds before it is accepted, so the
 // heuristics are safe on general MIPs.
 //
@@ -74,6 +80,11 @@
 //     revisited, Operations Research Letters 33:42–54.
 //   - T. Achterberg (2007), Constraint Integer Programming, PhD thesis,
 //     TU Berlin (SCIP).
+//   - E. Danna, E. Rothberg and C. Le Pape (2005), Exploring relaxation
+//     induced neighborhoods to improve MIP solutions, Mathematical
+//     Programming 102:71–90 (from memory).
+//   - T. Berthold (2014), RENS: the optimal rounding, Mathematical
+//     Programming Computation 6:33–54 (from memory).
 //   - B. Luteberget and G. Sartor (2023), Feasibility Jump: an LP-free
 //     Lagrangian MIP heuristic, Mathematical Programming Computation
 //     15:365–388 (volume and pages from memory).
