@@ -144,6 +144,24 @@ func openFleet(ctx context.Context, cfg Config, want []string) (*host.Fleet, err
 	return fleet, nil
 }
 
+// startRigs launches the scenario's rigs, checks every offered rig is
+// there, and returns them by name.
+func startRigs(ctx context.Context, cfg Config, sc *scenarios.Scenario) (*host.Fleet, map[string]sdk.Rig, error) {
+	fleet, err := openFleet(ctx, cfg, sc.Rigs)
+	if err != nil {
+		return nil, nil, err
+	}
+	if err := checkRigsOffered(sc, fleet, cfg); err != nil {
+		fleet.Close()
+		return nil, nil, err
+	}
+	rigs := map[string]sdk.Rig{}
+	for _, r := range fleet.Rigs() {
+		rigs[r.Info.Name] = r
+	}
+	return fleet, rigs, nil
+}
+
 // checkRigsOffered names, by its field path, a rig the scenario offers that
 // neither a built-in nor a plugin in the plugin folder provides, with the
 // nearest name and where plugin rigs come from.
@@ -218,19 +236,12 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 	}
 	tLoad := time.Since(t0)
 	t0 = time.Now()
-	fleet, err := openFleet(ctx, cfg, sc.Rigs)
+	fleet, rigs, err := startRigs(ctx, cfg, sc)
 	if err != nil {
 		return err
 	}
 	defer fleet.Close()
-	if err := checkRigsOffered(sc, fleet, cfg); err != nil {
-		return err
-	}
 	tLaunch := time.Since(t0)
-	rigs := map[string]sdk.Rig{}
-	for _, r := range fleet.Rigs() {
-		rigs[r.Info.Name] = r
-	}
 	in := plan.Input{Scenario: sc, RateBook: rb, Rigs: rigs}
 	popt := plan.Options{GapRel: cfg.Gap, TimeLimit: cfg.TimeLimit, Threads: cfg.Threads}
 	if !o.quiet && isTerminal(stderr) {

@@ -12,7 +12,6 @@ import (
 	"github.com/rigmix/rigmix/optimizer/plan"
 	"github.com/rigmix/rigmix/optimizer/report"
 	"github.com/rigmix/rigmix/optimizer/schedule"
-	"github.com/rigmix/rigmix/plugins/sdk"
 )
 
 type reportOptions struct {
@@ -62,18 +61,11 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 	if err != nil {
 		return err
 	}
-	fleet, err := openFleet(ctx, cfg, sc.Rigs)
+	fleet, rigs, err := startRigs(ctx, cfg, sc)
 	if err != nil {
 		return err
 	}
 	defer fleet.Close()
-	if err := checkRigsOffered(sc, fleet, cfg); err != nil {
-		return err
-	}
-	rigs := map[string]sdk.Rig{}
-	for _, r := range fleet.Rigs() {
-		rigs[r.Info.Name] = r
-	}
 	in := plan.Input{Scenario: sc, RateBook: rb, Rigs: rigs}
 	popt := plan.Options{GapRel: cfg.Gap, TimeLimit: cfg.TimeLimit, Threads: cfg.Threads}
 	pr, err := plan.Prepare(ctx, in, popt)

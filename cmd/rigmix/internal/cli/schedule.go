@@ -137,18 +137,11 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 	if err != nil {
 		return err
 	}
-	fleet, err := openFleet(ctx, cfg, sc.Rigs)
+	fleet, rigs, err := startRigs(ctx, cfg, sc)
 	if err != nil {
 		return err
 	}
 	defer fleet.Close()
-	if err := checkRigsOffered(sc, fleet, cfg); err != nil {
-		return err
-	}
-	rigs := map[string]sdk.Rig{}
-	for _, r := range fleet.Rigs() {
-		rigs[r.Info.Name] = r
-	}
 	var p *plan.Plan
 	if o.planFile != "" {
 		b, err := os.ReadFile(o.planFile)

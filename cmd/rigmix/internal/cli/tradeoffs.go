@@ -13,7 +13,6 @@ import (
 	"github.com/rigmix/rigmix/optimizer/plan"
 	"github.com/rigmix/rigmix/optimizer/report"
 	"github.com/rigmix/rigmix/optimizer/tradeoff"
-	"github.com/rigmix/rigmix/plugins/sdk"
 	"github.com/rigmix/rigmix/ratebooks"
 )
 
@@ -84,18 +83,11 @@ func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []st
 			extra = append(extra, b)
 		}
 	}
-	fleet, err := openFleet(ctx, cfg, sc.Rigs)
+	fleet, rigs, err := startRigs(ctx, cfg, sc)
 	if err != nil {
 		return err
 	}
 	defer fleet.Close()
-	if err := checkRigsOffered(sc, fleet, cfg); err != nil {
-		return err
-	}
-	rigs := map[string]sdk.Rig{}
-	for _, r := range fleet.Rigs() {
-		rigs[r.Info.Name] = r
-	}
 	an, err := tradeoff.Analyze(ctx, tradeoff.Config{
 		Input:       plan.Input{Scenario: sc, RateBook: rb, Rigs: rigs},
 		PlanOptions: plan.Options{Threads: cfg.Threads},
