@@ -2,7 +2,7 @@
 # Whole-plan scale run: invented sites of 1, 10, 100 and 1,000 acres and a
 # 20-mile corridor (rigmix gen-site), each planned by rigmix with stage
 # timings and peak memory, and its exported model solved by CBC single
-# thread in the same run. Prints one table. Needs cbc (Debian coinor-cbc)
+# thread in the same run (CBC_SEC caps CBC's seconds, default 600). Prints one table. Needs cbc (Debian coinor-cbc)
 # and /usr/bin/time (Debian time).
 #
 #   bash optimizer/plan/bench-scale.sh [sizes...]   # default: 1 10 100 1000 corridor
@@ -34,14 +34,17 @@ for s in "${sizes[@]}"; do
   size=$(awk '/model .* rows/{print $2, $5}' "$work/timings")
   start=$(date +%s.%N)
   # CBC is asked for the same relative gap the scenario asks of rigmix (1%).
-  cbc "$work/model.mps" -threads 1 -ratioGap 0.01 -sec 600 -solve -quit > "$work/cbc.log" 2>&1 || true
+  cbc "$work/model.mps" -threads 1 -ratioGap 0.01 -sec "${CBC_SEC:-600}" -solve -quit > "$work/cbc.log" 2>&1 || true
   end=$(date +%s.%N)
   cbct=$(python3 -c "print('%.2f'%($end-$start))")
   cbcobj=$(awk '/^Objective value:/{print $3}' "$work/cbc.log")
   cbcok=$(grep -q 'Optimal solution found' "$work/cbc.log" && echo yes || echo no)
   solve_s=$(python3 -c "
-s='$solve'
-v=float(s[:-2])/1000 if s.endswith('ms') else float(s[:-1]) if s.endswith('s') and not s.endswith('ms') else float('nan')
+import re
+s='$solve'  # a Go duration as printed: 230ms, 4.88s, 1m0.038s
+v=0.0
+for n,u in re.findall(r'([0-9.]+)(ms|h|m|s)', s):
+    v+=float(n)*{'ms':1e-3,'s':1,'m':60,'h':3600}[u]
 print('%.2f'%v)")
   ratio=$(python3 -c "print('%.1f'%($solve_s/max(1e-3,$cbct)))")
   diff=$(python3 -c "a=float('$obj'); b=float('${cbcobj:-nan}'); print('%+.4f%%'%(100*(a-b)/max(1,abs(b))))")
