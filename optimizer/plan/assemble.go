@@ -4,7 +4,6 @@ import (
 	"context"
 	"fmt"
 	"math"
-	"sort"
 	"time"
 
 	"github.com/rigmix/rigmix/optimizer/candidates"
@@ -322,16 +321,6 @@ func round(v float64, places int) float64 {
 		return 0 // no negative zero in output
 	}
 	return r
-}
-
-// sortedKeys returns a map's keys in order.
-func sortedKeys(m map[string]int) []string {
-	out := make([]string, 0, len(m))
-	for k := range m {
-		out = append(out, k)
-	}
-	sort.Strings(out)
-	return out
 }
 
 // farthestCell is, per zone, the largest distance from the centre of a

@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/rigmix/rigmix/optimizer/lp"
 	"github.com/rigmix/rigmix/optimizer/mip"
 	"github.com/rigmix/rigmix/optimizer/model"
 )
@@ -126,5 +125,3 @@ func coverNumber(ctx context.Context, spec *model.Spec, z int, rows [][]int, exp
 		return int(math.Ceil(res.Bound - 1e-6)), nil
 	}
 }
-
-var _ = lp.Optimal

@@ -20,6 +20,7 @@ import (
 	"github.com/rigmix/rigmix/plugins/sdk"
 	"github.com/rigmix/rigmix/ratebooks"
 	"github.com/rigmix/rigmix/scenarios"
+	"github.com/rigmix/rigmix/scenarios/fielderr"
 )
 
 type planOptions struct {
@@ -182,7 +183,7 @@ func checkRigsOffered(sc *scenarios.Scenario, fleet *host.Fleet, cfg Config) err
 			continue
 		}
 		hint := ""
-		if near := nearest(n, names); near != "" {
+		if near := fielderr.Nearest(n, names); near != "" {
 			hint = fmt.Sprintf("did you mean %s? ", near)
 		}
 		where := "no plugin folder is set (--plugin-dir or plugin_dir)"
@@ -193,39 +194,6 @@ func checkRigsOffered(sc *scenarios.Scenario, fleet *host.Fleet, cfg Config) err
 			sc.Source, i, n, hint, strings.Join(builtin.Names(), ", "), where)}
 	}
 	return nil
-}
-
-// nearest returns the name closest to s by edit distance, if it is close
-// enough to be a likely misspelling.
-func nearest(s string, names []string) string {
-	best, bestD := "", len(s)/2+1
-	for _, n := range names {
-		if d := editDistance(s, n); d < bestD {
-			best, bestD = n, d
-		}
-	}
-	return best
-}
-
-// editDistance is the Levenshtein distance between a and b.
-func editDistance(a, b string) int {
-	prev := make([]int, len(b)+1)
-	cur := make([]int, len(b)+1)
-	for j := range prev {
-		prev[j] = j
-	}
-	for i := 1; i <= len(a); i++ {
-		cur[0] = i
-		for j := 1; j <= len(b); j++ {
-			c := 1
-			if a[i-1] == b[j-1] {
-				c = 0
-			}
-			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+c)
-		}
-		prev, cur = cur, prev
-	}
-	return prev[len(b)]
 }
 
 func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, stdout, stderr io.Writer) error {

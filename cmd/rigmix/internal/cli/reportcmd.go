@@ -110,9 +110,7 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 	if err := writeAtomic(o.out, b.Bytes()); err != nil {
 		return err
 	}
-	fmt.Fprintf(stdout, "wrote %s: %d points, %s %s, %d field days in the plan; schedule %s to %s\n",
-		o.out, len(p.Points), p.RateBook.Currency, moneyText(p.Total), p.Finish, s.Start.Format("2006-01-02"), s.Finish.Format("2006-01-02"))
+	fmt.Fprintf(stdout, "wrote %s: %d points, %s %.2f, %d field days in the plan; schedule %s to %s\n",
+		o.out, len(p.Points), p.RateBook.Currency, p.Total, p.Finish, s.Start.Format("2006-01-02"), s.Finish.Format("2006-01-02"))
 	return nil
 }
-
-func moneyText(v float64) string { return fmt.Sprintf("%.2f", v) }
