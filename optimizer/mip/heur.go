@@ -42,6 +42,11 @@ func (e *engine) heuristics(nd *node, r *lp.Result, isRoot bool) bool {
 		if e.repairFrom(r.X) {
 			improved = true
 		}
+		// At the root with an incumbent already (a start, or the repair
+		// search before the LP), RINS searches around it first.
+		if isRoot && e.inc != nil && e.rins(r) {
+			improved = true
+		}
 		if isRoot && e.rens(r) {
 			improved = true
 		}

@@ -39,6 +39,31 @@ func (ps *presolved) postsolve(xr []float64) []float64 {
 	return x
 }
 
+// reduce maps a solution of the original problem to the reduced space; nil
+// when x has the wrong length.
+func (ps *presolved) reduce(x []float64) []float64 {
+	if len(x) != ps.orig.LP.NumCols {
+		return nil
+	}
+	xr := make([]float64, len(ps.colMap))
+	for k, j := range ps.colMap {
+		xr[k] = x[j]
+	}
+	return xr
+}
+
+// agrees reports whether x gives every column presolve removed the value
+// presolve fixed it at (within the integrality tolerance), so that x is a
+// solution of the reduced problem exactly when its reduction is.
+func (ps *presolved) agrees(x []float64) bool {
+	for j, rm := range ps.removed {
+		if rm && math.Abs(x[j]-ps.fixed[j]) > intTol {
+			return false
+		}
+	}
+	return true
+}
+
 // presolve work state: a doubly indexed copy of the matrix with live
 // flags. Rows are kept by column lists and column lists by rows.
 type psWork struct {

@@ -394,9 +394,17 @@ func (e *engine) run() (Status, error) {
 		}
 	}
 
+	// A start given by the caller (Options.Start).
+	if e.opt.Start != nil {
+		e.tryStart()
+		if e.stopped {
+			return e.stopStat, nil
+		}
+	}
+
 	// General MIPs: a first feasible point before the LP (the root LP of
 	// a large model can take long).
-	if e.cover == nil {
+	if e.cover == nil && e.inc == nil {
 		e.repair()
 		if e.stopped {
 			return e.stopStat, nil
@@ -412,6 +420,21 @@ func (e *engine) run() (Status, error) {
 		return 0, err
 	}
 	return st, nil
+}
+
+// tryStart maps Options.Start into the presolved space and keeps it as
+// the incumbent when it is feasible there. A start that presolve cannot
+// map (it gives a removed column another value than presolve fixed) or
+// that breaks a row seeds the repair search instead.
+func (e *engine) tryStart() {
+	x := e.ps.reduce(e.opt.Start)
+	if x == nil {
+		return
+	}
+	if e.ps.agrees(e.opt.Start) && e.setIncumbent(append([]float64(nil), x...)) {
+		return
+	}
+	e.repairFrom(x)
 }
 
 // objGranularity returns g > 0 when every feasible objective value of p

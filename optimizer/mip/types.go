@@ -66,6 +66,13 @@ type Options struct {
 	// Progress, when not nil, is called (on the solving goroutine) as the
 	// incumbent or the bound improve.
 	Progress func(Progress)
+	// Start, when not nil, is a solution in the original space (one value
+	// per column) to begin from, a "MIP start": it becomes the first
+	// incumbent if it meets every row, bound and integrality (integer
+	// columns rounded to the nearest integer first); otherwise the repair
+	// search starts from it. A start never changes what is optimal, only
+	// how soon a good plan is known.
+	Start []float64
 
 	// subMIP marks the solve of a sub-problem built by a heuristic, which
 	// runs no sub-MIP heuristic of its own (rensMaxDepth).

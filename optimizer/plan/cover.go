@@ -31,9 +31,13 @@ const coverNodeLimit = 20000
 // covering number is a valid inequality that lifts the bound to where the
 // plans are. It cuts off no plan: every plan covers the zone with at least
 // k_z points.
-func coverNumbers(ctx context.Context, pr *Prepared, spec *model.Spec) ([]int, error) {
+//
+// It also returns, per zone, the points of the best cover it found (nil
+// when none): the seed of the start solution (see startSolution).
+func coverNumbers(ctx context.Context, pr *Prepared, spec *model.Spec) ([]int, [][]int, error) {
 	nz := len(pr.In.Scenario.Zones)
 	out := make([]int, nz)
+	sets := make([][]int, nz)
 	explorable := make([]bool, spec.NumPoints)
 	for _, op := range spec.Options {
 		explorable[op.Point] = true
@@ -50,16 +54,16 @@ func coverNumbers(ctx context.Context, pr *Prepared, spec *model.Spec) ([]int, e
 		if len(rowsByZone[z]) == 0 {
 			continue
 		}
-		k, err := coverNumber(ctx, spec, z, rowsByZone[z], explorable)
+		k, set, err := coverNumber(ctx, spec, z, rowsByZone[z], explorable)
 		if err != nil {
-			return nil, err
+			return nil, nil, err
 		}
-		out[z] = k
+		out[z], sets[z] = k, set
 	}
-	return out, nil
+	return out, sets, nil
 }
 
-func coverNumber(ctx context.Context, spec *model.Spec, z int, rows [][]int, explorable []bool) (int, error) {
+func coverNumber(ctx context.Context, spec *model.Spec, z int, rows [][]int, explorable []bool) (int, []int, error) {
 	col := map[int]int{}
 	var pts []int
 	for p := 0; p < spec.NumPoints; p++ {
@@ -85,7 +89,7 @@ func coverNumber(ctx context.Context, spec *model.Spec, z int, rows [][]int, exp
 		}
 		if !any {
 			// model.Build reports this row with the zone's name.
-			return 0, nil
+			return 0, nil, nil
 		}
 		nrows++
 	}
@@ -112,16 +116,22 @@ func coverNumber(ctx context.Context, spec *model.Spec, z int, rows [][]int, exp
 	}
 	res, err := mip.Solve(ctx, prob, mip.Options{NodeLimit: coverNodeLimit})
 	if err != nil {
-		return 0, err
+		return 0, nil, err
+	}
+	var set []int
+	for j, v := range res.X {
+		if v > 0.5 {
+			set = append(set, pts[j])
+		}
 	}
 	switch {
 	case res.Status == mip.Optimal:
-		return int(math.Round(res.Obj)), nil
+		return int(math.Round(res.Obj)), set, nil
 	case res.Status == mip.Infeasible:
-		return 0, nil // model.Build explains what cannot be covered
+		return 0, nil, nil // model.Build explains what cannot be covered
 	case math.IsInf(res.Bound, 0) || math.IsNaN(res.Bound):
-		return 0, nil
+		return 0, set, nil
 	default:
-		return int(math.Ceil(res.Bound - 1e-6)), nil
+		return int(math.Ceil(res.Bound - 1e-6)), set, nil
 	}
 }

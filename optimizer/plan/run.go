@@ -77,6 +77,10 @@ type Prepared struct {
 	// that can meet its spacing rule (the zone's covering number when the
 	// subproblem is solved to optimality). See coverNumbers.
 	CoverMin []int
+	// CoverSets is, per zone, the points of the least cover found while
+	// computing CoverMin (nil when the zone has no spacing rule or none
+	// was found); it seeds the start solution.
+	CoverSets [][]int
 	// Timings records how long each stage took (wall time; kept out of
 	// the plan so the plan stays the same from run to run).
 	Timings Timings
@@ -300,7 +304,7 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 	}
 	pr.ZoneMin = make([]int, len(sc.Zones))
 	t0 = time.Now()
-	pr.CoverMin, err = coverNumbers(ctx, pr, spec)
+	pr.CoverMin, pr.CoverSets, err = coverNumbers(ctx, pr, spec)
 	pr.Timings.add("zone covering numbers", t0)
 	if err != nil {
 		return nil, err

@@ -1,0 +1,72 @@
+package plan
+
+import (
+	"context"
+	"time"
+
+	"github.com/rigmix/rigmix/optimizer/mip"
+)
+
+// startNodeLimit bounds the branch and bound of the restricted model that
+// yields the start solution. A node limit, not a time limit, keeps the
+// start the same on every machine.
+const startNodeLimit = 400
+
+// startSolution returns a plan to start the solve from (a "MIP start"),
+// or nil when it finds none.
+//
+// Why: on a large site the LP bound is close to the best plan (the zone
+// covering numbers see to that), but a search that rounds the LP point
+// column by column finds plans a few percent above it, because dropping a
+// point means changing the zone's count too. The covering subproblems of
+// coverNumbers already chose, for each zone, a least set of points that
+// meets the spacing rule. The start solves the whole model restricted to
+// those points — which method and rig explores each, the sampled shares,
+// the rigs to hire and their days — a model a fraction of the size, and
+// hands its best plan to the full solve, which can only improve on it.
+// Every plan of the restricted model is a plan of the full one (it only
+// forbids options), so the start never changes what is optimal.
+//
+// A zone whose cover is missing or holds fewer points than the zone's
+// count rule asks for keeps all its points.
+func (pr *Prepared) startSolution(ctx context.Context, gapRel float64, timeLimit time.Duration) []float64 {
+	spec, m := pr.Spec, pr.Model
+	if pr.CoverSets == nil || spec.MaximizeCoverage {
+		return nil
+	}
+	allowed := make([]bool, spec.NumPoints)
+	restricted := false
+	for z, set := range pr.CoverSets {
+		if set == nil || len(set) < spec.Zones[z].MinCount {
+			continue
+		}
+		restricted = true
+		for _, p := range set {
+			allowed[p] = true
+		}
+	}
+	if !restricted {
+		return nil
+	}
+	hasCover := make([]bool, len(spec.Zones))
+	for z, set := range pr.CoverSets {
+		hasCover[z] = set != nil && len(set) >= spec.Zones[z].MinCount
+	}
+	for p := range allowed {
+		if !hasCover[spec.PointZone[p]] || (spec.Required != nil && spec.Required[p]) {
+			allowed[p] = true
+		}
+	}
+	sub := *m.Problem
+	sub.LP.ColUp = append([]float64(nil), m.Problem.LP.ColUp...)
+	for o, op := range spec.Options {
+		if !allowed[op.Point] {
+			sub.LP.ColUp[m.XCol[o]] = 0
+		}
+	}
+	res, err := mip.Solve(ctx, &sub, mip.Options{GapRel: gapRel / 10, NodeLimit: startNodeLimit, TimeLimit: timeLimit})
+	if err != nil || res.X == nil {
+		return nil
+	}
+	return res.X
+}
