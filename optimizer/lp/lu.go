@@ -1,9 +1,6 @@
 package lp
 
-import (
-	"math"
-	"sort"
-)
+import "math"
 
 // luFactor holds a sparse LU factorization of the basis matrix B and the
 // updates for the basis changes since: Forrest–Tomlin (1972) updates of U
@@ -48,8 +45,10 @@ type luFactor struct {
 	uDiag      []float64
 
 	// Triangular order of U: ord lists the pivots so that every entry
-	// (j, k) of U has posOf[j] < posOf[k]. pivOfPos maps a basis
-	// position to its pivot.
+	// (j, k) of U has posOf[j] < posOf[k]; a Forrest–Tomlin update
+	// appends the replaced pivot and leaves −1 at its old place (so an
+	// update costs nothing in m). pivOfPos maps a basis position to its
+	// pivot.
 	ord, posOf, pivOfPos []int
 
 	// Forrest–Tomlin row etas: eta e replaces row rPiv[e] (a pivot) of
@@ -74,6 +73,31 @@ type luFactor struct {
 	etaStart []int
 	etaIdx   []int
 	etaVal   []float64
+
+	// Row-wise copies for the hypersparse solves (lu_sparse.go). lPiv
+	// holds the pivot of each L entry's row. L by rows: the entries of
+	// row prow[j] are (column pivot lrPiv[t], lrVal[t]) over
+	// t ∈ [lrStart[j], lrStart[j+1]). U by rows: row j (a pivot) holds
+	// its off-diagonal entries (column pivot urPiv[t], urVal[t]) over
+	// [urBeg[j], urEnd[j]), with room up to urLim[j]; the Forrest–Tomlin
+	// update keeps it equal to the column-wise U.
+	lPiv                []int
+	lrStart, lrPiv      []int
+	lrVal               []float64
+	urBeg, urEnd, urLim []int
+	urPiv               []int
+	urVal               []float64
+
+	// Scratch of the hypersparse solves: depth-first search state by
+	// pivot (visited, stack, pstack), its topological output (topo) and
+	// the list of visited nodes; sw (by pivot) and inP are kept zero.
+	visited       []bool
+	inP           []bool
+	topo          []int
+	stack, pstack []int
+	visList       []int
+	starts, pList []int
+	sw            []float64
 
 	lNZ    []int  // pivots whose L column is not empty, in order
 	mark   []bool // row touched in the current column
@@ -134,20 +158,35 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 		f.rowCnt[i] = 0
 		f.rowPiv[i] = -1
 	}
-	f.order = f.order[:0]
+	// Columns in order of increasing count, ties by position: a stable
+	// counting sort (the counts are below m+1).
+	maxCnt := 0
 	for p := 0; p < m; p++ {
 		idx, _ := col(p)
 		for _, i := range idx {
 			f.rowCnt[i]++
 		}
-		f.order = append(f.order, p)
+		if len(idx) > maxCnt {
+			maxCnt = len(idx)
+		}
 	}
-	counts := make([]int, m)
+	bucket := make([]int, maxCnt+2)
 	for p := 0; p < m; p++ {
 		idx, _ := col(p)
-		counts[p] = len(idx)
+		bucket[len(idx)+1]++
 	}
-	sort.SliceStable(f.order, func(a, b int) bool { return counts[f.order[a]] < counts[f.order[b]] })
+	for c := 1; c < len(bucket); c++ {
+		bucket[c] += bucket[c-1]
+	}
+	if cap(f.order) < m {
+		f.order = make([]int, m)
+	}
+	f.order = f.order[:m]
+	for p := 0; p < m; p++ {
+		idx, _ := col(p)
+		f.order[bucket[len(idx)]] = p
+		bucket[len(idx)]++
+	}
 
 	w := f.work
 	if len(f.mark) != m {
@@ -273,17 +312,18 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 		}
 	}
 	f.nnzBase = len(f.lIdx) + len(f.uIdx) + m
-	if len(f.ord) != m {
-		f.ord = make([]int, m)
+	if len(f.posOf) != m {
 		f.posOf = make([]int, m)
 		f.pivOfPos = make([]int, m)
 		f.rwork = make([]float64, m)
 	}
+	f.ord = f.ord[:0]
 	for k := 0; k < m; k++ {
-		f.ord[k] = k
+		f.ord = append(f.ord, k)
 		f.posOf[k] = k
 		f.pivOfPos[f.pcol[k]] = k
 	}
+	f.buildRows()
 	f.broken = false
 	return singPos, singRow
 }
@@ -343,10 +383,19 @@ func (f *luFactor) ftran(a []float64) {
 			}
 		}
 	}
+	f.ftranU(a)
+}
+
+// ftranU finishes ftran: it solves U t = v (v in a, by rows) and applies
+// the product-form eta file, leaving the result in a by positions.
+func (f *luFactor) ftranU(a []float64) {
 	// U t = v backward in triangular order, t into out (by position).
 	out := f.work2
-	for idx := m - 1; idx >= 0; idx-- {
+	for idx := len(f.ord) - 1; idx >= 0; idx-- {
 		k := f.ord[idx]
+		if k < 0 {
+			continue
+		}
 		r := f.prow[k]
 		v := a[r]
 		if v == 0 {
@@ -379,7 +428,6 @@ func (f *luFactor) ftran(a []float64) {
 // btran overwrites c (indexed by basis positions, length m) with the y
 // (indexed by rows) that solves Bᵀy = c.
 func (f *luFactor) btran(c []float64) {
-	m := f.m
 	for e := len(f.etaPos) - 1; e >= 0; e-- {
 		r := f.etaPos[e]
 		v := c[r]
@@ -391,6 +439,9 @@ func (f *luFactor) btran(c []float64) {
 	// Uᵀ s = c in triangular order, s by pivot index.
 	s := f.work2
 	for _, k := range f.ord {
+		if k < 0 {
+			continue
+		}
 		v := c[f.pcol[k]]
 		for t := f.uBeg[k]; t < f.uEnd[k]; t++ {
 			v -= f.uVal[t] * s[f.uIdx[t]]
@@ -407,85 +458,20 @@ func (f *luFactor) btran(c []float64) {
 			s[f.rIdx[t]] -= f.rVal[t] * sk
 		}
 	}
+	f.btranL(s, c)
+}
+
+// btranL finishes btran: it solves L̃ᵀ y = s (s by pivot) into c (by
+// rows).
+func (f *luFactor) btranL(s, c []float64) {
 	// L̃ᵀ y = s, backward.
-	for k := m - 1; k >= 0; k-- {
+	for k := f.m - 1; k >= 0; k-- {
 		v := s[k]
 		for t := f.lStart[k]; t < f.lStart[k+1]; t++ {
 			v -= f.lVal[t] * c[f.lIdx[t]]
 		}
 		c[f.prow[k]] = v
 	}
-}
-
-// updateFT replaces the column of basis position p by the entering column
-// whose spike the last FTRAN saved, after Forrest & Tomlin (1972): the
-// spike becomes U's column for p's pivot kp, kp moves to the end of the
-// triangular order, and row kp — now left of the diagonal — is
-// eliminated by the rows after kp's old place, which is recorded as a
-// row eta. The multipliers r solve rᵀU_sub = row kp, a forward pass over
-// U's columns. The new diagonal must equal α_r times the old one (the
-// determinant identity det B' = α_r det B); if it does not, to a relative
-// 1e-8, the update is refused and the caller must refactorize.
-func (f *luFactor) updateFT(p int, alphaR float64) bool {
-	m := f.m
-	kp := f.pivOfPos[p]
-	op := f.posOf[kp]
-	r := f.rwork
-	start := len(f.rIdx)
-	for idx := op + 1; idx < m; idx++ {
-		k := f.ord[idx]
-		wk, sum := 0.0, 0.0
-		for t := f.uBeg[k]; t < f.uEnd[k]; t++ {
-			j := f.uIdx[t]
-			if j == kp {
-				wk = f.uVal[t]
-				f.uVal[t] = 0
-				continue
-			}
-			if rj := r[j]; rj != 0 {
-				sum += rj * f.uVal[t]
-			}
-		}
-		if wk == 0 && sum == 0 {
-			continue
-		}
-		if rk := (wk - sum) / f.uDiag[k]; rk != 0 {
-			r[k] = rk
-			f.rIdx = append(f.rIdx, k)
-			f.rVal = append(f.rVal, rk)
-		}
-	}
-	// New column kp: the spike; its diagonal after the row eta.
-	diag := 0.0
-	f.uBeg[kp] = len(f.uIdx)
-	for t, j := range f.spikeIdx {
-		v := f.spikeVal[t]
-		if j == kp {
-			diag += v
-			continue
-		}
-		diag -= r[j] * v
-		f.uIdx = append(f.uIdx, j)
-		f.uVal = append(f.uVal, v)
-	}
-	f.uEnd[kp] = len(f.uIdx)
-	for _, k := range f.rIdx[start:] {
-		r[k] = 0
-	}
-	f.rPiv = append(f.rPiv, kp)
-	f.rStart = append(f.rStart, len(f.rIdx))
-	want := f.uDiag[kp] * alphaR
-	f.uDiag[kp] = diag
-	copy(f.ord[op:], f.ord[op+1:])
-	f.ord[m-1] = kp
-	for idx := op; idx < m; idx++ {
-		f.posOf[f.ord[idx]] = idx
-	}
-	if math.Abs(diag-want) > 1e-8*math.Max(1, math.Abs(want)) || diag == 0 {
-		f.broken = true
-		return false
-	}
-	return true
 }
 
 // useFT selects the Forrest–Tomlin update; false falls back to the
