@@ -22,6 +22,12 @@ import "math"
 //     for the weights); update x_B, d, the weights and the eta file.
 func (s *Solver) dualSimplex() (Status, error) {
 	tolD := s.opt.optTol()
+	// The vectors of an iteration are hypersparse (lu_sparse.go): each
+	// is kept zero outside its index list, and the pricing scans only
+	// the positions that may be infeasible (after Hall & McKinnon 2005,
+	// from memory).
+	rho, alpha, tau, fc := s.drho, s.alpha, s.tau, s.flipCol
+	s.resetDualWork()
 	for {
 		if s.lu.needRefactor() {
 			if err := s.refactor(); err != nil {
@@ -29,20 +35,29 @@ func (s *Solver) dualSimplex() (Status, error) {
 			}
 			s.computePrimal()
 			s.computeDual()
+			s.resetDualWork()
 		}
-		// 1. Pricing.
+		// 1. Pricing, ties to the lowest position (so the choice does
+		// not depend on the order of the list).
 		r := -1
 		best := 0.0
 		var delta float64
-		for p, j := range s.head {
-			v := s.infeasibility(j)
+		inf := s.infPos
+		for k := 0; k < len(inf); {
+			p := inf[k]
+			v := s.infeasibility(s.head[p])
 			if v == 0 {
+				s.infIn[p] = false
+				inf[k] = inf[len(inf)-1]
+				inf = inf[:len(inf)-1]
 				continue
 			}
-			if sc := v * v / s.dse[p]; sc > best {
+			if sc := v * v / s.dse[p]; sc > best || (sc == best && p < r) {
 				r, best, delta = p, sc, v
 			}
+			k++
 		}
+		s.infPos = inf
 		if r < 0 {
 			return Optimal, nil
 		}
@@ -58,13 +73,10 @@ func (s *Solver) dualSimplex() (Status, error) {
 			target = s.lo[p]
 		}
 		// 2. ρ and the pivot row.
-		rho := s.rho
-		for i := range rho {
-			rho[i] = 0
-		}
+		s.rhoIdx = clearSparse(rho, s.rhoIdx)
 		rho[r] = 1
-		s.lu.btran(rho)
-		list := s.pivotRow(rho)
+		s.rhoIdx = s.lu.btranSparse(rho, append(s.rhoIdx, r))
+		list := s.pivotRow(rho, s.rhoIdx)
 
 		// 3. Bound flipping ratio test with Harris tolerances.
 		cand := s.rowList[:0]
@@ -162,8 +174,7 @@ func (s *Solver) dualSimplex() (Status, error) {
 		}
 		alphaRQ := s.rowAlpha[q]
 		// 4. FTRAN of the entering column; check it against the row.
-		s.ftranCol(q, s.alpha)
-		alpha := s.alpha
+		s.alphaIdx = s.ftranColSparse(q, alpha, s.alphaIdx)
 		if math.Abs(alpha[r]-alphaRQ) > 1e-8*(1+math.Abs(alphaRQ)) && s.lu.numEtas() > 0 {
 			// Accuracy lost: refactorize and redo the iteration.
 			if err := s.refactor(); err != nil {
@@ -171,16 +182,15 @@ func (s *Solver) dualSimplex() (Status, error) {
 			}
 			s.computePrimal()
 			s.computeDual()
+			s.resetDualWork()
 			continue
 		}
 		alphaRQ = alpha[r]
 
 		// Bound flips: x_B −= B⁻¹ Σ a_j Δx_j.
+		s.fcIdx = clearSparse(fc, s.fcIdx)
 		if len(flips) > 0 {
-			fc := s.flipCol
-			for i := range fc {
-				fc[i] = 0
-			}
+			fidx := s.fcIdx
 			for _, j := range flips {
 				var dx float64
 				if s.stat[j] == stLower {
@@ -193,13 +203,21 @@ func (s *Solver) dualSimplex() (Status, error) {
 				s.x[j] += dx
 				idx, val := s.column(j)
 				for k, i := range idx {
+					if !s.fcMark[i] {
+						s.fcMark[i] = true
+						fidx = append(fidx, i)
+					}
 					fc[i] += val[k] * dx
 				}
 			}
-			s.lu.ftran(fc)
-			for pos, j := range s.head {
-				s.x[j] -= fc[pos]
+			for _, i := range fidx {
+				s.fcMark[i] = false
 			}
+			fidx = s.lu.ftranSparse(fc, fidx)
+			for _, pos := range fidx {
+				s.x[s.head[pos]] -= fc[pos]
+			}
+			s.fcIdx = fidx
 			nflip += len(flips)
 		}
 
@@ -221,13 +239,15 @@ func (s *Solver) dualSimplex() (Status, error) {
 		// Dual steepest edge weights (Forrest & Goldfarb 1992):
 		// w_r' = w_r/α_r², w_i' = w_i − 2(α_i/α_r)τ_i + (α_i/α_r)² w_r.
 		wr := 0.0
-		for _, v := range rho {
+		s.tauIdx = clearSparse(tau, s.tauIdx)
+		for _, i := range s.rhoIdx {
+			v := rho[i]
 			wr += v * v
+			tau[i] = v
 		}
-		tau := s.tau
-		copy(tau, rho)
-		s.lu.ftran(tau)
-		for i, ai := range alpha {
+		s.tauIdx = s.lu.ftranSparse(tau, append(s.tauIdx, s.rhoIdx...))
+		for _, i := range s.alphaIdx {
+			ai := alpha[i]
 			if i == r || ai == 0 {
 				continue
 			}
@@ -242,8 +262,8 @@ func (s *Solver) dualSimplex() (Status, error) {
 
 		// Primal step: p goes to its violated bound.
 		thetaP := (s.x[p] - target) / alphaRQ
-		for i, ai := range alpha {
-			if ai != 0 {
+		for _, i := range s.alphaIdx {
+			if ai := alpha[i]; ai != 0 {
 				s.x[s.head[i]] -= thetaP * ai
 			}
 		}
@@ -260,6 +280,13 @@ func (s *Solver) dualSimplex() (Status, error) {
 		s.head[r] = q
 		s.lu.update(r, alpha)
 		s.iters++
+		for _, i := range s.alphaIdx {
+			s.touchInf(i)
+		}
+		for _, i := range s.fcIdx {
+			s.touchInf(i)
+		}
+		s.touchInf(r)
 	}
 }
 

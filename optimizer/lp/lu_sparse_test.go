@@ -215,4 +215,3 @@ func TestHypersparseSolves(t *testing.T) {
 		})
 	}
 }
-

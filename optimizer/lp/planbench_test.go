@@ -46,7 +46,7 @@ func BenchmarkPlanModelRootLP(b *testing.B) {
 				if err != nil || r.Status != lp.Optimal {
 					b.Fatalf("%s: status %v, err %v", name, r.Status, err)
 				}
-				b.Logf("%s: %d iterations, objective %.12g, %v", name, r.Iterations, r.Obj, time.Since(t0))
+				b.Logf("%s: %d iterations, objective %.15g, %v", name, r.Iterations, r.Obj, time.Since(t0))
 			}
 			b.ReportMetric(float64(r.Iterations), "iters")
 			b.ReportMetric(r.Obj, "obj")

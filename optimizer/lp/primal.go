@@ -225,11 +225,11 @@ func (s *Solver) primalSimplex() (Status, error) {
 			rho[i] = 0
 		}
 		rho[r] = 1
-		s.lu.btran(rho)
+		s.rhoIdx = s.lu.btranSparse(rho, append(s.rhoIdx[:0], r))
 		arq := alpha[r]
 		wq := devex[q]
 		reset := false
-		for _, j := range s.pivotRow(rho) {
+		for _, j := range s.pivotRow(rho, s.rhoIdx) {
 			if j == q {
 				continue
 			}

@@ -409,16 +409,17 @@ func (s *Solver) perturbCosts() {
 }
 
 // pivotRow computes α_r = ρᵀ[A I] for the nonbasic variables, from the
-// rows where ρ is nonzero. It returns the list of nonbasic variables with
-// a nonzero entry, values in s.rowAlpha.
-func (s *Solver) pivotRow(rho []float64) []int {
+// rows where ρ is nonzero (listed in idx, which may also list zeros). It
+// returns the list of nonbasic variables with a nonzero entry, values in
+// s.rowAlpha.
+func (s *Solver) pivotRow(rho []float64, idx []int) []int {
 	list := s.candIdx[:0]
 	// Row-wise work is the length of the rows where ρ is nonzero; when
 	// that approaches nnz(A), dot products down the nonbasic columns
 	// do the same arithmetic with sequential access and no scatter.
 	work := 0
-	for i, r := range rho {
-		if r != 0 {
+	for _, i := range idx {
+		if rho[i] != 0 {
 			work += s.rowStart[i+1] - s.rowStart[i]
 		}
 	}
@@ -437,10 +438,10 @@ func (s *Solver) pivotRow(rho []float64) []int {
 			}
 		}
 	} else {
-		list = s.pivotRowByRows(rho, list)
+		list = s.pivotRowByRows(rho, idx, list)
 	}
-	for i, r := range rho {
-		if r != 0 && s.stat[s.n+i] != stBasic {
+	for _, i := range idx {
+		if r := rho[i]; r != 0 && s.stat[s.n+i] != stBasic {
 			s.rowAlpha[s.n+i] = r
 			list = append(list, s.n+i)
 		}
@@ -449,8 +450,9 @@ func (s *Solver) pivotRow(rho []float64) []int {
 	return list
 }
 
-func (s *Solver) pivotRowByRows(rho []float64, list []int) []int {
-	for i, r := range rho {
+func (s *Solver) pivotRowByRows(rho []float64, idx []int, list []int) []int {
+	for _, i := range idx {
+		r := rho[i]
 		if r == 0 {
 			continue
 		}
@@ -471,6 +473,61 @@ func (s *Solver) pivotRowByRows(rho []float64, list []int) []int {
 		s.rowMark[j] = false
 	}
 	return list
+}
+
+// ftranColSparse sets out = B⁻¹ a_j, hypersparse, keeping the spike for
+// the basis update; out must be zero outside idx on entry and is zero
+// outside the returned list (which reuses idx's storage) on return.
+func (s *Solver) ftranColSparse(j int, out []float64, idx []int) []int {
+	for _, i := range idx {
+		out[i] = 0
+	}
+	idx = idx[:0]
+	ci, cv := s.column(j)
+	for k, i := range ci {
+		out[i] = cv[k]
+		idx = append(idx, i)
+	}
+	s.lu.wantSpike = true
+	idx = s.lu.ftranSparse(out, idx)
+	s.lu.wantSpike = false
+	return idx
+}
+
+// clearSparse zeroes v at idx and returns idx emptied.
+func clearSparse(v []float64, idx []int) []int {
+	for _, i := range idx {
+		v[i] = 0
+	}
+	return idx[:0]
+}
+
+// resetDualWork zeroes the sparse work vectors of the dual simplex and
+// rebuilds the list of primal infeasible positions from scratch.
+func (s *Solver) resetDualWork() {
+	for _, v := range [][]float64{s.drho, s.alpha, s.tau, s.flipCol} {
+		for i := range v {
+			v[i] = 0
+		}
+	}
+	s.rhoIdx, s.alphaIdx, s.tauIdx, s.fcIdx = s.rhoIdx[:0], s.alphaIdx[:0], s.tauIdx[:0], s.fcIdx[:0]
+	for _, p := range s.infPos {
+		s.infIn[p] = false
+	}
+	s.infPos = s.infPos[:0]
+	for p := range s.head {
+		s.touchInf(p)
+	}
+}
+
+// touchInf adds basis position p to the infeasible list if its variable
+// is primal infeasible; the pricing drops positions that have become
+// feasible.
+func (s *Solver) touchInf(p int) {
+	if !s.infIn[p] && s.infeasibility(s.head[p]) != 0 {
+		s.infIn[p] = true
+		s.infPos = append(s.infPos, p)
+	}
 }
 
 // ftranCol sets out = B⁻¹ a_j.

@@ -68,6 +68,15 @@ type Solver struct {
 	// scratch
 	rho, alpha, tau, rowAlpha, flipCol []float64
 	rhoIdx                             []int
+
+	// Sparse work of the dual simplex (dual.go): drho, alpha, tau and
+	// flipCol are kept zero outside their index lists; infPos lists the
+	// basis positions that may be primal infeasible (infIn marks them);
+	// fcMark marks rows during the flip column's assembly.
+	drho                     []float64
+	alphaIdx, tauIdx, fcIdx  []int
+	infPos                   []int
+	infIn, fcMark            []bool
 	rowMark                            []bool
 	rowList                            []int
 	candIdx, flipList, groupList       []int
@@ -156,6 +165,9 @@ func New(p *Problem, opt Options) (*Solver, error) {
 	s.flipCol = make([]float64, m)
 	s.rowAlpha = make([]float64, N)
 	s.rowMark = make([]bool, n)
+	s.drho = make([]float64, m)
+	s.infIn = make([]bool, m)
+	s.fcMark = make([]bool, m)
 	s.unit = make([]int, m)
 	for i := range s.unit {
 		s.unit[i] = i
