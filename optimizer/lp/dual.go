@@ -75,7 +75,7 @@ func (s *Solver) dualSimplex() (Status, error) {
 		// 2. ρ and the pivot row.
 		s.rhoIdx = clearSparse(rho, s.rhoIdx)
 		rho[r] = 1
-		s.rhoIdx = s.lu.btranSparse(rho, append(s.rhoIdx, r))
+		s.rhoIdx = s.lu.btranSparse(rho, append(s.rhoIdx, r), &s.hintRho)
 		list := s.pivotRow(rho, s.rhoIdx)
 
 		// 3. Bound flipping ratio test with Harris tolerances.
@@ -213,7 +213,7 @@ func (s *Solver) dualSimplex() (Status, error) {
 			for _, i := range fidx {
 				s.fcMark[i] = false
 			}
-			fidx = s.lu.ftranSparse(fc, fidx)
+			fidx = s.lu.ftranSparse(fc, fidx, &s.hintFlip)
 			for _, pos := range fidx {
 				s.x[s.head[pos]] -= fc[pos]
 			}
@@ -239,13 +239,10 @@ func (s *Solver) dualSimplex() (Status, error) {
 		// Dual steepest edge weights (Forrest & Goldfarb 1992):
 		// w_r' = w_r/α_r², w_i' = w_i − 2(α_i/α_r)τ_i + (α_i/α_r)² w_r.
 		wr := 0.0
-		s.tauIdx = clearSparse(tau, s.tauIdx)
 		for _, i := range s.rhoIdx {
-			v := rho[i]
-			wr += v * v
-			tau[i] = v
+			wr += rho[i] * rho[i]
 		}
-		s.tauIdx = s.lu.ftranSparse(tau, append(s.tauIdx, s.rhoIdx...))
+		s.computeTau(r, rho, alpha, tau)
 		for _, i := range s.alphaIdx {
 			ai := alpha[i]
 			if i == r || ai == 0 {
@@ -288,6 +285,53 @@ func (s *Solver) dualSimplex() (Status, error) {
 		}
 		s.touchInf(r)
 	}
+}
+
+// tauRowCost is the fixed cost, in vector entries, counted for one
+// BTRAN in computeTau's choice (a guess; it covers the search set-up).
+const tauRowCost = 32
+
+// computeTau sets tau_i = (B⁻¹ρ)_i for the positions i ≠ r where α_q is
+// nonzero, which is all the weight update reads. τ is often far denser
+// than ρ and α_q (in the plan models about half full while they hold a
+// few dozen entries), so when the entries needed are few it is cheaper
+// to take each as τ_i = (B⁻ᵀe_i)ᵀρ from a hypersparse BTRAN than to do
+// the FTRAN of ρ; the choice compares the expected work from the recent
+// densities. Either way tau is zero outside s.tauIdx on return.
+func (s *Solver) computeTau(r int, rho, alpha, tau []float64) {
+	s.tauIdx = clearSparse(tau, s.tauIdx)
+	nA := 0
+	for _, i := range s.alphaIdx {
+		if i != r && alpha[i] != 0 {
+			nA++
+		}
+	}
+	m := float64(s.m)
+	if float64(nA)*(s.hintRow*m+tauRowCost) < s.hintTau*m {
+		// Let the estimate of τ's density fade so that a τ grown
+		// sparse is noticed by an occasional FTRAN.
+		s.hintTau *= 0.99
+		e := s.rho2
+		for _, i := range s.alphaIdx {
+			if i == r || alpha[i] == 0 {
+				continue
+			}
+			s.rho2Idx = clearSparse(e, s.rho2Idx)
+			e[i] = 1
+			s.rho2Idx = s.lu.btranSparse(e, append(s.rho2Idx, i), &s.hintRow)
+			v := 0.0
+			for _, k := range s.rho2Idx {
+				v += e[k] * rho[k]
+			}
+			tau[i] = v
+			s.tauIdx = append(s.tauIdx, i)
+		}
+		return
+	}
+	for _, i := range s.rhoIdx {
+		tau[i] = rho[i]
+	}
+	s.tauIdx = s.lu.ftranSparse(tau, append(s.tauIdx, s.rhoIdx...), &s.hintTau)
 }
 
 // statusUncertain is returned by dualSimplex when the ratio test found no

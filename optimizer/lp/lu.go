@@ -353,8 +353,17 @@ func (f *luFactor) needRefactor() bool {
 // ftran overwrites a (indexed by rows, length m) with B⁻¹a indexed by
 // basis positions.
 func (f *luFactor) ftran(a []float64) {
-	m := f.m
-	// L̃ v = a; pivots with an empty L column change nothing.
+	f.ftranL(a)
+	f.ftranR(a)
+	if f.wantSpike {
+		f.saveSpike(a)
+	}
+	f.ftranU(a)
+}
+
+// ftranL solves L̃ v = a in place; pivots with an empty L column change
+// nothing.
+func (f *luFactor) ftranL(a []float64) {
 	for _, k := range f.lNZ {
 		v := a[f.prow[k]]
 		if v == 0 {
@@ -364,7 +373,10 @@ func (f *luFactor) ftran(a []float64) {
 			a[f.lIdx[t]] -= v * f.lVal[t]
 		}
 	}
-	// Forrest–Tomlin row etas, oldest first.
+}
+
+// ftranR applies the Forrest–Tomlin row etas, oldest first.
+func (f *luFactor) ftranR(a []float64) {
 	for e, kp := range f.rPiv {
 		r := f.prow[kp]
 		v := a[r]
@@ -373,17 +385,18 @@ func (f *luFactor) ftran(a []float64) {
 		}
 		a[r] = v
 	}
-	if f.wantSpike {
-		f.spikeIdx = f.spikeIdx[:0]
-		f.spikeVal = f.spikeVal[:0]
-		for k := 0; k < m; k++ {
-			if v := a[f.prow[k]]; v != 0 {
-				f.spikeIdx = append(f.spikeIdx, k)
-				f.spikeVal = append(f.spikeVal, v)
-			}
+}
+
+// saveSpike keeps L̃⁻¹a after the row etas, by pivot, for the update.
+func (f *luFactor) saveSpike(a []float64) {
+	f.spikeIdx = f.spikeIdx[:0]
+	f.spikeVal = f.spikeVal[:0]
+	for k := 0; k < f.m; k++ {
+		if v := a[f.prow[k]]; v != 0 {
+			f.spikeIdx = append(f.spikeIdx, k)
+			f.spikeVal = append(f.spikeVal, v)
 		}
 	}
-	f.ftranU(a)
 }
 
 // ftranU finishes ftran: it solves U t = v (v in a, by rows) and applies

@@ -181,23 +181,36 @@ search:
 // ftranSparse is ftran for a right-hand side a (by rows) that is zero
 // outside the rows idx (no repeats). It returns, in idx's storage, the
 // basis positions where the result (a, by positions) may be nonzero; a
-// is zero elsewhere.
-func (f *luFactor) ftranSparse(a []float64, idx []int) []int {
+// is zero elsewhere. hint, when not nil, carries the recent result
+// density of the caller's kind of vector (Hall & McKinnon 2005 predict
+// it the same way, from memory): above hyperFrac the search is not
+// tried, and it is updated here.
+func (f *luFactor) ftranSparse(a []float64, idx []int, hint *float64) []int {
 	m := f.m
+	if len(f.etaPos) > 0 {
+		f.ftran(a)
+		return nonzeros(a, idx[:0])
+	}
 	limit := f.hyperLimit()
-	if len(f.etaPos) > 0 || len(idx) > limit {
-		f.ftran(a)
-		return nonzeros(a, idx[:0])
+	var order []int
+	ok := false
+	if len(idx) <= limit && (hint == nil || *hint <= hyperFrac) {
+		starts := f.starts[:0]
+		for _, i := range idx {
+			starts = append(starts, f.rowPiv[i])
+		}
+		f.starts = starts
+		order, ok = f.reach(starts, f.lStart[:m], f.lStart[1:], f.lPiv, limit)
 	}
-	starts := f.starts[:0]
-	for _, i := range idx {
-		starts = append(starts, f.rowPiv[i])
-	}
-	f.starts = starts
-	order, ok := f.reach(starts, f.lStart[:m], f.lStart[1:], f.lPiv, limit)
 	if !ok {
-		f.ftran(a)
-		return nonzeros(a, idx[:0])
+		f.ftranL(a)
+		f.ftranR(a)
+		if f.wantSpike {
+			f.saveSpike(a)
+		}
+		out := f.ftranUList(a, idx[:0])
+		noteDensity(hint, len(out), m)
+		return out
 	}
 	// L̃ v = a in topological order.
 	for _, k := range order {
@@ -243,8 +256,9 @@ func (f *luFactor) ftranSparse(a []float64, idx []int) []int {
 	// U t = v in topological order of U's column graph.
 	order, ok = f.reach(P, f.uBeg, f.uEnd, f.uIdx, limit)
 	if !ok {
-		f.ftranU(a)
-		return nonzeros(a, idx[:0])
+		out := f.ftranUList(a, idx[:0])
+		noteDensity(hint, len(out), m)
+		return out
 	}
 	t := f.sw
 	for _, k := range order {
@@ -269,6 +283,46 @@ func (f *luFactor) ftranSparse(a []float64, idx []int) []int {
 			out = append(out, p)
 		}
 	}
+	noteDensity(hint, len(out), m)
+	return out
+}
+
+// noteDensity updates a density estimate with a result of nnz nonzeros
+// out of m, as an exponential average.
+func noteDensity(hint *float64, nnz, m int) {
+	if hint != nil {
+		*hint = 0.75**hint + 0.25*float64(nnz)/float64(m)
+	}
+}
+
+// ftranUList is the dense U solve of ftranU without the product-form
+// etas (the caller checks there are none); it appends the positions
+// of the nonzeros of the result to out, and needs no pass over all of a.
+func (f *luFactor) ftranUList(a []float64, out []int) []int {
+	w := f.sw // by position here; zero again on return
+	for idx := len(f.ord) - 1; idx >= 0; idx-- {
+		k := f.ord[idx]
+		if k < 0 {
+			continue
+		}
+		r := f.prow[k]
+		v := a[r]
+		if v == 0 {
+			continue
+		}
+		a[r] = 0
+		tk := v / f.uDiag[k]
+		p := f.pcol[k]
+		w[p] = tk
+		out = append(out, p)
+		for t := f.uBeg[k]; t < f.uEnd[k]; t++ {
+			a[f.prow[f.uIdx[t]]] -= f.uVal[t] * tk
+		}
+	}
+	for _, p := range out {
+		a[p] = w[p]
+		w[p] = 0
+	}
 	return out
 }
 
@@ -276,12 +330,14 @@ func (f *luFactor) ftranSparse(a []float64, idx []int) []int {
 // that is zero outside the positions idx (no repeats). It returns, in
 // idx's storage, the rows where the result (c, by rows) may be nonzero;
 // c is zero elsewhere.
-func (f *luFactor) btranSparse(c []float64, idx []int) []int {
+func (f *luFactor) btranSparse(c []float64, idx []int, hint *float64) []int {
 	m := f.m
 	limit := f.hyperLimit()
-	if len(f.etaPos) > 0 || len(idx) > limit {
+	if len(f.etaPos) > 0 || len(idx) > limit || (hint != nil && *hint > hyperFrac) {
 		f.btran(c)
-		return nonzeros(c, idx[:0])
+		out := nonzeros(c, idx[:0])
+		noteDensity(hint, len(out), m)
+		return out
 	}
 	starts := f.starts[:0]
 	for _, p := range idx {
@@ -291,7 +347,9 @@ func (f *luFactor) btranSparse(c []float64, idx []int) []int {
 	order, ok := f.reach(starts, f.urBeg, f.urEnd, f.urPiv, limit)
 	if !ok {
 		f.btran(c)
-		return nonzeros(c, idx[:0])
+		out := nonzeros(c, idx[:0])
+		noteDensity(hint, len(out), m)
+		return out
 	}
 	// Uᵀ s = c, scattering along the rows of U.
 	s := f.sw
@@ -341,7 +399,9 @@ func (f *luFactor) btranSparse(c []float64, idx []int) []int {
 		for _, k := range P {
 			s[k] = 0
 		}
-		return nonzeros(c, idx[:0])
+		out := nonzeros(c, idx[:0])
+		noteDensity(hint, len(out), m)
+		return out
 	}
 	out := idx[:0]
 	for _, j := range order {
@@ -357,6 +417,7 @@ func (f *luFactor) btranSparse(c []float64, idx []int) []int {
 			s[f.lrPiv[t]] -= f.lrVal[t] * v
 		}
 	}
+	noteDensity(hint, len(out), m)
 	return out
 }
 

@@ -100,13 +100,34 @@ func checkSolves(t *testing.T, rng *rand.Rand, f *luFactor, b *sparseBasis, what
 			rhs, idx := sparseRHS(rng, m, nnz)
 			dense := append([]float64(nil), rhs...)
 			sparse := append([]float64(nil), rhs...)
-			var out []int
+			// A density hint above hyperFrac forces the dense solve
+			// behind the sparse interface; it must agree too.
+			forced := append([]float64(nil), rhs...)
+			hint := 1.0
+			var out, outForced []int
 			if trans {
 				f.btran(dense)
-				out = f.btranSparse(sparse, append([]int(nil), idx...))
+				out = f.btranSparse(sparse, append([]int(nil), idx...), nil)
+				outForced = f.btranSparse(forced, append([]int(nil), idx...), &hint)
 			} else {
 				f.ftran(dense)
-				out = f.ftranSparse(sparse, append([]int(nil), idx...))
+				out = f.ftranSparse(sparse, append([]int(nil), idx...), nil)
+				outForced = f.ftranSparse(forced, append([]int(nil), idx...), &hint)
+			}
+			if want := 0.75 + 0.25*float64(len(outForced))/float64(m); hint != want {
+				t.Fatalf("%s: density hint %g, want %g", what, hint, want)
+			}
+			listedForced := make([]bool, m)
+			for _, i := range outForced {
+				listedForced[i] = true
+			}
+			for i := 0; i < m; i++ {
+				if forced[i] != 0 && !listedForced[i] {
+					t.Fatalf("%s (trans %v, nnz %d, forced dense): nonzero %d not listed", what, trans, nnz, i)
+				}
+				if forced[i] != dense[i] {
+					t.Fatalf("%s (trans %v, nnz %d, forced dense): entry %d %g, dense %g", what, trans, nnz, i, forced[i], dense[i])
+				}
 			}
 			var x mat.VecDense
 			var err error
@@ -183,7 +204,7 @@ func TestHypersparseSolves(t *testing.T) {
 					a[i] = cv[k]
 				}
 				f.wantSpike = true
-				list := f.ftranSparse(a, append([]int(nil), ci...))
+				list := f.ftranSparse(a, append([]int(nil), ci...), nil)
 				f.wantSpike = false
 				// Leave a position where the column has a usable pivot,
 				// as the simplex does.

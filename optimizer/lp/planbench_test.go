@@ -39,15 +39,17 @@ func BenchmarkPlanModelRootLP(b *testing.B) {
 		b.Run(name, func(b *testing.B) {
 			p := readPlanModel(b, name)
 			var r *lp.Result
+			c0 := lp.ProcessCPU()
 			for b.Loop() {
-				t0 := time.Now()
+				t0, c1 := time.Now(), lp.ProcessCPU()
 				var err error
 				r, err = lp.Solve(p, lp.Options{})
 				if err != nil || r.Status != lp.Optimal {
 					b.Fatalf("%s: status %v, err %v", name, r.Status, err)
 				}
-				b.Logf("%s: %d iterations, objective %.15g, %v", name, r.Iterations, r.Obj, time.Since(t0))
+				b.Logf("%s: %d iterations, objective %.15g, wall %v, cpu %v", name, r.Iterations, r.Obj, time.Since(t0), lp.ProcessCPU()-c1)
 			}
+			b.ReportMetric(float64(lp.ProcessCPU()-c0)/1e6/float64(b.N), "cpu-ms/op")
 			b.ReportMetric(float64(r.Iterations), "iters")
 			b.ReportMetric(r.Obj, "obj")
 		})

@@ -225,7 +225,7 @@ func (s *Solver) primalSimplex() (Status, error) {
 			rho[i] = 0
 		}
 		rho[r] = 1
-		s.rhoIdx = s.lu.btranSparse(rho, append(s.rhoIdx[:0], r))
+		s.rhoIdx = s.lu.btranSparse(rho, append(s.rhoIdx[:0], r), &s.hintRho)
 		arq := alpha[r]
 		wq := devex[q]
 		reset := false

@@ -489,7 +489,7 @@ func (s *Solver) ftranColSparse(j int, out []float64, idx []int) []int {
 		idx = append(idx, i)
 	}
 	s.lu.wantSpike = true
-	idx = s.lu.ftranSparse(out, idx)
+	idx = s.lu.ftranSparse(out, idx, &s.hintAlpha)
 	s.lu.wantSpike = false
 	return idx
 }
@@ -505,12 +505,13 @@ func clearSparse(v []float64, idx []int) []int {
 // resetDualWork zeroes the sparse work vectors of the dual simplex and
 // rebuilds the list of primal infeasible positions from scratch.
 func (s *Solver) resetDualWork() {
-	for _, v := range [][]float64{s.drho, s.alpha, s.tau, s.flipCol} {
+	for _, v := range [][]float64{s.drho, s.alpha, s.tau, s.flipCol, s.rho2} {
 		for i := range v {
 			v[i] = 0
 		}
 	}
 	s.rhoIdx, s.alphaIdx, s.tauIdx, s.fcIdx = s.rhoIdx[:0], s.alphaIdx[:0], s.tauIdx[:0], s.fcIdx[:0]
+	s.rho2Idx = s.rho2Idx[:0]
 	for _, p := range s.infPos {
 		s.infIn[p] = false
 	}

@@ -73,14 +73,19 @@ type Solver struct {
 	// flipCol are kept zero outside their index lists; infPos lists the
 	// basis positions that may be primal infeasible (infIn marks them);
 	// fcMark marks rows during the flip column's assembly.
-	drho                     []float64
-	alphaIdx, tauIdx, fcIdx  []int
-	infPos                   []int
-	infIn, fcMark            []bool
-	rowMark                            []bool
-	rowList                            []int
-	candIdx, flipList, groupList       []int
-	unit                               []int // unit[i] == i
+	drho                    []float64
+	alphaIdx, tauIdx, fcIdx []int
+	infPos                  []int
+	infIn, fcMark           []bool
+	// Recent result densities of the solves by kind, which pick the
+	// hypersparse or the dense solve (lu_sparse.go).
+	hintRho, hintAlpha, hintTau, hintFlip, hintRow float64
+	rho2                                           []float64 // B⁻ᵀe_i for computeTau
+	rho2Idx                                        []int
+	rowMark                                        []bool
+	rowList                                        []int
+	candIdx, flipList, groupList                   []int
+	unit                                           []int // unit[i] == i
 }
 
 // NumRows returns the number of rows.
@@ -166,6 +171,7 @@ func New(p *Problem, opt Options) (*Solver, error) {
 	s.rowAlpha = make([]float64, N)
 	s.rowMark = make([]bool, n)
 	s.drho = make([]float64, m)
+	s.rho2 = make([]float64, m)
 	s.infIn = make([]bool, m)
 	s.fcMark = make([]bool, m)
 	s.unit = make([]int, m)
