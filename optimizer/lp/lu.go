@@ -96,6 +96,7 @@ type luFactor struct {
 	topo          []int
 	stack, pstack []int
 	visList       []int
+	leaves        []int
 	starts, pList []int
 	sw            []float64
 
@@ -196,6 +197,20 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 	f.lNZ = f.lNZ[:0]
 	for _, p := range f.order {
 		idx, val := col(p)
+		if len(idx) == 1 && f.rowPiv[idx[0]] < 0 && math.Abs(val[0]) >= singularTol {
+			// A singleton on an unpivoted row (a slack, mostly) pivots
+			// at once, with empty L and U columns: the general path
+			// below would do the same.
+			i, k := idx[0], len(f.prow)
+			f.uBeg = append(f.uBeg, len(f.uIdx))
+			f.uEnd = append(f.uEnd, len(f.uIdx))
+			f.rowPiv[i] = k
+			f.prow = append(f.prow, i)
+			f.pcol = append(f.pcol, p)
+			f.uDiag = append(f.uDiag, val[0])
+			f.lStart = append(f.lStart, len(f.lIdx))
+			continue
+		}
 		nz := f.nzList[:0]
 		heap := f.heap[:0]
 		for k, i := range idx {

@@ -37,7 +37,7 @@ func (f *luFactor) buildRows() {
 	if len(f.visited) != m {
 		f.visited = make([]bool, m)
 		f.inP = make([]bool, m)
-		f.topo = make([]int, m)
+		f.topo = make([]int, 2*m)
 		f.stack = make([]int, m)
 		f.pstack = make([]int, m)
 		f.sw = make([]float64, m)
@@ -118,19 +118,28 @@ func resizeFloats(s []float64, n int) []float64 {
 // reach returns the nodes reachable from starts in the graph whose node
 // k has the successors adj[beg[k]:end[k]], in topological order (every
 // node before its successors), by the iterative depth-first search of
-// Gilbert & Peierls (1988). It gives up (ok false) once more than limit
-// nodes are visited. The result lives in f.topo until the next call.
+// Gilbert & Peierls (1988). Starts without successors (in the plan
+// models most of them: slack pivots) need no search: unless the search
+// reaches them from another start, they go to the end of the order,
+// which is topological for a node without successors. It gives up (ok
+// false) once more than limit nodes are taken. The result lives in
+// f.topo until the next call.
 func (f *luFactor) reach(starts, beg, end, adj []int, limit int) (order []int, ok bool) {
 	m := f.m
 	top := m
 	vis := f.visList[:0]
+	leaves := f.leaves[:0]
 	ok = true
 search:
 	for _, s := range starts {
 		if f.visited[s] {
 			continue
 		}
-		if len(vis) >= limit {
+		if beg[s] == end[s] {
+			leaves = append(leaves, s)
+			continue
+		}
+		if len(vis)+len(leaves) >= limit {
 			ok = false
 			break
 		}
@@ -148,7 +157,7 @@ search:
 				if f.visited[j] {
 					continue
 				}
-				if len(vis) >= limit {
+				if len(vis)+len(leaves) >= limit {
 					ok = false
 					break search
 				}
@@ -168,14 +177,26 @@ search:
 			}
 		}
 	}
+	n := m
+	if ok {
+		for _, k := range leaves {
+			if !f.visited[k] {
+				f.visited[k] = true
+				vis = append(vis, k)
+				f.topo[n] = k
+				n++
+			}
+		}
+	}
 	for _, k := range vis {
 		f.visited[k] = false
 	}
 	f.visList = vis
+	f.leaves = leaves
 	if !ok {
 		return nil, false
 	}
-	return f.topo[top:], true
+	return f.topo[top:n], true
 }
 
 // ftranSparse is ftran for a right-hand side a (by rows) that is zero
