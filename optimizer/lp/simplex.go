@@ -156,7 +156,7 @@ func (s *Solver) run() (Status, error) {
 		// Remove perturbation and shifts and recompute x, y and d, from a
 		// fresh factorization once the eta file is half full.
 		s.resetCosts()
-		if 2*s.lu.numEtas() >= refactorEvery {
+		if 2*s.lu.numEtas() >= s.lu.refactorLimit() {
 			if err := s.refactor(); err != nil {
 				return 0, err
 			}
