@@ -83,6 +83,14 @@ type psWork struct {
 	fixed      []float64
 	shift      float64
 	infeasible bool
+	// Rows that still list a removed column: fixCol only marks them, and
+	// compact drops the dead entries before the row lists are read again.
+	// Removing a column from each of its rows at once costs the length
+	// of the row every time, which made presolve quadratic on models with
+	// long rows (a rig's days row lists every option of the rig) where
+	// many columns are fixed.
+	dirty     []bool
+	dirtyRows []int
 }
 
 const psTol = 1e-9
@@ -115,6 +123,7 @@ func presolve(p *Problem) *presolved {
 		colAlive: make([]bool, n),
 		rowAlive: make([]bool, m),
 		fixed:    make([]float64, n),
+		dirty:    make([]bool, m),
 	}
 	for j := 0; j < n; j++ {
 		w.colAlive[j] = true
@@ -171,19 +180,29 @@ func (w *psWork) fixCol(j int, v float64) {
 		a := w.colVals[j][k] * v
 		w.rowLo[i] -= a
 		w.rowUp[i] -= a
-		w.removeFromRow(i, j)
+		if !w.dirty[i] {
+			w.dirty[i] = true
+			w.dirtyRows = append(w.dirtyRows, i)
+		}
 	}
 }
 
-func (w *psWork) removeFromRow(i, j int) {
-	cols, vals := w.rowCols[i], w.rowVals[i]
-	for k, c := range cols {
-		if c == j {
-			w.rowCols[i] = append(cols[:k:k], cols[k+1:]...)
-			w.rowVals[i] = append(vals[:k:k], vals[k+1:]...)
-			return
+// compact drops removed columns from the rows fixCol marked, keeping the
+// order of the others: one pass over each marked row.
+func (w *psWork) compact() {
+	for _, i := range w.dirtyRows {
+		w.dirty[i] = false
+		cols, vals := w.rowCols[i], w.rowVals[i]
+		k := 0
+		for t, j := range cols {
+			if w.colAlive[j] {
+				cols[k], vals[k] = j, vals[t]
+				k++
+			}
 		}
+		w.rowCols[i], w.rowVals[i] = cols[:k], vals[:k]
 	}
+	w.dirtyRows = w.dirtyRows[:0]
 }
 
 func (w *psWork) removeRow(i int) {
@@ -235,6 +254,7 @@ func (w *psWork) generalPass() bool {
 			changed = true
 		}
 	}
+	w.compact()
 	for i := 0; i < w.m; i++ {
 		if !w.rowAlive[i] {
 			continue
@@ -342,6 +362,7 @@ func (w *psWork) coverPass() bool {
 	if changed {
 		return true
 	}
+	w.compact()
 	// Row dominance: drop row i when another live row k has
 	// cols(k) ⊆ cols(i); identical rows keep the lower index.
 	rows := w.liveRows()
@@ -422,6 +443,7 @@ func (w *psWork) coverPass() bool {
 			}
 		}
 	}
+	w.compact()
 	// Beasley's cost rule: drop j when
 	// c_j ≥ Σ_{i ∈ rows(j)} min{c_k : k ≠ j live, k covers i}.
 	for j := 0; j < w.n; j++ {
@@ -432,7 +454,7 @@ func (w *psWork) coverPass() bool {
 		for _, i := range w.colRows[j] {
 			best := math.Inf(1)
 			for _, k := range w.rowCols[i] {
-				if k != j && w.cost[k] < best {
+				if k != j && w.colAlive[k] && w.cost[k] < best {
 					best = w.cost[k]
 				}
 			}

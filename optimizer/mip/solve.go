@@ -55,6 +55,10 @@ func Solve(ctx context.Context, p *Problem, opt Options) (*Result, error) {
 	}
 	res := &Result{Obj: math.Inf(1), Bound: math.Inf(-1), Gap: math.Inf(1)}
 	ps := presolve(p)
+	res.PresolveTime = time.Since(start)
+	if ps.red != nil {
+		res.PresolvedRows, res.PresolvedCols = ps.red.LP.NumRows, ps.red.LP.NumCols
+	}
 	if ps.infeasible {
 		res.Status = Infeasible
 		res.Bound = math.Inf(1)
@@ -425,7 +429,7 @@ func (e *engine) run() (Status, error) {
 // tryStart maps Options.Start into the presolved space and keeps it as
 // the incumbent when it is feasible there. A start that presolve cannot
 // map (it gives a removed column another value than presolve fixed) or
-// that breaks a row seeds the repair search instead.
+// that breaks a row is where the repair search begins instead.
 func (e *engine) tryStart() {
 	x := e.ps.reduce(e.opt.Start)
 	if x == nil {

@@ -88,7 +88,10 @@ type Result struct {
 	// proven lower bound; Gap = (Obj-Bound)/max(1,|Obj|).
 	Obj, Bound, Gap     float64
 	Nodes, LPIterations int
-	// Elapsed is wall time; keep it out of outputs that must be
-	// deterministic.
-	Elapsed time.Duration
+	// PresolvedRows and PresolvedCols give the size of the problem the
+	// search worked on, after presolve.
+	PresolvedRows, PresolvedCols int
+	// Elapsed is wall time, PresolveTime the part of it spent in
+	// presolve; keep both out of outputs that must be deterministic.
+	Elapsed, PresolveTime time.Duration
 }

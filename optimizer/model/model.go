@@ -292,6 +292,15 @@ func Build(s *Spec) (*Model, error) {
 	// symmetric alternatives; and the share's lower bound rounds up:
 	// s[z] ≥ ⌈share·n_min⌉ (a Chvátal–Gomory rounding of s ≥ share·n with
 	// n ≥ n_min; Wolsey, Integer Programming, 1998, §8.2 — from memory).
+	// Options by zone and by rig, listed once: a scan of every option
+	// per zone or per rig would grow with zones × options.
+	byZone := make([][]int, len(s.Zones))
+	byRig := make([][]int, len(s.Rigs))
+	for o, op := range s.Options {
+		z := s.PointZone[op.Point]
+		byZone[z] = append(byZone[z], o)
+		byRig[op.Rig] = append(byRig[op.Rig], o)
+	}
 	m.NCol = make([]int, len(s.Zones))
 	m.SCol = make([]int, len(s.Zones))
 	m.CountRow = make([]int, len(s.Zones))
@@ -303,10 +312,8 @@ func Build(s *Spec) (*Model, error) {
 			zn.MinCount = 0 // counts dropped in the maximal covering form
 		}
 		var cols, sampled []int
-		for o, op := range s.Options {
-			if s.PointZone[op.Point] != z {
-				continue
-			}
+		for _, o := range byZone[z] {
+			op := s.Options[o]
 			cols = append(cols, m.XCol[o])
 			if op.Sampled {
 				sampled = append(sampled, m.XCol[o])
@@ -331,11 +338,9 @@ func Build(s *Spec) (*Model, error) {
 	for r, rg := range s.Rigs {
 		cols := []int{m.DCol[r], m.YCol[r]}
 		vals := []float64{s.HoursPerDay, -rg.MobHours}
-		for o, op := range s.Options {
-			if op.Rig == r {
-				cols = append(cols, m.XCol[o])
-				vals = append(vals, -op.Hours)
-			}
+		for _, o := range byRig[r] {
+			cols = append(cols, m.XCol[o])
+			vals = append(vals, -s.Options[o].Hours)
 		}
 		b.row("days_"+rg.Name, 0, math.Inf(1), cols, vals)
 		b.row("finish_"+rg.Name, 0, math.Inf(1), []int{m.TCol, m.DCol[r]}, []float64{1, -1})

@@ -33,7 +33,7 @@ const coverNodeLimit = 20000
 // k_z points.
 //
 // It also returns, per zone, the points of the best cover it found (nil
-// when none): the seed of the start solution (see startSolution).
+// when none): what the start solution is built from (see startSolution).
 func coverNumbers(ctx context.Context, pr *Prepared, spec *model.Spec) ([]int, [][]int, error) {
 	nz := len(pr.In.Scenario.Zones)
 	out := make([]int, nz)
@@ -50,11 +50,19 @@ func coverNumbers(ctx context.Context, pr *Prepared, spec *model.Spec) ([]int, [
 		z := spec.PointZone[row[0]]
 		rowsByZone[z] = append(rowsByZone[z], row)
 	}
+	// Explorable points by zone, listed once (a scan of every point per
+	// zone would grow with zones × points).
+	ptsByZone := make([][]int, nz)
+	for p := 0; p < spec.NumPoints; p++ {
+		if explorable[p] {
+			ptsByZone[spec.PointZone[p]] = append(ptsByZone[spec.PointZone[p]], p)
+		}
+	}
 	for z := 0; z < nz; z++ {
 		if len(rowsByZone[z]) == 0 {
 			continue
 		}
-		k, set, err := coverNumber(ctx, spec, z, rowsByZone[z], explorable)
+		k, set, err := coverNumber(ctx, spec, z, rowsByZone[z], ptsByZone[z])
 		if err != nil {
 			return nil, nil, err
 		}
@@ -63,14 +71,10 @@ func coverNumbers(ctx context.Context, pr *Prepared, spec *model.Spec) ([]int, [
 	return out, sets, nil
 }
 
-func coverNumber(ctx context.Context, spec *model.Spec, z int, rows [][]int, explorable []bool) (int, []int, error) {
-	col := map[int]int{}
-	var pts []int
-	for p := 0; p < spec.NumPoints; p++ {
-		if spec.PointZone[p] == z && explorable[p] {
-			col[p] = len(pts)
-			pts = append(pts, p)
-		}
+func coverNumber(ctx context.Context, spec *model.Spec, z int, rows [][]int, pts []int) (int, []int, error) {
+	col := make(map[int]int, len(pts))
+	for j, p := range pts {
+		col[p] = j
 	}
 	n := len(pts)
 	entries := make([][]int, n) // rows of each column

@@ -26,7 +26,7 @@ import (
 
 // builtinRigs serves every built-in rig through the real gRPC shims,
 // in-process (go-plugin's test connection).
-func builtinRigs(t *testing.T) map[string]sdk.Rig {
+func builtinRigs(t testing.TB) map[string]sdk.Rig {
 	t.Helper()
 	rigs := map[string]sdk.Rig{}
 	for _, n := range builtin.Names() {
@@ -39,7 +39,7 @@ func builtinRigs(t *testing.T) map[string]sdk.Rig {
 	return rigs
 }
 
-func demoInput(t *testing.T, name string) Input {
+func demoInput(t testing.TB, name string) Input {
 	t.Helper()
 	sc, err := scenarios.LoadDemo(name, nil)
 	if err != nil {

@@ -79,7 +79,7 @@ type Prepared struct {
 	CoverMin []int
 	// CoverSets is, per zone, the points of the least cover found while
 	// computing CoverMin (nil when the zone has no spacing rule or none
-	// was found); it seeds the start solution.
+	// was found); the start solution is built from it.
 	CoverSets [][]int
 	// Timings records how long each stage took (wall time; kept out of
 	// the plan so the plan stays the same from run to run).

@@ -36,7 +36,7 @@ func feasible(p *mip.Problem, x []float64) (float64, bool) {
 	return obj, true
 }
 
-func generatedInput(t *testing.T, data []byte) Input {
+func generatedInput(t testing.TB, data []byte) Input {
 	t.Helper()
 	sc, err := scenarios.Parse(data, "generated.yaml", nil)
 	if err != nil {

@@ -249,7 +249,8 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 			fmt.Fprintf(stderr, "  %-32s %s\n", tm.Stage, tm.Took.Round(time.Millisecond))
 		}
 		fmt.Fprintf(stderr, "  %-32s %s\n", "assemble plan", time.Since(t0).Round(time.Millisecond))
-		fmt.Fprintf(stderr, "  model %d rows × %d columns; solver %s, gap %.3f%%, %d nodes\n", pr.Model.Problem.LP.NumRows, pr.Model.Problem.LP.NumCols, res.Status, 100*res.Gap, res.Nodes)
+		fmt.Fprintf(stderr, "  model %d rows × %d columns, after presolve %d × %d (presolve %s); solver %s, gap %.3f%%, %d nodes\n",
+			pr.Model.Problem.LP.NumRows, pr.Model.Problem.LP.NumCols, res.PresolvedRows, res.PresolvedCols, res.PresolveTime.Round(time.Millisecond), res.Status, 100*res.Gap, res.Nodes)
 	}
 	for _, w := range []struct {
 		path   string
