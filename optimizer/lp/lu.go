@@ -100,7 +100,9 @@ type luFactor struct {
 	starts, pList []int
 	sw            []float64
 
-	lNZ    []int  // pivots whose L column is not empty, in order
+	lNZ    []int   // pivots whose L column is not empty, in order
+	cIdx   [][]int // the basis columns during factor
+	cVal   [][]float64
 	mark   []bool // row touched in the current column
 	nzList []int
 	heap   []int
@@ -161,9 +163,17 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 	}
 	// Columns in order of increasing count, ties by position: a stable
 	// counting sort (the counts are below m+1).
+	// The columns are fetched once (col may be a closure over the
+	// solver's matrix).
+	if cap(f.cIdx) < m {
+		f.cIdx = make([][]int, m)
+		f.cVal = make([][]float64, m)
+	}
+	f.cIdx, f.cVal = f.cIdx[:m], f.cVal[:m]
 	maxCnt := 0
 	for p := 0; p < m; p++ {
-		idx, _ := col(p)
+		idx, val := col(p)
+		f.cIdx[p], f.cVal[p] = idx, val
 		for _, i := range idx {
 			f.rowCnt[i]++
 		}
@@ -173,8 +183,7 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 	}
 	bucket := make([]int, maxCnt+2)
 	for p := 0; p < m; p++ {
-		idx, _ := col(p)
-		bucket[len(idx)+1]++
+		bucket[len(f.cIdx[p])+1]++
 	}
 	for c := 1; c < len(bucket); c++ {
 		bucket[c] += bucket[c-1]
@@ -184,9 +193,9 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 	}
 	f.order = f.order[:m]
 	for p := 0; p < m; p++ {
-		idx, _ := col(p)
-		f.order[bucket[len(idx)]] = p
-		bucket[len(idx)]++
+		n := len(f.cIdx[p])
+		f.order[bucket[n]] = p
+		bucket[n]++
 	}
 
 	w := f.work
@@ -196,7 +205,7 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 	mark := f.mark
 	f.lNZ = f.lNZ[:0]
 	for _, p := range f.order {
-		idx, val := col(p)
+		idx, val := f.cIdx[p], f.cVal[p]
 		if len(idx) == 1 && f.rowPiv[idx[0]] < 0 && math.Abs(val[0]) >= singularTol {
 			// A singleton on an unpivoted row (a slack, mostly) pivots
 			// at once, with empty L and U columns: the general path
