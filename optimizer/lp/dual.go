@@ -45,7 +45,7 @@ func (s *Solver) dualSimplex() (Status, error) {
 		inf := s.infPos
 		for k := 0; k < len(inf); {
 			p := inf[k]
-			v := s.infeasibility(s.head[p])
+			v := s.infVal[p]
 			if v == 0 {
 				s.infIn[p] = false
 				inf[k] = inf[len(inf)-1]
@@ -287,46 +287,27 @@ func (s *Solver) dualSimplex() (Status, error) {
 	}
 }
 
-// tauRowCost is the fixed cost, in vector entries, counted for one
-// BTRAN in computeTau's choice (a guess; it covers the search set-up).
-const tauRowCost = 32
-
 // computeTau sets tau_i = (B⁻¹ρ)_i for the positions i ≠ r where α_q is
 // nonzero, which is all the weight update reads. τ is often far denser
 // than ρ and α_q (in the plan models about half full while they hold a
-// few dozen entries), so when the entries needed are few it is cheaper
-// to take each as τ_i = (B⁻ᵀe_i)ᵀρ from a hypersparse BTRAN than to do
-// the FTRAN of ρ; the choice compares the expected work from the recent
-// densities. Either way tau is zero outside s.tauIdx on return.
+// few dozen entries), so when recent τ were dense only the entries
+// needed are computed (ftranPartial). Either way tau is zero outside
+// s.tauIdx on return.
 func (s *Solver) computeTau(r int, rho, alpha, tau []float64) {
 	s.tauIdx = clearSparse(tau, s.tauIdx)
-	nA := 0
-	for _, i := range s.alphaIdx {
-		if i != r && alpha[i] != 0 {
-			nA++
-		}
-	}
-	m := float64(s.m)
-	if float64(nA)*(s.hintRow*m+tauRowCost) < s.hintTau*m {
-		// Let the estimate of τ's density fade so that a τ grown
-		// sparse is noticed by an occasional FTRAN.
-		s.hintTau *= 0.99
-		e := s.rho2
+	if s.hintTau > hyperFrac {
 		for _, i := range s.alphaIdx {
-			if i == r || alpha[i] == 0 {
-				continue
+			if i != r && alpha[i] != 0 {
+				s.tauIdx = append(s.tauIdx, i)
 			}
-			s.rho2Idx = clearSparse(e, s.rho2Idx)
-			e[i] = 1
-			s.rho2Idx = s.lu.btranSparse(e, append(s.rho2Idx, i), &s.hintRow)
-			v := 0.0
-			for _, k := range s.rho2Idx {
-				v += e[k] * rho[k]
-			}
-			tau[i] = v
-			s.tauIdx = append(s.tauIdx, i)
 		}
-		return
+		if s.lu.ftranPartial(rho, s.tauIdx, tau, s.m/2) {
+			// Let the estimate of τ's density fade so that a τ grown
+			// sparse is noticed by an occasional full FTRAN.
+			s.hintTau *= 0.99
+			return
+		}
+		s.tauIdx = s.tauIdx[:0]
 	}
 	for _, i := range s.rhoIdx {
 		tau[i] = rho[i]

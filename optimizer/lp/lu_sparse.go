@@ -570,3 +570,95 @@ func (f *luFactor) appendRowEntry(j, k int, v float64) {
 	f.urVal[f.urEnd[j]] = v
 	f.urEnd[j]++
 }
+
+// ftranPartial sets out[p] = (B⁻¹a)_p for the basis positions p in
+// targets only, leaving a and the rest of out untouched; a is by rows.
+// It works backward from the targets: an entry of the U solve needs the
+// entries along its row of U, those need the entries the row etas read,
+// and all of them need the entries along their rows of L. Both needed
+// sets are found by the depth-first search of reach over the row-wise
+// factors and solved by dot products along the rows, so the work is
+// that of the union of the BTRANs of the unit rows of the targets, done
+// once. It reports false, having done nothing, when the product-form
+// eta file is in use or the needed set exceeds limit nodes.
+func (f *luFactor) ftranPartial(a []float64, targets []int, out []float64, limit int) bool {
+	m := f.m
+	if len(f.etaPos) > 0 {
+		return false
+	}
+	starts := f.starts[:0]
+	for _, p := range targets {
+		starts = append(starts, f.pivOfPos[p])
+	}
+	f.starts = starts
+	uOrder, ok := f.reach(starts, f.urBeg, f.urEnd, f.urPiv, limit)
+	if !ok {
+		return false
+	}
+	N := append(f.pList[:0], uOrder...)
+	nU := len(N)
+	for _, k := range N {
+		f.inP[k] = true
+	}
+	for e := len(f.rPiv) - 1; e >= 0; e-- {
+		if !f.inP[f.rPiv[e]] {
+			continue
+		}
+		for t := f.rStart[e]; t < f.rStart[e+1]; t++ {
+			if j := f.rIdx[t]; !f.inP[j] {
+				f.inP[j] = true
+				N = append(N, j)
+			}
+		}
+	}
+	f.pList = N
+	lOrder, ok := f.reach(N, f.lrStart[:m], f.lrStart[1:], f.lrPiv, limit)
+	if !ok {
+		for _, k := range N {
+			f.inP[k] = false
+		}
+		return false
+	}
+	v := f.sw
+	// L̃ v = a: v_k = a_{prow[k]} − Σ L[prow[k], j] v_j, dependencies
+	// (the successors in the search) first.
+	for q := len(lOrder) - 1; q >= 0; q-- {
+		k := lOrder[q]
+		x := a[f.prow[k]]
+		for t := f.lrStart[k]; t < f.lrStart[k+1]; t++ {
+			x -= f.lrVal[t] * v[f.lrPiv[t]]
+		}
+		v[k] = x
+	}
+	// Row etas, oldest first, on the needed entries.
+	for e, kp := range f.rPiv {
+		if !f.inP[kp] {
+			continue
+		}
+		x := v[kp]
+		for t := f.rStart[e]; t < f.rStart[e+1]; t++ {
+			x -= f.rVal[t] * v[f.rIdx[t]]
+		}
+		v[kp] = x
+	}
+	// U t = v along the rows of U, dependencies first; t overwrites v.
+	uOrder = N[:nU]
+	for q := nU - 1; q >= 0; q-- {
+		k := uOrder[q]
+		x := v[k]
+		for t := f.urBeg[k]; t < f.urEnd[k]; t++ {
+			x -= f.urVal[t] * v[f.urPiv[t]]
+		}
+		v[k] = x / f.uDiag[k]
+	}
+	for _, p := range targets {
+		out[p] = v[f.pivOfPos[p]]
+	}
+	for _, k := range lOrder {
+		v[k] = 0
+	}
+	for _, k := range N {
+		f.inP[k] = false
+	}
+	return true
+}

@@ -129,6 +129,25 @@ func checkSolves(t *testing.T, rng *rand.Rand, f *luFactor, b *sparseBasis, what
 					t.Fatalf("%s (trans %v, nnz %d, forced dense): entry %d %g, dense %g", what, trans, nnz, i, forced[i], dense[i])
 				}
 			}
+			if !trans {
+				// Partial FTRAN of a few positions (the DSE weight
+				// update's τ entries) must agree with the full one.
+				targets := rng.Perm(m)[:min(m, 7)]
+				part := make([]float64, m)
+				if !f.ftranPartial(rhs, targets, part, m+1) {
+					t.Fatalf("%s: ftranPartial refused", what)
+				}
+				for _, p := range targets {
+					if d := math.Abs(part[p] - dense[p]); d > 1e-9*math.Max(1, math.Abs(dense[p])) {
+						t.Fatalf("%s (nnz %d): partial FTRAN entry %d %g, full %g", what, nnz, p, part[p], dense[p])
+					}
+				}
+				for i, x := range f.sw {
+					if x != 0 {
+						t.Fatalf("%s: scratch entry %d left at %g", what, i, x)
+					}
+				}
+			}
 			var x mat.VecDense
 			var err error
 			if trans {

@@ -505,13 +505,12 @@ func clearSparse(v []float64, idx []int) []int {
 // resetDualWork zeroes the sparse work vectors of the dual simplex and
 // rebuilds the list of primal infeasible positions from scratch.
 func (s *Solver) resetDualWork() {
-	for _, v := range [][]float64{s.drho, s.alpha, s.tau, s.flipCol, s.rho2} {
+	for _, v := range [][]float64{s.drho, s.alpha, s.tau, s.flipCol} {
 		for i := range v {
 			v[i] = 0
 		}
 	}
 	s.rhoIdx, s.alphaIdx, s.tauIdx, s.fcIdx = s.rhoIdx[:0], s.alphaIdx[:0], s.tauIdx[:0], s.fcIdx[:0]
-	s.rho2Idx = s.rho2Idx[:0]
 	for _, p := range s.infPos {
 		s.infIn[p] = false
 	}
@@ -521,11 +520,13 @@ func (s *Solver) resetDualWork() {
 	}
 }
 
-// touchInf adds basis position p to the infeasible list if its variable
-// is primal infeasible; the pricing drops positions that have become
-// feasible.
+// touchInf records the infeasibility of the variable in basis position
+// p, whose value changed, and adds p to the infeasible list if it is
+// nonzero; the pricing drops positions that have become feasible.
 func (s *Solver) touchInf(p int) {
-	if !s.infIn[p] && s.infeasibility(s.head[p]) != 0 {
+	v := s.infeasibility(s.head[p])
+	s.infVal[p] = v
+	if !s.infIn[p] && v != 0 {
 		s.infIn[p] = true
 		s.infPos = append(s.infPos, p)
 	}

@@ -76,16 +76,15 @@ type Solver struct {
 	drho                    []float64
 	alphaIdx, tauIdx, fcIdx []int
 	infPos                  []int
+	infVal                  []float64 // infeasibility by position, set by touchInf
 	infIn, fcMark           []bool
 	// Recent result densities of the solves by kind, which pick the
 	// hypersparse or the dense solve (lu_sparse.go).
-	hintRho, hintAlpha, hintTau, hintFlip, hintRow float64
-	rho2                                           []float64 // B⁻ᵀe_i for computeTau
-	rho2Idx                                        []int
-	rowMark                                        []bool
-	rowList                                        []int
-	candIdx, flipList, groupList                   []int
-	unit                                           []int // unit[i] == i
+	hintRho, hintAlpha, hintTau, hintFlip float64
+	rowMark                               []bool
+	rowList                               []int
+	candIdx, flipList, groupList          []int
+	unit                                  []int // unit[i] == i
 }
 
 // NumRows returns the number of rows.
@@ -171,8 +170,8 @@ func New(p *Problem, opt Options) (*Solver, error) {
 	s.rowAlpha = make([]float64, N)
 	s.rowMark = make([]bool, n)
 	s.drho = make([]float64, m)
-	s.rho2 = make([]float64, m)
 	s.infIn = make([]bool, m)
+	s.infVal = make([]float64, m)
 	s.fcMark = make([]bool, m)
 	s.unit = make([]int, m)
 	for i := range s.unit {
