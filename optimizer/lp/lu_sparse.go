@@ -163,6 +163,12 @@ search:
 				}
 				f.visited[j] = true
 				vis = append(vis, j)
+				if beg[j] == end[j] {
+					// A leaf finishes at once.
+					top--
+					f.topo[top] = j
+					continue
+				}
 				f.pstack[head] = t + 1
 				head++
 				f.stack[head] = j
