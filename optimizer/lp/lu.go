@@ -102,6 +102,7 @@ type luFactor struct {
 
 	lNZ    []int   // pivots whose L column is not empty, in order
 	cIdx   [][]int // the basis columns during factor
+	base   luBase  // the factorization before updates, for restore
 	cVal   [][]float64
 	mark   []bool // row touched in the current column
 	nzList []int
@@ -348,6 +349,7 @@ func (f *luFactor) factor(col colFunc) (singPos, singRow []int) {
 		f.pivOfPos[f.pcol[k]] = k
 	}
 	f.buildRows()
+	f.saveBase()
 	f.broken = false
 	return singPos, singRow
 }

@@ -533,8 +533,16 @@ func (f *luFactor) updateFT(p int, alphaR float64) bool {
 	return true
 }
 
-// removeColEntry removes the entry of row j from U's column k.
+// removeColEntry removes the entry of row j from U's column k. A column
+// still in the storage of the factorization is first copied to the end,
+// so that restore finds the factorization intact.
 func (f *luFactor) removeColEntry(k, j int) {
+	if f.uBeg[k] < f.base.nU {
+		nb := len(f.uIdx)
+		f.uIdx = append(f.uIdx, f.uIdx[f.uBeg[k]:f.uEnd[k]]...)
+		f.uVal = append(f.uVal, f.uVal[f.uBeg[k]:f.uEnd[k]]...)
+		f.uBeg[k], f.uEnd[k] = nb, len(f.uIdx)
+	}
 	e := f.uEnd[k] - 1
 	for t := f.uBeg[k]; t <= e; t++ {
 		if f.uIdx[t] == j {
@@ -545,8 +553,12 @@ func (f *luFactor) removeColEntry(k, j int) {
 	}
 }
 
-// removeRowEntry removes the entry of column k from U's row j.
+// removeRowEntry removes the entry of column k from U's row j; like
+// removeColEntry it first moves a row of the factorization's storage.
 func (f *luFactor) removeRowEntry(j, k int) {
+	if f.urBeg[j] < f.base.nR {
+		f.moveRow(j)
+	}
 	e := f.urEnd[j] - 1
 	for t := f.urBeg[j]; t <= e; t++ {
 		if f.urPiv[t] == k {
@@ -558,23 +570,74 @@ func (f *luFactor) removeRowEntry(j, k int) {
 }
 
 // appendRowEntry adds (column k, v) to U's row j, moving the row to the
-// end of the storage with twice the room when it is full.
+// end of the storage with twice the room when it is full. (Writing into
+// the room of a row of the factorization leaves its entries intact.)
 func (f *luFactor) appendRowEntry(j, k int, v float64) {
 	if f.urEnd[j] == f.urLim[j] {
-		n := f.urEnd[j] - f.urBeg[j]
-		nb := len(f.urPiv)
-		f.urPiv = append(f.urPiv, f.urPiv[f.urBeg[j]:f.urEnd[j]]...)
-		f.urVal = append(f.urVal, f.urVal[f.urBeg[j]:f.urEnd[j]]...)
-		room := n + 4
-		for q := 0; q < room; q++ {
-			f.urPiv = append(f.urPiv, 0)
-			f.urVal = append(f.urVal, 0)
-		}
-		f.urBeg[j], f.urEnd[j], f.urLim[j] = nb, nb+n, nb+2*n+4
+		f.moveRow(j)
 	}
 	f.urPiv[f.urEnd[j]] = k
 	f.urVal[f.urEnd[j]] = v
 	f.urEnd[j]++
+}
+
+// moveRow copies U's row j to the end of the row storage with room for
+// as many entries again (and 4).
+func (f *luFactor) moveRow(j int) {
+	n := f.urEnd[j] - f.urBeg[j]
+	nb := len(f.urPiv)
+	f.urPiv = append(f.urPiv, f.urPiv[f.urBeg[j]:f.urEnd[j]]...)
+	f.urVal = append(f.urVal, f.urVal[f.urBeg[j]:f.urEnd[j]]...)
+	for q := 0; q < n+4; q++ {
+		f.urPiv = append(f.urPiv, 0)
+		f.urVal = append(f.urVal, 0)
+	}
+	f.urBeg[j], f.urEnd[j], f.urLim[j] = nb, nb+n, nb+2*n+4
+}
+
+// luBase is what restore needs to return to the factorization after
+// Forrest–Tomlin updates: the U pointers and diagonal as factor left
+// them and the storage lengths then. Updates never write inside those
+// lengths (removals move a column or row out first; appends go to the
+// end or into a row's spare room), so the stored entries stay valid.
+type luBase struct {
+	uBeg, uEnd, urBeg, urEnd, urLim []int
+	uDiag                           []float64
+	nU, nR                          int
+}
+
+// saveBase records the factorization just computed.
+func (f *luFactor) saveBase() {
+	b := &f.base
+	b.uBeg = append(b.uBeg[:0], f.uBeg...)
+	b.uEnd = append(b.uEnd[:0], f.uEnd...)
+	b.urBeg = append(b.urBeg[:0], f.urBeg...)
+	b.urEnd = append(b.urEnd[:0], f.urEnd...)
+	b.urLim = append(b.urLim[:0], f.urLim...)
+	b.uDiag = append(b.uDiag[:0], f.uDiag...)
+	b.nU, b.nR = len(f.uIdx), len(f.urPiv)
+}
+
+// restore drops every update since the last factorization, at a cost
+// of O(m) instead of a new factorization of the same basis (which would
+// give the same factors, bit for bit).
+func (f *luFactor) restore() {
+	b := &f.base
+	copy(f.uBeg, b.uBeg)
+	copy(f.uEnd, b.uEnd)
+	copy(f.urBeg, b.urBeg)
+	copy(f.urEnd, b.urEnd)
+	copy(f.urLim, b.urLim)
+	copy(f.uDiag, b.uDiag)
+	f.uIdx, f.uVal = f.uIdx[:b.nU], f.uVal[:b.nU]
+	f.urPiv, f.urVal = f.urPiv[:b.nR], f.urVal[:b.nR]
+	f.ord = f.ord[:0]
+	for k := 0; k < f.m; k++ {
+		f.ord = append(f.ord, k)
+		f.posOf[k] = k
+	}
+	f.clearEtas()
+	f.broken = false
 }
 
 // ftranPartial sets out[p] = (B⁻¹a)_p for the basis positions p in

@@ -18,6 +18,10 @@ type sparseBasis struct {
 
 func (b *sparseBasis) col(p int) ([]int, []float64) { return b.idx[p], b.val[p] }
 
+func (b *sparseBasis) clone() *sparseBasis {
+	return &sparseBasis{m: b.m, idx: append([][]int(nil), b.idx...), val: append([][]float64(nil), b.val...)}
+}
+
 func (b *sparseBasis) dense() *mat.Dense {
 	d := mat.NewDense(b.m, b.m, nil)
 	for p := 0; p < b.m; p++ {
@@ -187,7 +191,7 @@ func checkSolves(t *testing.T, rng *rand.Rand, f *luFactor, b *sparseBasis, what
 // TestHypersparseSolves checks the hypersparse FTRAN/BTRAN against the
 // dense passes and against gonum on random plan-like bases, also after
 // many Forrest–Tomlin updates (which must keep the row-wise U equal to
-// the column-wise one).
+// the column-wise one), and that restore returns the factorization.
 func TestHypersparseSolves(t *testing.T) {
 	for _, tc := range []struct {
 		name       string
@@ -209,6 +213,7 @@ func TestHypersparseSolves(t *testing.T) {
 				b.idx[p], b.val[p] = []int{singRow[k]}, []float64{1}
 			}
 			checkSolves(t, rng, f, b, "fresh")
+			base := b.clone()
 			done := 0
 			for tries := 0; done < tc.updates && tries < 20*tc.updates; tries++ {
 				if f.needRefactor() {
@@ -216,6 +221,7 @@ func TestHypersparseSolves(t *testing.T) {
 					for k, p := range singPos {
 						b.idx[p], b.val[p] = []int{singRow[k]}, []float64{1}
 					}
+					base = b.clone()
 				}
 				ci, cv := randSparseCol(rng, tc.m, 3)
 				a := make([]float64, tc.m)
@@ -245,9 +251,34 @@ func TestHypersparseSolves(t *testing.T) {
 					for k, p := range singPos {
 						b.idx[p], b.val[p] = []int{singRow[k]}, []float64{1}
 					}
+					base = b.clone()
 				}
 				done++
 				checkSolves(t, rng, f, b, "after update")
+			}
+			// Dropping the updates must give back the last
+			// factorization bit for bit: compare with a fresh one of
+			// the basis it was made from.
+			if base != nil {
+				f.restore()
+				g := newLU(tc.m)
+				g.factor(base.col)
+				for trial := 0; trial < 5; trial++ {
+					rhs, idx := sparseRHS(rng, tc.m, 1+trial*tc.m/8)
+					x1 := append([]float64(nil), rhs...)
+					x2 := append([]float64(nil), rhs...)
+					f.ftranSparse(x1, append([]int(nil), idx...), nil)
+					g.ftranSparse(x2, append([]int(nil), idx...), nil)
+					y1 := append([]float64(nil), rhs...)
+					y2 := append([]float64(nil), rhs...)
+					f.btranSparse(y1, append([]int(nil), idx...), nil)
+					g.btranSparse(y2, append([]int(nil), idx...), nil)
+					for i := range x1 {
+						if x1[i] != x2[i] || y1[i] != y2[i] {
+							t.Fatalf("restored factorization differs at %d: ftran %g vs %g, btran %g vs %g", i, x1[i], x2[i], y1[i], y2[i])
+						}
+					}
+				}
 			}
 			if done < tc.updates/2 {
 				t.Fatalf("only %d of %d updates made", done, tc.updates)

@@ -201,6 +201,7 @@ func (s *Solver) refactor() error {
 		s.computePrimal()
 	}
 	s.needFactor = false
+	s.factHead = append(s.factHead[:0], s.head...)
 	return nil
 }
 

@@ -55,6 +55,7 @@ type Solver struct {
 	dse []float64 // dual steepest-edge weights by basis position
 
 	lu         *luFactor
+	factHead   []int // head when lu was last factorized
 	needFactor bool
 	opt        Options
 
@@ -344,9 +345,29 @@ func (s *Solver) SetBasis(b *Basis) error {
 		s.fixNonbasic(j)
 	}
 	if !same {
-		s.needFactor = true
+		// A branch-and-bound parent's basis is often the one last
+		// factorized, before the child's updates: restoring that
+		// factorization costs O(m) instead of a new one.
+		if s.factHead != nil && equalInts(b.head, s.factHead) {
+			s.lu.restore()
+			s.needFactor = false
+		} else {
+			s.needFactor = true
+		}
 	}
 	return nil
+}
+
+func equalInts(a, b []int) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	for i := range a {
+		if a[i] != b[i] {
+			return false
+		}
+	}
+	return true
 }
 
 // column returns the nonzeros of variable j's column in [A I].
