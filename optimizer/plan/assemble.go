@@ -64,7 +64,7 @@ func (pr *Prepared) Solve(ctx context.Context, opt Options) (*mip.Result, error)
 	t0 := time.Now()
 	// The start gets at most a third of the time limit; the node limit
 	// usually ends it far sooner.
-	mo.Start = pr.startSolution(ctx, mo.GapRel, mo.TimeLimit/3)
+	mo.Start = pr.StartSolution(ctx, mo.GapRel, mo.TimeLimit/3)
 	pr.Timings.add("start solution (zone covers)", t0)
 	t0 = time.Now()
 	res, err := mip.Solve(ctx, pr.Model.Problem, mo)

@@ -33,7 +33,7 @@ const coverNodeLimit = 20000
 // k_z points.
 //
 // It also returns, per zone, the points of the best cover it found (nil
-// when none): what the start solution is built from (see startSolution).
+// when none): what the start solution is built from (see StartSolution).
 func coverNumbers(ctx context.Context, pr *Prepared, spec *model.Spec) ([]int, [][]int, error) {
 	nz := len(pr.In.Scenario.Zones)
 	out := make([]int, nz)

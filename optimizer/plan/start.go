@@ -12,7 +12,7 @@ import (
 // start the same on every machine.
 const startNodeLimit = 100
 
-// startSolution returns a plan to start the solve from (a "MIP start"),
+// StartSolution returns a plan to start the solve from (a "MIP start"),
 // or nil when it finds none.
 //
 // Why: on a large site the LP bound is close to the best plan (the zone
@@ -29,7 +29,15 @@ const startNodeLimit = 100
 //
 // A zone whose cover is missing or holds fewer points than the zone's
 // count rule asks for keeps all its points.
-func (pr *Prepared) startSolution(ctx context.Context, gapRel float64, timeLimit time.Duration) []float64 {
+//
+// The start is a vector over pr.Model's columns. A model built by
+// model.Build from the same Spec with a budget, a deadline or
+// MinimizeDays has the same columns in the same order, so the start may
+// be passed to its solve too (mip.Options.Start repairs a start that
+// breaks the added rows); the maximal covering form has other columns.
+// gapRel and timeLimit bound the restricted solve (timeLimit 0: none; the
+// node limit ends it anyway).
+func (pr *Prepared) StartSolution(ctx context.Context, gapRel float64, timeLimit time.Duration) []float64 {
 	spec, m := pr.Spec, pr.Model
 	if pr.CoverSets == nil || spec.MaximizeCoverage {
 		return nil

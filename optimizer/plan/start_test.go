@@ -68,7 +68,7 @@ func TestStartSolutionIsAPlan(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			start := pr.startSolution(ctx, 1e-3, 0)
+			start := pr.StartSolution(ctx, 1e-3, 0)
 			if start == nil {
 				t.Fatal("no start solution")
 			}
