@@ -286,3 +286,98 @@ func TestHypersparseSolves(t *testing.T) {
 		})
 	}
 }
+
+// linkedCoverLP builds the LP relaxation of a covering model with
+// disaggregated link rows, the shape of the plan models (a location is
+// paid for once; each requirement is met by one of a few locations;
+// x_ij ≤ y_j):
+//
+//	min Σ_j f_j y_j + Σ_ij c_ij x_ij
+//	Σ_{j ∈ S_i} x_ij ≥ 1     (requirement i covered)
+//	x_ij − y_j ≤ 0            (only at an opened location)
+//	0 ≤ x, y ≤ 1
+//
+// The data are random (seeded), not a published instance; the checks
+// are against glpsol and the KKT conditions.
+func linkedCoverLP(rng *rand.Rand, nLoc, nReq, per int) *Problem {
+	type arc struct{ req, loc int }
+	var arcs []arc
+	for i := 0; i < nReq; i++ {
+		for _, j := range rng.Perm(nLoc)[:per] {
+			arcs = append(arcs, arc{i, j})
+		}
+	}
+	n := nLoc + len(arcs)
+	m := nReq + len(arcs)
+	p := &Problem{NumRows: m, NumCols: n, Obj: make([]float64, n),
+		ColLo: make([]float64, n), ColUp: fill(n, 1),
+		RowLo: make([]float64, m), RowUp: make([]float64, m), ColStart: make([]int, n+1)}
+	for i := 0; i < nReq; i++ {
+		p.RowLo[i], p.RowUp[i] = 1, math.Inf(1)
+	}
+	for a := range arcs {
+		p.RowLo[nReq+a], p.RowUp[nReq+a] = math.Inf(-1), 0
+	}
+	// Columns: the y_j (in every link row of their arcs), then the x_ij.
+	links := make([][]int, nLoc)
+	for a, e := range arcs {
+		links[e.loc] = append(links[e.loc], a)
+	}
+	for j := 0; j < nLoc; j++ {
+		p.Obj[j] = float64(500 + rng.IntN(2000))
+		for _, a := range links[j] {
+			p.RowIndex = append(p.RowIndex, nReq+a)
+			p.Value = append(p.Value, -1)
+		}
+		p.ColStart[j+1] = len(p.RowIndex)
+	}
+	for a, e := range arcs {
+		col := nLoc + a
+		p.Obj[col] = float64(10 + rng.IntN(90))
+		p.RowIndex = append(p.RowIndex, e.req, nReq+a)
+		p.Value = append(p.Value, 1, 1)
+		p.ColStart[col+1] = len(p.RowIndex)
+	}
+	return p
+}
+
+// TestLinkedCoverLP solves linked covering LPs large enough (a few
+// thousand rows) for the hypersparse solves, the partial FTRAN of the
+// weight update and the doubled refactorization interval to carry the
+// solve, and checks the optimum against glpsol (when installed) and the
+// KKT conditions, and that a second solve agrees bit for bit.
+func TestLinkedCoverLP(t *testing.T) {
+	for _, tc := range []struct {
+		nLoc, nReq, per int
+	}{
+		{60, 400, 4},
+		{150, 1800, 3},
+	} {
+		rng := rand.New(rand.NewPCG(uint64(tc.nLoc), uint64(tc.nReq)))
+		p := linkedCoverLP(rng, tc.nLoc, tc.nReq, tc.per)
+		r, err := Solve(p, Options{})
+		if err != nil || r.Status != Optimal {
+			t.Fatalf("%d rows: %v %v", p.NumRows, r.Status, err)
+		}
+		checkKKT(t, p, r, 1e-7)
+		r2, _ := Solve(p, Options{})
+		if r2.Obj != r.Obj || r2.Iterations != r.Iterations {
+			t.Errorf("%d rows: second solve %v/%d, first %v/%d", p.NumRows, r2.Obj, r2.Iterations, r.Obj, r.Iterations)
+		}
+		for j := range r.X {
+			if r.X[j] != r2.X[j] {
+				t.Fatalf("%d rows: second solve differs at x_%d", p.NumRows, j)
+			}
+		}
+		// Independent solver: GLPK glpsol.
+		ref := glpsolLP(t, p)
+		if math.IsNaN(ref) {
+			t.Logf("%d rows: LP %.6f in %d iterations (glpsol not on PATH, no cross-check)", p.NumRows, r.Obj, r.Iterations)
+			continue
+		}
+		if math.Abs(r.Obj-ref) > 1e-6*math.Max(1, math.Abs(ref)) {
+			t.Errorf("%d rows: LP value %.9g, glpsol %.9g", p.NumRows, r.Obj, ref)
+		}
+		t.Logf("%d rows: LP %.6f (glpsol %.6f) in %d iterations", p.NumRows, r.Obj, ref, r.Iterations)
+	}
+}
