@@ -78,11 +78,26 @@
 // triangular order, and the row left below the diagonal is eliminated and
 // kept as a row eta. Each update is checked against the determinant
 // identity (new diagonal = α_r × old diagonal); on failure, and every 50
-// updates, the basis is refactorized. On the set-covering relaxations a
-// spike plus row eta holds about 70 nonzeros where the product-form eta
-// (Dantzig & Orchard-Hays 1954), kept as a fallback, holds about 390. A dependent basis found while
-// factorizing is repaired by replacing columns with row logicals. Pivot
-// rows are computed row-wise from the nonzeros of ρ = B⁻ᵀe_r.
+// updates (100 from 5,000 rows on), the basis is refactorized. On the
+// set-covering relaxations a spike plus row eta holds about 70 nonzeros
+// where the product-form eta (Dantzig & Orchard-Hays 1954), kept as a
+// fallback, holds about 390. A dependent basis found while factorizing is
+// repaired by replacing columns with row logicals. SetBasis back to the
+// basis last factorized drops the updates instead of refactorizing.
+//
+// FTRAN and BTRAN are hypersparse (lu_sparse.go; Gilbert & Peierls 1988,
+// Hall & McKinnon 2005): a depth-first search from the nonzeros of the
+// right-hand side over the graph of each triangular factor finds the
+// entries that can become nonzero, and only those are computed; L and U
+// are also kept by rows for BTRAN, and the Forrest–Tomlin update works
+// along U's rows. Each kind of vector keeps an estimate of its recent
+// density and takes the ordinary dense pass above 10%. The dual simplex
+// keeps its vectors with index lists and prices only the positions that
+// may be infeasible. For the steepest-edge update only the entries of
+// τ = B⁻¹ρ where α_q is nonzero are needed; when τ has been dense they
+// are computed alone, backward from those entries over the row-wise
+// factors. Pivot rows are computed row-wise from the nonzeros of
+// ρ = B⁻ᵀe_r.
 //
 // # Scaling
 //
@@ -126,6 +141,9 @@
 //   - Gilbert, J.R., Peierls, T. (1988). Sparse partial pivoting in time
 //     proportional to arithmetic operations. SIAM J. Sci. Stat. Comput.
 //     9(5), 862–874.
+//   - Hall, J.A.J., McKinnon, K.I.M. (2005). Hyper-sparsity in the
+//     revised simplex method and how to exploit it. Computational
+//     Optimization and Applications 32, 259–283 (from memory).
 //   - Harris, P.M.J. (1973). Pivot selection methods of the Devex LP code.
 //     Mathematical Programming 5, 1–28.
 //   - Koberstein, A. (2005). The dual simplex method, techniques for a fast
