@@ -6,8 +6,14 @@ func (s *Solver) result(st Status) *Result {
 	if s.needFactor || s.lu.broken {
 		_ = s.refactor()
 		s.computePrimal()
+		s.dualFresh = false
 	}
-	s.computeDual()
+	// After an optimal run the last computeDual was made on these costs,
+	// basis and factors; doing it again would give the same bits.
+	if !s.dualFresh {
+		s.computeDual()
+	}
+	s.dualFresh = false
 	n, m := s.n, s.m
 	dualFeasible := st != Infeasible && s.dualInfeasible() == 0
 	res := &Result{

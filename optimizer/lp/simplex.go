@@ -93,6 +93,7 @@ func (s *Solver) resetCosts() {
 // removal of the perturbation and clean-up passes until the basis is
 // both primal and dual feasible for the true data.
 func (s *Solver) run() (Status, error) {
+	s.dualFresh = false
 	s.rng = rngSeed
 	s.feasTol = s.opt.feasTol()
 	s.resetCosts()
@@ -164,6 +165,7 @@ func (s *Solver) run() (Status, error) {
 		s.computePrimal()
 		s.computeDual()
 		if !s.primalInfeasible() && s.dualInfeasible() == 0 {
+			s.dualFresh = true
 			return Optimal, nil
 		}
 	}

@@ -55,6 +55,7 @@ type Solver struct {
 	dse []float64 // dual steepest-edge weights by basis position
 
 	lu         *luFactor
+	dualFresh  bool  // rho and d are those of an optimal run just ended (result.go)
 	factHead   []int // head when lu was last factorized
 	needFactor bool
 	opt        Options
