@@ -78,7 +78,7 @@
 // triangular order, and the row left below the diagonal is eliminated and
 // kept as a row eta. Each update is checked against the determinant
 // identity (new diagonal = α_r × old diagonal); on failure, and every 50
-// updates (100 from 5,000 rows on), the basis is refactorized. On the
+// updates (200 from 5,000 rows on), the basis is refactorized. On the
 // set-covering relaxations a spike plus row eta holds about 70 nonzeros
 // where the product-form eta (Dantzig & Orchard-Hays 1954), kept as a
 // fallback, holds about 390. A dependent basis found while factorizing is

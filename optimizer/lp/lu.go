@@ -376,21 +376,23 @@ func (f *luFactor) needRefactor() bool {
 	return f.numEtas() >= f.refactorLimit() || f.broken || len(f.uIdx) > 2*f.nnzBase+4*f.m
 }
 
-// refactorLimit is refactorEvery, doubled from bigBasisRows rows on: a
-// factorization costs in proportion to the basis while the hypersparse
-// solves after an update cost in proportion to the entries touched, so
-// large bases pay for longer update sequences (measured on the plan
-// models: the 38,218-row one took about 15% less time with 100 than
-// with 50, the 9,860-row one about 15% less; the OR-Library
-// set-covering relaxations, a few hundred rows, were faster with 50).
+// refactorLimit is refactorEvery, four times that from bigBasisRows
+// rows on: a factorization costs in proportion to the basis while the
+// hypersparse solves after an update cost in proportion to the entries
+// touched, so large bases pay for longer update sequences. Measured on
+// the plan models (best of interleaved runs): the 38,218-row one took
+// 2.3 s with 200, 2.9 s with 100 and about the same with 400; the
+// 9,860-row one 0.39 s with 200 against 0.42 s with 100; the 3,401-row
+// one gained nothing from 200, and the OR-Library set-covering
+// relaxations (a few hundred rows) were faster with 50 than with 100.
 func (f *luFactor) refactorLimit() int {
 	if f.m >= bigBasisRows {
-		return 2 * refactorEvery
+		return 4 * refactorEvery
 	}
 	return refactorEvery
 }
 
-// bigBasisRows is the basis size from which refactorLimit doubles.
+// bigBasisRows is the basis size from which refactorLimit grows.
 const bigBasisRows = 5000
 
 // ftran overwrites a (indexed by rows, length m) with B⁻¹a indexed by
