@@ -681,7 +681,16 @@ func (f *luFactor) ftranPartial(a []float64, targets []int, out []float64, limit
 		}
 	}
 	f.pList = N
-	lOrder, ok := f.reach(N, f.lrStart[:m], f.lrStart[1:], f.lrPiv, limit)
+	// Most needed entries have an empty row of L (v_k = a_{prow[k]});
+	// only the others need the search.
+	starts = f.starts[:0]
+	for _, k := range N {
+		if f.lrStart[k] < f.lrStart[k+1] {
+			starts = append(starts, k)
+		}
+	}
+	f.starts = starts
+	lOrder, ok := f.reach(starts, f.lrStart[:m], f.lrStart[1:], f.lrPiv, limit)
 	if !ok {
 		for _, k := range N {
 			f.inP[k] = false
@@ -689,6 +698,9 @@ func (f *luFactor) ftranPartial(a []float64, targets []int, out []float64, limit
 		return false
 	}
 	v := f.sw
+	for _, k := range N {
+		v[k] = a[f.prow[k]]
+	}
 	// L̃ v = a: v_k = a_{prow[k]} − Σ L[prow[k], j] v_j, dependencies
 	// (the successors in the search) first.
 	for q := len(lOrder) - 1; q >= 0; q-- {
@@ -727,6 +739,7 @@ func (f *luFactor) ftranPartial(a []float64, targets []int, out []float64, limit
 		v[k] = 0
 	}
 	for _, k := range N {
+		v[k] = 0
 		f.inP[k] = false
 	}
 	return true
