@@ -5,10 +5,8 @@ import (
 	"embed"
 	"errors"
 	"fmt"
-	"io"
 	"io/fs"
 	"math"
-	"os"
 	"regexp"
 	"sort"
 	"strconv"
@@ -16,6 +14,7 @@ import (
 	"time"
 	"unicode/utf8"
 
+	"github.com/rigmix/rigmix/scenarios/fielderr"
 	"gopkg.in/yaml.v3"
 )
 
@@ -108,7 +107,7 @@ func Open(ref string) (*RateBook, error) {
 
 // Load reads and validates a rate-book file.
 func Load(path string) (*RateBook, error) {
-	data, err := readRegular(path)
+	data, err := fielderr.ReadRegular(path, maxFileBytes)
 	if err != nil {
 		problem, hint := "cannot read the file: "+err.Error(), ""
 		if errors.Is(err, fs.ErrNotExist) {
@@ -416,25 +415,4 @@ func (b *RateBook) Check(codes []string) error {
 	return &FieldError{File: src, Field: "items",
 		Problem: fmt.Sprintf("no price for %d %s: %s", len(list), word, strings.Join(list, ", ")),
 		Hint:    "add " + strings.Join(adds, "; ") + " with a unit_price"}
-}
-
-// readRegular reads a regular file of at most maxFileBytes, so a path to a
-// device, a pipe or a huge file cannot stall or swamp the loader.
-func readRegular(p string) ([]byte, error) {
-	f, err := os.Open(p)
-	if err != nil {
-		return nil, err
-	}
-	defer f.Close()
-	st, err := f.Stat()
-	if err != nil {
-		return nil, err
-	}
-	if !st.Mode().IsRegular() {
-		return nil, errors.New("not a regular file")
-	}
-	if st.Size() > maxFileBytes {
-		return nil, fmt.Errorf("larger than %d MB", maxFileBytes>>20)
-	}
-	return io.ReadAll(io.LimitReader(f, maxFileBytes+1))
 }

@@ -5,15 +5,14 @@ import (
 	"embed"
 	"errors"
 	"fmt"
-	"io"
 	"io/fs"
-	"os"
 	"path"
 	"path/filepath"
 	"sort"
 	"strings"
 	"unicode/utf8"
 
+	"github.com/rigmix/rigmix/scenarios/fielderr"
 	"github.com/spf13/viper"
 	"gopkg.in/yaml.v3"
 )
@@ -67,7 +66,7 @@ func LoadDemo(name string, overrides map[string]any) (*Scenario, error) {
 // variables and overrides (keys such as "solver.gap" or "yard_miles"; see
 // SettingKeys).
 func Load(path string, overrides map[string]any) (*Scenario, error) {
-	data, err := readRegular(path)
+	data, err := fielderr.ReadRegular(path, maxFileBytes)
 	if err != nil {
 		problem := "cannot read the file: " + unwrapPathErr(err)
 		hint := ""
@@ -99,7 +98,7 @@ func Parse(data []byte, source string, overrides map[string]any) (*Scenario, err
 		if !filepath.IsAbs(p) {
 			p = filepath.Join(filepath.Dir(source), rel)
 		}
-		b, err := readRegular(p)
+		b, err := fielderr.ReadRegular(p, maxFileBytes)
 		return b, p, err
 	}
 
@@ -175,27 +174,6 @@ func checkText(source string, data []byte) error {
 			Hint: "a scenario is a YAML text file; is this the right file?"}
 	}
 	return nil
-}
-
-// readRegular reads a regular file of at most maxFileBytes, so a path to a
-// device, a pipe or a huge file cannot stall or swamp the loader.
-func readRegular(p string) ([]byte, error) {
-	f, err := os.Open(p)
-	if err != nil {
-		return nil, err
-	}
-	defer f.Close()
-	st, err := f.Stat()
-	if err != nil {
-		return nil, err
-	}
-	if !st.Mode().IsRegular() {
-		return nil, errors.New("not a regular file")
-	}
-	if st.Size() > maxFileBytes {
-		return nil, fmt.Errorf("larger than %d MB", maxFileBytes>>20)
-	}
-	return io.ReadAll(io.LimitReader(f, maxFileBytes+1))
 }
 
 // scalarText records the written text of every scalar in the document by

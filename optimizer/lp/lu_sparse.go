@@ -482,7 +482,10 @@ func (f *luFactor) updateFT(p int, alphaR float64) bool {
 		f.removeColEntry(k, kp)
 	}
 	f.starts = starts
-	f.urEnd[kp] = f.urBeg[kp]
+	// Empty the row by moving its start past its entries: the entries of
+	// a row of the factorization stay intact for restore, and new entries
+	// go into the room after them.
+	f.urBeg[kp] = f.urEnd[kp]
 	order, _ := f.reach(starts, f.urBeg, f.urEnd, f.urPiv, f.m+1)
 	for _, k := range order {
 		rk := r[k]

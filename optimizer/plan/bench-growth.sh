@@ -10,13 +10,18 @@
 #   BENCHTIME=10x bash optimizer/plan/bench-growth.sh
 set -euo pipefail
 cd "$(dirname "$0")/../.."
-out=$(go test -run '^$' -bench 'BenchmarkPrepareGrowth' -benchtime "${BENCHTIME:-3x}" ./optimizer/plan 2>/dev/null | grep '^BenchmarkPrepareGrowth')
+out=$(go test -run '^$' -bench 'BenchmarkPrepareGrowth' -benchtime "${BENCHTIME:-3x}" ./optimizer/plan 2>/dev/null)
 python3 - "$out" <<'PY'
 import math, re, sys
+# The in-process plugin harness logs lines that can land inside a
+# benchmark's result line; drop them, which joins the line again.
+text = re.sub(r'\d{4}-\d\d-\d\dT[^\n]*\n', '', sys.argv[1])
 rows = []
-for line in sys.argv[1].splitlines():
+for line in text.splitlines():
+    if not line.startswith('BenchmarkPrepareGrowth/'):
+        continue
     name = re.match(r'BenchmarkPrepareGrowth/(\S+?)-\d+\s', line).group(1)
-    m = dict((u, float(v)) for v, u in re.findall(r'([0-9.e+]+) (\S+)', line))
+    m = dict((u, float(v)) for v, u in re.findall(r'\s(\d[0-9.e+]*)\s+(\S+)', line))
     rows.append((name, m))
 stages = ["cand-ms", "rigcalls-ms", "cover-ms", "model-ms", "presolve-ms"]
 print("%-11s %7s %7s %8s" % ("site", "cands", "cover", "model") + "".join(" %14s" % s[:-3] for s in stages))

@@ -2,8 +2,9 @@
 # Whole-plan scale run: invented sites of 1, 10, 100 and 1,000 acres and a
 # 20-mile corridor (rigmix gen-site), each planned by rigmix with stage
 # timings and peak memory, and its exported model solved by CBC single
-# thread in the same run (CBC_SEC caps CBC's seconds, default 600). Prints one table. Needs cbc (Debian coinor-cbc)
-# and /usr/bin/time (Debian time).
+# thread in the same run (CBC_SEC caps CBC's seconds, default 600), and the
+# saving of each plan over its hand-laid grid. Prints one table. Needs cbc
+# (Debian coinor-cbc) and /usr/bin/time (Debian time).
 #
 #   bash optimizer/plan/bench-scale.sh [sizes...]   # default: 1 10 100 1000 corridor
 #   RIGMIX_BIN=/path/to/rigmix bash optimizer/plan/bench-scale.sh   # measure a built binary
@@ -15,8 +16,8 @@ if [ -n "${RIGMIX_BIN:-}" ]; then cp "$RIGMIX_BIN" "$work/rigmix"; else go build
 sizes=("$@")
 [ ${#sizes[@]} -gt 0 ] || sizes=(1 10 100 1000 corridor)
 
-printf '%-10s %7s %13s %13s %5s %9s %8s %8s %8s %9s %8s %7s %14s\n' \
-  site cands "rows×cols" "presolved" pts "total s" "solve s" "peak MB" gap "cbc s" ratio "cbc ok" "obj diff"
+printf '%-10s %7s %13s %13s %5s %9s %8s %8s %8s %9s %8s %7s %14s %12s %10s\n' \
+  site cands "rows×cols" "presolved" pts "total s" "solve s" "peak MB" gap "cbc s" ratio "cbc ok" "obj diff" "grid saving" "days saved"
 for s in "${sizes[@]}"; do
   if [ "$s" = corridor ]; then
     "$work/rigmix" gen-site --miles 20 --seed 1 > "$work/site.yaml"; name="20 mi"
@@ -50,6 +51,11 @@ for n,u in re.findall(r'([0-9.]+)(ms|h|m|s)', s):
 print('%.2f'%v)")
   ratio=$(python3 -c "print('%.1f'%($solve_s/max(1e-3,$cbct)))")
   diff=$(python3 -c "a=float('$obj'); b=float('${cbcobj:-nan}'); print('%+.4f%%'%(100*(a-b)/max(1,abs(b))))")
-  printf '%-10s %7s %13s %13s %5s %9s %8s %8d %8s %9s %8s %7s %14s\n' \
-    "$name" "$cands" ${size:-- -} "$pts" "$wall" "$solve_s" $((kb/1024)) "$gap" "$cbct" "$ratio" "$cbcok" "$diff"
+  # The hand-laid grid (plan.Baseline): the saving of the optimized plan.
+  read -r save days < <(python3 -c "
+import json
+b=json.load(open('$work/plan.json')).get('hand_grid_baseline') or {}
+print('%.1f%%'%b['saving_percent'] if b else '-', b.get('field_days_saved','-'))" 2>/dev/null || echo "- -")
+  printf '%-10s %7s %13s %13s %5s %9s %8s %8d %8s %9s %8s %7s %14s %12s %10s\n' \
+    "$name" "$cands" ${size:-- -} "$pts" "$wall" "$solve_s" $((kb/1024)) "$gap" "$cbct" "$ratio" "$cbcok" "$diff" "$save" "$days"
 done

@@ -1,6 +1,7 @@
 // Package fielderr is the error a user can act on that both loaders
 // (scenarios and rate books) return — file, field path, what is wrong, what
-// would be right — and the misspelling hints they give with it.
+// would be right — the misspelling hints they give with it, and their
+// bounded reading of a file.
 package fielderr
 
 import (
