@@ -94,6 +94,12 @@ func (a *Analyzer) modelCells() []model.Cell {
 // states the limit (BudgetCurve.NodeLimit). Our choice.
 const largeCoverNodeLimit = 1
 
+// budgetChains: on a large site the budget curve is solved in this many
+// chains (every budgetChains-th budget, in increasing order), each solve
+// starting from its chain's plan for the budget before; two keep the two
+// workers of the reference machine busy.
+const budgetChains = 2
+
 // large reports whether the site is large enough for the restricted
 // solves (localMinCols).
 func (a *Analyzer) large() bool { return a.pr.Model.Problem.LP.NumCols >= localMinCols }
@@ -181,10 +187,10 @@ func (a *Analyzer) minimalProgram(ctx context.Context) (*outcome, error) {
 // BudgetCurve sweeps budgets from the minimal program's cost to the
 // cheapest full plan's cost (once; later calls return it).
 //
-// On a large site the budgets are solved in two chains (every other
-// budget, in increasing order), each solve starting from the plan its
-// chain found for the budget before, so the two workers stay busy and
-// the result does not depend on which finishes first.
+// On a large site the budgets are solved in budgetChains chains (every
+// other budget, in increasing order), each solve starting from the plan
+// its chain found for the budget before, so two workers stay busy and the
+// result depends neither on the worker count nor on which finishes first.
 func (a *Analyzer) BudgetCurve(ctx context.Context) (*BudgetCurve, error) {
 	if a.budget != nil {
 		return a.budget, nil
@@ -217,7 +223,9 @@ func (a *Analyzer) BudgetCurve(ctx context.Context) (*BudgetCurve, error) {
 	}
 	chains := n
 	if a.large() {
-		chains = min(n, a.st.Workers)
+		// A fixed count, not the worker count: which plan starts which
+		// solve must not depend on the machine.
+		chains = min(n, budgetChains)
 	}
 	outs := make([]*outcome, n)
 	jobs := make([]func(context.Context) (struct{}, error), chains)
