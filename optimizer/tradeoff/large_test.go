@@ -88,6 +88,24 @@ func TestLocalizedRuleCostsBracketWholeSite(t *testing.T) {
 		}
 	}
 	t.Logf("%d of %d relaxations localized", localized, len(local))
+	if localized == 0 {
+		return
+	}
+	// The text table marks every localized saving as a least one.
+	var rules []RuleCost
+	for k, x := range local {
+		rules = append(rules, RuleCost{Zone: k, Rule: "r", Step: x})
+	}
+	var b strings.Builder
+	if err := WriteRuleCostsText(&b, rules, 0); err != nil {
+		t.Fatal(err)
+	}
+	if n := strings.Count(b.String(), "≥ "); n != localized {
+		t.Errorf("%d savings marked ≥ in the text, %d localized", n, localized)
+	}
+	if !strings.Contains(b.String(), "only that zone re-planned") {
+		t.Error("the text does not explain the ≥ mark")
+	}
 }
 
 // TestLargeBudgetCurve: the budget curve's large-site path (starts from a

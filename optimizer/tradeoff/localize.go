@@ -18,6 +18,10 @@ import (
 // takes seconds and a site has dozens of rules. Our choice.
 var localMinCols = 1000
 
+// localizedStatus begins the Status of a relaxation priced by re-planning
+// its zone alone, without proof that the whole site could do no better.
+const localizedStatus = "localized"
+
 // carryPlan maps a plan x of model pr onto the columns of model v, built
 // from the same site with one zone's rules changed. Option columns are
 // matched by what they mean — the candidate's zone and position and the
@@ -136,7 +140,7 @@ func (a *Analyzer) localized(ctx context.Context, v *plan.Prepared, z int, chang
 		r.Note = fmt.Sprintf("zone re-planned with the other zones as in the cheapest plan; within %.2f%% of the whole site's LP bound, so the whole-site answer to the stated gap", 100*gap)
 		return r, nil
 	}
-	r.Status = "localized (" + res.Status.String() + ")"
+	r.Status = localizedStatus + " (" + res.Status.String() + ")"
 	r.Note = fmt.Sprintf("only this zone re-planned, the other zones kept as in the cheapest plan: the saving found is one the whole site can have, and re-planning the whole site may save more, up to the proven most (whole-site LP bound; %.2f%% above it)", 100*gap)
 	return r, nil
 }

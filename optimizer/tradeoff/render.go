@@ -192,12 +192,16 @@ func WriteRuleCostsText(w io.Writer, rules []RuleCost, base float64) error {
 	fmt.Fprintf(w, "What each rule costs (cheapest plan priced at %s; savings in priced cost, re-solved):\n", money(base))
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "zone\trule\trequired\tone step\tsaving\tdropped\tsaving\tLP estimate of the step")
+	localized := false
 	rel := func(r *Relaxation) (string, string) {
 		switch {
 		case r == nil:
 			return "-", "-"
 		case !r.Feasible:
 			return r.Change, r.Status
+		case isLocalized(r):
+			localized = true
+			return r.Change, "≥ " + money(r.Saving)
 		}
 		return r.Change, money(r.Saving)
 	}
@@ -210,8 +214,20 @@ func WriteRuleCostsText(w io.Writer, rules []RuleCost, base float64) error {
 		}
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", r.Zone, r.Rule, r.Required, sc, ss, dc, ds, lpv)
 	}
-	return tw.Flush()
+	if err := tw.Flush(); err != nil {
+		return err
+	}
+	if localized {
+		_, err := fmt.Fprintln(w, "≥: only that zone re-planned, the other zones as in the cheapest plan (a large site); re-planning the whole site may save more, up to the proven most (max_saving in the JSON and CSV).")
+		return err
+	}
+	return nil
 }
+
+// isLocalized reports whether a relaxation was priced by re-planning its
+// zone alone without proof that the whole site could do no better
+// (localized).
+func isLocalized(r *Relaxation) bool { return strings.HasPrefix(r.Status, localizedStatus) }
 
 // WriteRuleCostsCSV writes what each rule costs as CSV.
 func WriteRuleCostsCSV(w io.Writer, rules []RuleCost) error {
