@@ -106,6 +106,13 @@ func TestLocalizedRuleCostsBracketWholeSite(t *testing.T) {
 	if !strings.Contains(b.String(), "only that zone re-planned") {
 		t.Error("the text does not explain the ≥ mark")
 	}
+	b.Reset()
+	if err := WriteRuleCostsCSV(&b, rules); err != nil {
+		t.Fatal(err)
+	}
+	if n := strings.Count(b.String(), localizedCSVMark); n != localized {
+		t.Errorf("%d changes marked localized in the CSV, %d localized", n, localized)
+	}
 }
 
 // TestLargeBudgetCurve: the budget curve's large-site path (starts from a

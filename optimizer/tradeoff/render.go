@@ -224,6 +224,10 @@ func WriteRuleCostsText(w io.Writer, rules []RuleCost, base float64) error {
 	return nil
 }
 
+// localizedCSVMark follows the change of a localized relaxation in the
+// CSV (and so in the report's table built from it).
+const localizedCSVMark = " (only this zone re-planned: saving at least this, at most max_saving)"
+
 // isLocalized reports whether a relaxation was priced by re-planning its
 // zone alone without proof that the whole site could do no better
 // (localized).
@@ -242,7 +246,13 @@ func WriteRuleCostsCSV(w io.Writer, rules []RuleCost) error {
 		if !r.Feasible {
 			return []string{r.Change, "", "", ""}
 		}
-		return []string{r.Change, ff(r.Saving, 2), ff(r.MaxSaving, 2), ff(r.Gap, 6)}
+		change := r.Change
+		if isLocalized(r) {
+			// The mark goes with the change, so that the saving columns
+			// stay numbers and a table built from the CSV carries it.
+			change += localizedCSVMark
+		}
+		return []string{change, ff(r.Saving, 2), ff(r.MaxSaving, 2), ff(r.Gap, 6)}
 	}
 	for _, r := range rules {
 		rec := append([]string{r.Zone, r.Rule, r.Required}, cols(r.Step)...)
