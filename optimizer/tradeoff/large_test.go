@@ -74,6 +74,9 @@ func TestLocalizedRuleCostsBracketWholeSite(t *testing.T) {
 				t.Errorf("%s: localized result without saying so: %q", k, l.Note)
 			}
 		}
+		if l.Saving > l.MaxSaving+0.05 {
+			t.Errorf("%s: localized saving %.2f above its own proven most %.2f", k, l.Saving, l.MaxSaving)
+		}
 		if l.Saving > w.MaxSaving+0.05 {
 			t.Errorf("%s: localized saving %.2f above the whole site's proven most %.2f", k, l.Saving, w.MaxSaving)
 		}

@@ -27,9 +27,9 @@ const localizedStatus = "localized"
 // matched by what they mean — the candidate's zone and position and the
 // option's label — since a changed layout renumbers the candidates; every
 // other column (rigs, days, finish, zone counts) by its name. Columns of
-// v with no match are 0. exact is false when some column of x that is
-// not 0 has no match in v.
-func carryPlan(pr *plan.Prepared, x []float64, v *plan.Prepared) (out []float64, exact bool) {
+// v with no match are 0 (a column of x with no match in v is dropped; the
+// engine repairs a start that then breaks a row).
+func carryPlan(pr *plan.Prepared, x []float64, v *plan.Prepared) []float64 {
 	key := func(p *plan.Prepared, o int) string {
 		op := p.Spec.Options[o]
 		c := p.Layout.Candidates[op.Point]
@@ -48,14 +48,13 @@ func carryPlan(pr *plan.Prepared, x []float64, v *plan.Prepared) (out []float64,
 			byName[n] = j
 		}
 	}
-	out = make([]float64, v.Model.Problem.LP.NumCols)
-	used := make([]bool, len(x))
+	out := make([]float64, v.Model.Problem.LP.NumCols)
 	vx := make([]bool, len(out))
 	for o := range v.Spec.Options {
 		j := v.Model.XCol[o]
 		vx[j] = true
 		if i, ok := byKey[key(v, o)]; ok {
-			out[j], used[i] = x[i], true
+			out[j] = x[i]
 		}
 	}
 	for j, n := range v.Model.Problem.ColNames {
@@ -63,16 +62,10 @@ func carryPlan(pr *plan.Prepared, x []float64, v *plan.Prepared) (out []float64,
 			continue
 		}
 		if i, ok := byName[n]; ok {
-			out[j], used[i] = x[i], true
+			out[j] = x[i]
 		}
 	}
-	exact = true
-	for i, xi := range x {
-		if xi != 0 && !used[i] {
-			exact = false
-		}
-	}
-	return out, exact
+	return out
 }
 
 // localized prices a relaxation of zone z's rules on a large site by
@@ -95,7 +88,7 @@ func carryPlan(pr *plan.Prepared, x []float64, v *plan.Prepared) (out []float64,
 // It returns nil (and no error) when it cannot settle the relaxation —
 // no localized plan or no LP bound — and the caller solves the whole site.
 func (a *Analyzer) localized(ctx context.Context, v *plan.Prepared, z int, change string, base float64) (*Relaxation, error) {
-	start, _ := carryPlan(a.pr, a.cheapest.res.X, v)
+	start := carryPlan(a.pr, a.cheapest.res.X, v)
 	full := v.Model.Problem
 	sub := *full
 	sub.LP.ColLo = append([]float64(nil), full.LP.ColLo...)
@@ -132,9 +125,6 @@ func (a *Analyzer) localized(ctx context.Context, v *plan.Prepared, z int, chang
 		// As boundCost: the bound is on cost + w·T, and T is the plan's
 		// finish.
 		MaxSaving: roundTo(base-(bound-v.Spec.DaysWeight*float64(sum.FieldDays)), 2)}
-	if r.MaxSaving < r.Saving {
-		r.MaxSaving = r.Saving
-	}
 	if gap <= a.st.GapRel {
 		r.Status = "optimal"
 		r.Note = fmt.Sprintf("zone re-planned with the other zones as in the cheapest plan; within %.2f%% of the whole site's LP bound, so the whole-site answer to the stated gap", 100*gap)
