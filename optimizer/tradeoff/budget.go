@@ -7,7 +7,9 @@ import (
 	"strconv"
 	"strings"
 
+	"github.com/rigmix/rigmix/optimizer/mip"
 	"github.com/rigmix/rigmix/optimizer/model"
+	"github.com/rigmix/rigmix/optimizer/plan"
 )
 
 // BudgetPoint is the most coverage found for at most Budget.
@@ -34,6 +36,10 @@ type BudgetCurve struct {
 	// Full indexes the point at FullBudget; Knee the knee of the curve.
 	Full int `json:"full"`
 	Knee int `json:"knee"`
+	// NodeLimit is set when the maximal covering solves ran under a node
+	// limit other than the analysis's (largeCoverNodeLimit, on a large
+	// site); each point's gap says how far from proven it is.
+	NodeLimit int `json:"node_limit,omitempty"`
 }
 
 // cellsOf groups the layout's coverage cells by the set of candidates that
@@ -74,11 +80,72 @@ func (a *Analyzer) modelCells() []model.Cell {
 	return cellsOf(cs)
 }
 
-// maxCover solves the maximal covering form for a budget.
-func (a *Analyzer) maxCover(ctx context.Context, budget float64, label string) (Summary, error) {
+// largeCoverNodeLimit bounds the branch and bound of each maximal
+// covering solve on a large site (localMinCols columns or more). Measured
+// on the generated 100-acre site (2-core reference machine, 2026-12-01):
+// a solve took 4–8 s at the root, most of it the root's sub-MIP
+// heuristics, and every further node about 0.1 s; 400 nodes moved the
+// proven bound by under 1 % of the coverage while the gap stayed at
+// 2–10 % at low budgets, and one budget point reached the 60 s time
+// limit, so its result depended on the machine. 20 nodes found the same
+// plans as the root alone at the budgets tried. The root with a start
+// (below) is what the curve can afford there: nine solves instead of
+// minutes each. Every point still reports its proven gap, and the curve
+// states the limit (BudgetCurve.NodeLimit). Our choice.
+const largeCoverNodeLimit = 1
+
+// budgetChains: on a large site the budget curve is solved in this many
+// chains (every budgetChains-th budget, in increasing order), each solve
+// starting from its chain's plan for the budget before; two keep the two
+// workers of the reference machine busy.
+const budgetChains = 2
+
+// large reports whether the site is large enough for the restricted
+// solves (localMinCols).
+func (a *Analyzer) large() bool { return a.pr.Model.Problem.LP.NumCols >= localMinCols }
+
+// coverOptions are the engine options of a maximal covering solve of v.
+// On a large site the node limit is largeCoverNodeLimit and the solve
+// starts from the plan of from (a plan of a lower budget, or the minimal
+// program), which fits every higher budget; the engine searches around
+// it at the root (RINS). A start never changes what is optimal.
+func (a *Analyzer) coverOptions(v *plan.Prepared, from *outcome) mip.Options {
+	opt := a.st.mip()
+	if !a.large() {
+		return opt
+	}
+	if opt.NodeLimit == 0 || opt.NodeLimit > largeCoverNodeLimit {
+		opt.NodeLimit = largeCoverNodeLimit
+	}
+	if from != nil && from.res != nil && from.res.X != nil {
+		opt.Start = byName(from.pr.Model.Problem.ColNames, from.res.X, v.Model.Problem.ColNames)
+	}
+	return opt
+}
+
+// byName maps x over the columns named from onto the columns named to
+// (models built from the same layout name their columns alike); columns
+// of to with no match are 0.
+func byName(from []string, x []float64, to []string) []float64 {
+	idx := make(map[string]int, len(from))
+	for i, n := range from {
+		idx[n] = i
+	}
+	out := make([]float64, len(to))
+	for j, n := range to {
+		if i, ok := idx[n]; ok {
+			out[j] = x[i]
+		}
+	}
+	return out
+}
+
+// maxCover solves the maximal covering form for a budget, starting (on a
+// large site) from the plan of from.
+func (a *Analyzer) maxCover(ctx context.Context, budget float64, label string, from *outcome) (*outcome, error) {
 	cells := a.modelCells()
 	if len(cells) == 0 {
-		return Summary{Label: label, Status: "no coverage cells (no zone has a spacing rule)"}, nil
+		return &outcome{sum: Summary{Label: label, Status: "no coverage cells (no zone has a spacing rule)"}}, nil
 	}
 	v, err := variant(a.pr, func(s *model.Spec) {
 		s.MaximizeCoverage = true
@@ -86,19 +153,18 @@ func (a *Analyzer) maxCover(ctx context.Context, budget float64, label string) (
 		s.Cells = cells
 	})
 	if err != nil {
-		return Summary{}, err
+		return nil, err
 	}
-	o, err := solveVariant(ctx, v, a.st, a.cfg.FeatureDiameterFt, label)
-	if err != nil {
-		return Summary{}, err
-	}
-	return o.sum, nil
+	return solveWith(ctx, v, a.coverOptions(v, from), a.cfg.FeatureDiameterFt, label)
 }
 
 // minimalProgram is the cheapest plan that places one point in every zone
 // and the required points, keeping the sampled shares: the least a program
-// can spend.
-func (a *Analyzer) minimalProgram(ctx context.Context) (Summary, error) {
+// can spend (solved once; later calls return it).
+func (a *Analyzer) minimalProgram(ctx context.Context) (*outcome, error) {
+	if a.minimal != nil {
+		return a.minimal, nil
+	}
 	v, err := variant(a.pr, func(s *model.Spec) {
 		s.CoverRows = nil
 		zs := append([]model.Zone(nil), s.Zones...)
@@ -108,25 +174,32 @@ func (a *Analyzer) minimalProgram(ctx context.Context) (Summary, error) {
 		s.Zones = zs
 	})
 	if err != nil {
-		return Summary{}, err
+		return nil, err
 	}
 	o, err := solveVariant(ctx, v, a.st, a.cfg.FeatureDiameterFt, "minimal program")
 	if err != nil {
-		return Summary{}, err
+		return nil, err
 	}
-	return o.sum, nil
+	a.minimal = o
+	return o, nil
 }
 
 // BudgetCurve sweeps budgets from the minimal program's cost to the
 // cheapest full plan's cost (once; later calls return it).
+//
+// On a large site the budgets are solved in budgetChains chains (every
+// other budget, in increasing order), each solve starting from the plan
+// its chain found for the budget before, so two workers stay busy and the
+// result depends neither on the worker count nor on which finishes first.
 func (a *Analyzer) BudgetCurve(ctx context.Context) (*BudgetCurve, error) {
 	if a.budget != nil {
 		return a.budget, nil
 	}
-	minimal, err := a.minimalProgram(ctx)
+	mo, err := a.minimalProgram(ctx)
 	if err != nil {
 		return nil, err
 	}
+	minimal := mo.sum
 	if !minimal.Feasible {
 		return nil, fmt.Errorf("tradeoff: no minimal program found (%s)", minimal.Status)
 	}
@@ -137,6 +210,9 @@ func (a *Analyzer) BudgetCurve(ctx context.Context) (*BudgetCurve, error) {
 		Currency:      a.pr.In.RateBook.Currency,
 		MinimalBudget: minimal.PricedCost, FullBudget: full.PricedCost,
 	}
+	if a.large() {
+		bc.NodeLimit = a.coverOptions(a.pr, nil).NodeLimit
+	}
 	// Budgets bound the priced cost; a cent at both ends allows the
 	// rounding of PricedCost, so that the plans that set them fit them.
 	lo := minimal.PricedCost + 0.01
@@ -145,18 +221,36 @@ func (a *Analyzer) BudgetCurve(ctx context.Context) (*BudgetCurve, error) {
 	for k := range budgets {
 		budgets[k] = roundTo(lo+float64(k)*(full.PricedCost+0.01-lo)/float64(n-1), 2)
 	}
-	jobs := make([]func(context.Context) (Summary, error), n)
-	for k, b := range budgets {
-		b := b
-		jobs[k] = func(ctx context.Context) (Summary, error) {
-			return a.maxCover(ctx, b, fmt.Sprintf("budget %s", money(b)))
+	chains := n
+	if a.large() {
+		// A fixed count, not the worker count: which plan starts which
+		// solve must not depend on the machine.
+		chains = min(n, budgetChains)
+	}
+	outs := make([]*outcome, n)
+	jobs := make([]func(context.Context) (struct{}, error), chains)
+	for c := range jobs {
+		c := c
+		jobs[c] = func(ctx context.Context) (struct{}, error) {
+			from := mo
+			for k := c; k < n; k += chains {
+				o, err := a.maxCover(ctx, budgets[k], fmt.Sprintf("budget %s", money(budgets[k])), from)
+				if err != nil {
+					return struct{}{}, err
+				}
+				outs[k] = o
+				if o.res != nil && o.res.X != nil {
+					from = o
+				}
+			}
+			return struct{}{}, nil
 		}
 	}
-	sums, err := runAll(ctx, a.st.Workers, jobs)
-	if err != nil {
+	if _, err := runAll(ctx, a.st.Workers, jobs); err != nil {
 		return nil, err
 	}
-	for k, s := range sums {
+	for k, o := range outs {
+		s := o.sum
 		p := BudgetPoint{Budget: roundTo(budgets[k], 2), Summary: s}
 		// The cheapest full plan fits the full budget, and every plan
 		// found for a lower budget fits a higher one: keep the best known.

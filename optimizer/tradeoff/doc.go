@@ -51,5 +51,13 @@
 // the model has one (the count row of a zone prices one more point in the
 // LP relaxation; the share row prices the share).
 //
+// Large sites (a model of localMinCols columns or more): a rule's
+// relaxation is priced by re-planning its zone alone, the other zones kept
+// as the cheapest plan has them, against the whole relaxed site's LP bound;
+// a result within the analysis gap of that bound is the whole-site answer,
+// any other is labelled localized and its saving is a least one (see
+// localized). The maximal covering solves start from a lower budget's plan
+// and stop at largeCoverNodeLimit nodes, stated in the curve.
+//
 // Chance of a miss: see HitProbability.
 package tradeoff

@@ -192,12 +192,16 @@ func WriteRuleCostsText(w io.Writer, rules []RuleCost, base float64) error {
 	fmt.Fprintf(w, "What each rule costs (cheapest plan priced at %s; savings in priced cost, re-solved):\n", money(base))
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "zone\trule\trequired\tone step\tsaving\tdropped\tsaving\tLP estimate of the step")
+	localized := false
 	rel := func(r *Relaxation) (string, string) {
 		switch {
 		case r == nil:
 			return "-", "-"
 		case !r.Feasible:
 			return r.Change, r.Status
+		case isLocalized(r):
+			localized = true
+			return r.Change, "≥ " + money(r.Saving)
 		}
 		return r.Change, money(r.Saving)
 	}
@@ -210,8 +214,24 @@ func WriteRuleCostsText(w io.Writer, rules []RuleCost, base float64) error {
 		}
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", r.Zone, r.Rule, r.Required, sc, ss, dc, ds, lpv)
 	}
-	return tw.Flush()
+	if err := tw.Flush(); err != nil {
+		return err
+	}
+	if localized {
+		_, err := fmt.Fprintln(w, "≥: only that zone re-planned, the other zones as in the cheapest plan (a large site); re-planning the whole site may save more, up to the proven most (max_saving in the JSON and CSV).")
+		return err
+	}
+	return nil
 }
+
+// localizedCSVMark follows the change of a localized relaxation in the
+// CSV (and so in the report's table built from it).
+const localizedCSVMark = " (only this zone re-planned: saving at least this, at most max_saving)"
+
+// isLocalized reports whether a relaxation was priced by re-planning its
+// zone alone without proof that the whole site could do no better
+// (localized).
+func isLocalized(r *Relaxation) bool { return strings.HasPrefix(r.Status, localizedStatus) }
 
 // WriteRuleCostsCSV writes what each rule costs as CSV.
 func WriteRuleCostsCSV(w io.Writer, rules []RuleCost) error {
@@ -226,7 +246,13 @@ func WriteRuleCostsCSV(w io.Writer, rules []RuleCost) error {
 		if !r.Feasible {
 			return []string{r.Change, "", "", ""}
 		}
-		return []string{r.Change, ff(r.Saving, 2), ff(r.MaxSaving, 2), ff(r.Gap, 6)}
+		change := r.Change
+		if isLocalized(r) {
+			// The mark goes with the change, so that the saving columns
+			// stay numbers and a table built from the CSV carries it.
+			change += localizedCSVMark
+		}
+		return []string{change, ff(r.Saving, 2), ff(r.MaxSaving, 2), ff(r.Gap, 6)}
 	}
 	for _, r := range rules {
 		rec := append([]string{r.Zone, r.Rule, r.Required}, cols(r.Step)...)

@@ -90,16 +90,16 @@ func (a *Analyzer) RuleCosts(ctx context.Context) ([]RuleCost, error) {
 			if err != nil {
 				return &Relaxation{Change: change, Status: "not planned", Note: err.Error()}, nil
 			}
-			return a.relaxed(ctx, v, change, base)
+			return a.relaxed(ctx, v, z, change, base)
 		}
 	}
-	viaSpec := func(change string, edit func(*model.Spec)) func(context.Context) (*Relaxation, error) {
+	viaSpec := func(z int, change string, edit func(*model.Spec)) func(context.Context) (*Relaxation, error) {
 		return func(ctx context.Context) (*Relaxation, error) {
 			v, err := variant(pr, edit)
 			if err != nil {
 				return &Relaxation{Change: change, Status: "not planned", Note: err.Error()}, nil
 			}
-			return a.relaxed(ctx, v, change, base)
+			return a.relaxed(ctx, v, z, change, base)
 		}
 	}
 	setZone := func(z int, f func(*model.Zone)) func(*model.Spec) {
@@ -140,7 +140,7 @@ func (a *Analyzer) RuleCosts(ctx context.Context) ([]RuleCost, error) {
 					}})
 					continue
 				}
-				jobs = append(jobs, job{i, step, viaSpec(change, setZone(z, func(m *model.Zone) { m.MinCount = mc }))})
+				jobs = append(jobs, job{i, step, viaSpec(z, change, setZone(z, func(m *model.Zone) { m.MinCount = mc }))})
 			}
 			if duals != nil && pr.Model.NCol[z] >= 0 && cur == n && cover < n {
 				// The reduced cost of the count column at its lower bound
@@ -162,8 +162,8 @@ func (a *Analyzer) RuleCosts(ctx context.Context) ([]RuleCost, error) {
 			i := add(RuleCost{Zone: zn.ID, Rule: "sampled share", Required: fmt.Sprintf("≥ %.0f%%", 100*r.SampledShare)})
 			s1 := math.Max(0, r.SampledShare-ShareStep)
 			jobs = append(jobs,
-				job{i, true, viaSpec(fmt.Sprintf("share %.0f%% → %.0f%%", 100*r.SampledShare, 100*s1), setZone(z, func(m *model.Zone) { m.SampledShare = s1 }))},
-				job{i, false, viaSpec("no share rule", setZone(z, func(m *model.Zone) { m.SampledShare = 0 }))})
+				job{i, true, viaSpec(z, fmt.Sprintf("share %.0f%% → %.0f%%", 100*r.SampledShare, 100*s1), setZone(z, func(m *model.Zone) { m.SampledShare = s1 }))},
+				job{i, false, viaSpec(z, "no share rule", setZone(z, func(m *model.Zone) { m.SampledShare = 0 }))})
 			if duals != nil && pr.Model.ShareRow[z] >= 0 {
 				// The share acts through two places: the row s − share·n ≥ 0,
 				// where ∂z/∂share = π·n (the sensitivity of an LP optimum to
@@ -217,12 +217,22 @@ func (a *Analyzer) RuleCosts(ctx context.Context) ([]RuleCost, error) {
 // never binds the candidates or options, such as allowing a method no
 // offered rig performs), the engine would repeat the cheapest plan's solve
 // step for step — it is deterministic — so that solve is reused.
-func (a *Analyzer) relaxed(ctx context.Context, v *plan.Prepared, change string, base float64) (*Relaxation, error) {
+//
+// On a large site (localMinCols columns or more) the zone whose rule is
+// relaxed is re-planned first with every other zone kept as the cheapest
+// plan has it (see localized); the whole site is solved only when that
+// cannot be shown to be the whole-site answer and the site is small.
+func (a *Analyzer) relaxed(ctx context.Context, v *plan.Prepared, z int, change string, base float64) (*Relaxation, error) {
 	if sameProblem(v.Model.Problem, a.pr.Model.Problem) {
 		c := a.cheapest
 		return &Relaxation{Change: change, Status: c.sum.Status, Feasible: true, Gap: c.sum.OptimalityGap, Cost: base,
 			MaxSaving: roundTo(base-boundCost(c.res, a.pr.Spec, c.sum.FieldDays), 2),
 			Note:      "the program is unchanged by this relaxation"}, nil
+	}
+	if a.pr.Model.Problem.LP.NumCols >= localMinCols {
+		if r, err := a.localized(ctx, v, z, change, base); r != nil || err != nil {
+			return r, err
+		}
 	}
 	o, err := solveVariant(ctx, v, a.st, a.cfg.FeatureDiameterFt, change)
 	if err != nil {

@@ -156,7 +156,12 @@ type outcome struct {
 
 // solveVariant solves a prepared plan's model and summarizes the result.
 func solveVariant(ctx context.Context, pr *plan.Prepared, st Settings, featureFt float64, label string) (*outcome, error) {
-	res, err := mip.Solve(ctx, pr.Model.Problem, st.mip())
+	return solveWith(ctx, pr, st.mip(), featureFt, label)
+}
+
+// solveWith is solveVariant with the engine options given.
+func solveWith(ctx context.Context, pr *plan.Prepared, opt mip.Options, featureFt float64, label string) (*outcome, error) {
+	res, err := mip.Solve(ctx, pr.Model.Problem, opt)
 	if err != nil {
 		return nil, err
 	}
