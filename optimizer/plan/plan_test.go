@@ -45,6 +45,12 @@ func demoInput(t testing.TB, name string) Input {
 	if err != nil {
 		t.Fatal(err)
 	}
+	return scenarioInput(t, sc)
+}
+
+// scenarioInput is sc with its rate book and the built-in rigs.
+func scenarioInput(t testing.TB, sc *scenarios.Scenario) Input {
+	t.Helper()
 	rb, err := ratebooks.Open(sc.RateBook)
 	if err != nil {
 		t.Fatal(err)

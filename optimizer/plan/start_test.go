@@ -6,7 +6,6 @@ import (
 	"testing"
 
 	"github.com/rigmix/rigmix/optimizer/mip"
-	"github.com/rigmix/rigmix/ratebooks"
 	"github.com/rigmix/rigmix/scenarios"
 	"github.com/rigmix/rigmix/scenarios/sitegen"
 )
@@ -42,11 +41,7 @@ func generatedInput(t testing.TB, data []byte) Input {
 	if err != nil {
 		t.Fatal(err)
 	}
-	rb, err := ratebooks.Open(sc.RateBook)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return Input{Scenario: sc, RateBook: rb, Rigs: builtinRigs(t)}
+	return scenarioInput(t, sc)
 }
 
 // TestStartSolutionIsAPlan: the start built from the zone covers meets

@@ -6,9 +6,6 @@ import (
 	"time"
 
 	"github.com/rigmix/rigmix/optimizer/plan"
-	"github.com/rigmix/rigmix/plugins/builtin"
-	"github.com/rigmix/rigmix/plugins/sdk"
-	"github.com/rigmix/rigmix/ratebooks"
 	"github.com/rigmix/rigmix/scenarios"
 	"github.com/rigmix/rigmix/scenarios/sitegen"
 )
@@ -21,19 +18,7 @@ func generatedInput(t testing.TB, data []byte) plan.Input {
 	if err != nil {
 		t.Fatal(err)
 	}
-	rb, err := ratebooks.Open(sc.RateBook)
-	if err != nil {
-		t.Fatal(err)
-	}
-	rigs := map[string]sdk.Rig{}
-	for _, n := range builtin.Names() {
-		r, err := builtin.New(n)
-		if err != nil {
-			t.Fatal(err)
-		}
-		rigs[n] = r
-	}
-	return plan.Input{Scenario: sc, RateBook: rb, Rigs: rigs}
+	return scenarioInput(t, sc)
 }
 
 // BenchmarkAnalyzeGenerated runs the whole trade-off analysis with the

@@ -31,6 +31,13 @@ func demoInput(t testing.TB, name string) plan.Input {
 	if err != nil {
 		t.Fatal(err)
 	}
+	return scenarioInput(t, sc)
+}
+
+// scenarioInput is sc with its rate book and the built-in rigs
+// in-process.
+func scenarioInput(t testing.TB, sc *scenarios.Scenario) plan.Input {
+	t.Helper()
 	rb, err := ratebooks.Open(sc.RateBook)
 	if err != nil {
 		t.Fatal(err)
