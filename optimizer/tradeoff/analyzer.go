@@ -76,7 +76,7 @@ func FromPrepared(ctx context.Context, pr *plan.Prepared, cfg Config) (*Analyzer
 		cfg.BudgetPoints = 2
 	}
 	a := &Analyzer{cfg: cfg, st: cfg.Settings.withDefaults(), pr: pr}
-	o, err := solveVariant(ctx, pr, a.st, cfg.FeatureDiameterFt, "cheapest")
+	o, err := solveCheapest(ctx, pr, a.st, cfg.FeatureDiameterFt, "cheapest")
 	if err != nil {
 		return nil, err
 	}
@@ -192,7 +192,7 @@ func (a *Analyzer) Alternatives(ctx context.Context) ([]Summary, error) {
 			if err != nil {
 				return Summary{}, fmt.Errorf("rate book %q: %w", rb.Name, err)
 			}
-			o, err := solveVariant(ctx, pr, a.st, a.cfg.FeatureDiameterFt, "cheapest — "+rb.Name)
+			o, err := solveCheapest(ctx, pr, a.st, a.cfg.FeatureDiameterFt, "cheapest — "+rb.Name)
 			if err != nil {
 				return Summary{}, err
 			}

@@ -76,7 +76,16 @@ func EpsilonConstraint(ctx context.Context, s *model.Spec, cheapest *mip.Result,
 	if err != nil {
 		return nil, err
 	}
-	res, err := mip.Solve(ctx, fm.Problem, st.mip())
+	// On a large site every solve of the sweep starts from a plan that
+	// meets its rows: the cheapest plan for the least finish (the same
+	// columns; only the objective differs), the fastest plan for each
+	// finish limit (it finishes within every limit of the sweep).
+	large := base.Problem.LP.NumCols >= localMinCols
+	opt := st.mip()
+	if large {
+		opt.Start = cheapest.X
+	}
+	res, err := mip.Solve(ctx, fm.Problem, opt)
 	if err != nil {
 		return nil, err
 	}
@@ -102,7 +111,11 @@ func EpsilonConstraint(ctx context.Context, s *model.Spec, cheapest *mip.Result,
 			if err != nil {
 				return SpecPoint{}, err
 			}
-			r, err := mip.Solve(ctx, m.Problem, st.mip())
+			opt := st.mip()
+			if large {
+				opt.Start = res.X
+			}
+			r, err := mip.Solve(ctx, m.Problem, opt)
 			if err != nil {
 				return SpecPoint{}, err
 			}

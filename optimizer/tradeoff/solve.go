@@ -159,6 +159,18 @@ func solveVariant(ctx context.Context, pr *plan.Prepared, st Settings, featureFt
 	return solveWith(ctx, pr, st.mip(), featureFt, label)
 }
 
+// solveCheapest solves a prepared plan's own (least-cost) model. On a
+// large site it starts, as plan.Prepared.Solve does, from the plan over
+// each zone's least cover: the search alone finds good plans late there,
+// and that start is usually within the gap of the root bound.
+func solveCheapest(ctx context.Context, pr *plan.Prepared, st Settings, featureFt float64, label string) (*outcome, error) {
+	opt := st.mip()
+	if pr.Model.Problem.LP.NumCols >= localMinCols {
+		opt.Start = pr.StartSolution(ctx, st.GapRel, opt.TimeLimit/3)
+	}
+	return solveWith(ctx, pr, opt, featureFt, label)
+}
+
 // solveWith is solveVariant with the engine options given.
 func solveWith(ctx context.Context, pr *plan.Prepared, opt mip.Options, featureFt float64, label string) (*outcome, error) {
 	res, err := mip.Solve(ctx, pr.Model.Problem, opt)
