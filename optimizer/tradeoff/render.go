@@ -226,7 +226,7 @@ func WriteRuleCostsText(w io.Writer, rules []RuleCost, base float64) error {
 
 // localizedCSVMark follows the change of a localized relaxation in the
 // CSV (and so in the report's table built from it).
-const localizedCSVMark = " (only this zone re-planned: saving at least this, at most max_saving)"
+const localizedCSVMark = " (only this zone re-planned: it saves at least the saving column, at most the max_saving column)"
 
 // isLocalized reports whether a relaxation was priced by re-planning its
 // zone alone without proof that the whole site could do no better
