@@ -361,22 +361,12 @@ func (f *luFactor) btranSparse(c []float64, idx []int, hint *float64) []int {
 	m := f.m
 	limit := f.hyperLimit()
 	if len(f.etaPos) > 0 || len(idx) > limit || (hint != nil && *hint > hyperFrac) {
-		f.btran(c)
-		out := nonzeros(c, idx[:0])
-		noteDensity(hint, len(out), m)
-		return out
+		return f.btranDense(c, idx, hint)
 	}
-	starts := f.starts[:0]
-	for _, p := range idx {
-		starts = append(starts, f.pivOfPos[p])
-	}
-	f.starts = starts
+	starts := f.pivotsAt(idx)
 	order, ok := f.reach(starts, f.urBeg, f.urEnd, f.urPiv, limit)
 	if !ok {
-		f.btran(c)
-		out := nonzeros(c, idx[:0])
-		noteDensity(hint, len(out), m)
-		return out
+		return f.btranDense(c, idx, hint)
 	}
 	// Uᵀ s = c, scattering along the rows of U.
 	s := f.sw
@@ -446,6 +436,26 @@ func (f *luFactor) btranSparse(c []float64, idx []int, hint *float64) []int {
 	}
 	noteDensity(hint, len(out), m)
 	return out
+}
+
+// btranDense is the dense BTRAN with the result's nonzero rows listed in
+// idx's storage and the density noted in hint, the fallback of
+// btranSparse.
+func (f *luFactor) btranDense(c []float64, idx []int, hint *float64) []int {
+	f.btran(c)
+	out := nonzeros(c, idx[:0])
+	noteDensity(hint, len(out), f.m)
+	return out
+}
+
+// pivotsAt lists, in f.starts, the pivots of the basis positions given.
+func (f *luFactor) pivotsAt(positions []int) []int {
+	starts := f.starts[:0]
+	for _, p := range positions {
+		starts = append(starts, f.pivOfPos[p])
+	}
+	f.starts = starts
+	return starts
 }
 
 // nonzeros appends the indices of the nonzero entries of v to out.
@@ -658,11 +668,7 @@ func (f *luFactor) ftranPartial(a []float64, targets []int, out []float64, limit
 	if len(f.etaPos) > 0 {
 		return false
 	}
-	starts := f.starts[:0]
-	for _, p := range targets {
-		starts = append(starts, f.pivOfPos[p])
-	}
-	f.starts = starts
+	starts := f.pivotsAt(targets)
 	uOrder, ok := f.reach(starts, f.urBeg, f.urEnd, f.urPiv, limit)
 	if !ok {
 		return false

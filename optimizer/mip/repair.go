@@ -77,6 +77,33 @@ func (rs *repairSearch) score(j int, v float64) float64 {
 	return s
 }
 
+// need is the change of row i's activity that brings it back within its
+// bounds: up to its lower bound, or down (negative) to its upper bound.
+func (rs *repairSearch) need(i int) float64 {
+	q := &rs.e.p.LP
+	if rs.act[i] > q.RowUp[i] {
+		return q.RowUp[i] - rs.act[i]
+	}
+	return q.RowLo[i] - rs.act[i]
+}
+
+// shift is the value column j takes to change its row's activity by
+// delta·a (delta = need/a): x[j] + delta, rounded away from x[j] for an
+// integer column so that the need is met, and clipped to its global
+// bounds.
+func (rs *repairSearch) shift(j int, delta float64) float64 {
+	e := rs.e
+	v := rs.x[j] + delta
+	if e.p.Integer[j] {
+		if delta > 0 {
+			v = math.Ceil(v - 1e-9)
+		} else {
+			v = math.Floor(v + 1e-9)
+		}
+	}
+	return math.Max(e.glo[j], math.Min(e.gup[j], v))
+}
+
 func (rs *repairSearch) move(j int, v float64) {
 	q := &rs.e.p.LP
 	d := v - rs.x[j]
@@ -151,11 +178,7 @@ func (e *engine) repairFrom(start []float64) bool {
 		}
 		// Rotate through the violated rows deterministically.
 		i := rs.viol[(it*7919)%len(rs.viol)]
-		lo, up := q.RowLo[i], q.RowUp[i]
-		need := lo - rs.act[i]
-		if rs.act[i] > up {
-			need = up - rs.act[i]
-		}
+		need := rs.need(i)
 		best, bestScore := -1, math.Inf(1)
 		var bestVal float64
 		for k := rs.rowStart[i]; k < rs.rowStart[i+1]; k++ {
@@ -163,15 +186,7 @@ func (e *engine) repairFrom(start []float64) bool {
 			if a == 0 || e.glo[j] == e.gup[j] {
 				continue
 			}
-			v := rs.x[j] + need/a
-			if e.p.Integer[j] {
-				if need/a > 0 {
-					v = math.Ceil(v - 1e-9)
-				} else {
-					v = math.Floor(v + 1e-9)
-				}
-			}
-			v = math.Max(e.glo[j], math.Min(e.gup[j], v))
+			v := rs.shift(j, need/a)
 			if v == rs.x[j] {
 				continue
 			}
@@ -262,11 +277,7 @@ func (rs *repairSearch) improve() bool {
 			stamp[j] = trial
 			for k := 0; k < improveRepairMoves && len(rs.viol) > 0; k++ {
 				i := rs.viol[0]
-				lo, up := q.RowLo[i], q.RowUp[i]
-				need := lo - rs.act[i]
-				if rs.act[i] > up {
-					need = up - rs.act[i]
-				}
+				need := rs.need(i)
 				best, bestScore := -1, math.Inf(1)
 				var bestVal float64
 				for t := rs.rowStart[i]; t < rs.rowStart[i+1]; t++ {
@@ -274,15 +285,7 @@ func (rs *repairSearch) improve() bool {
 					if a == 0 || stamp[jj] == trial || e.glo[jj] == e.gup[jj] {
 						continue
 					}
-					v := rs.x[jj] + need/a
-					if e.p.Integer[jj] {
-						if need/a > 0 {
-							v = math.Ceil(v - 1e-9)
-						} else {
-							v = math.Floor(v + 1e-9)
-						}
-					}
-					v = math.Max(e.glo[jj], math.Min(e.gup[jj], v))
+					v := rs.shift(jj, need/a)
 					if v == rs.x[jj] {
 						continue
 					}

@@ -9,94 +9,6 @@ import (
 	"github.com/rigmix/rigmix/optimizer/mip"
 )
 
-// bruteForce enumerates every choice of options (at most one per point) and
-// returns the least objective over feasible choices, computing the days and
-// mobilization each choice forces. It is an independent check of Build: it
-// reads the Spec, not the built program.
-func bruteForce(s *Spec) (best float64, ok bool) {
-	byPoint := make([][]int, s.NumPoints)
-	for o, op := range s.Options {
-		byPoint[op.Point] = append(byPoint[op.Point], o)
-	}
-	choice := make([]int, s.NumPoints) // -1 none, else option index
-	best = math.Inf(1)
-	var rec func(p int)
-	rec = func(p int) {
-		if p == s.NumPoints {
-			if v, feas := evaluate(s, choice); feas && v < best {
-				best, ok = v, true
-			}
-			return
-		}
-		choice[p] = -1
-		rec(p + 1)
-		for _, o := range byPoint[p] {
-			choice[p] = o
-			rec(p + 1)
-		}
-	}
-	rec(0)
-	return best, ok
-}
-
-func evaluate(s *Spec, choice []int) (float64, bool) {
-	explored := func(p int) bool { return choice[p] >= 0 }
-	for _, row := range s.CoverRows {
-		hit := false
-		for _, p := range row {
-			hit = hit || explored(p)
-		}
-		if !hit {
-			return 0, false
-		}
-	}
-	for p := range choice {
-		if s.Required != nil && s.Required[p] && !explored(p) {
-			return 0, false
-		}
-	}
-	count := make([]int, len(s.Zones))
-	sampled := make([]int, len(s.Zones))
-	hours := make([]float64, len(s.Rigs))
-	used := make([]bool, len(s.Rigs))
-	cost := 0.0
-	for p, o := range choice {
-		if o < 0 {
-			continue
-		}
-		op := s.Options[o]
-		z := s.PointZone[p]
-		count[z]++
-		if op.Sampled {
-			sampled[z]++
-		}
-		hours[op.Rig] += op.Hours
-		used[op.Rig] = true
-		cost += op.Cost
-	}
-	for z, zn := range s.Zones {
-		if count[z] < zn.MinCount || float64(sampled[z]) < zn.SampledShare*float64(count[z])-1e-9 {
-			return 0, false
-		}
-	}
-	finish := 0.0
-	for r, rg := range s.Rigs {
-		if !used[r] {
-			continue
-		}
-		d := math.Ceil((hours[r]+rg.MobHours)/s.HoursPerDay - 1e-9)
-		cost += rg.MobCost + d*rg.DayCost
-		finish = math.Max(finish, d)
-	}
-	if s.MaxDays > 0 && finish > s.MaxDays {
-		return 0, false
-	}
-	if s.Budget > 0 && cost > s.Budget+1e-6 {
-		return 0, false
-	}
-	return cost + s.DaysWeight*finish, true
-}
-
 func randomSpec(rng *rand.Rand) *Spec {
 	s := &Spec{NumPoints: 3 + rng.IntN(4), HoursPerDay: 10, DaysWeight: 0.01}
 	nz := 1 + rng.IntN(2)
@@ -133,7 +45,7 @@ func TestBuildAgainstBruteForce(t *testing.T) {
 	solved := 0
 	for i := 0; i < 60; i++ {
 		s := randomSpec(rng)
-		want, feasible := bruteForce(s)
+		want, feasible := bruteMode(s)
 		m, err := Build(s)
 		if err != nil {
 			if feasible {

@@ -10,8 +10,11 @@ import (
 )
 
 // bruteMode enumerates every choice (at most one option per point) and
-// returns the least objective of the mode the spec selects, reading the
-// spec's rules directly: MinimizeDays minimizes the finish over plans
+// returns the least objective of the mode the spec selects, computing the
+// days and mobilization each choice forces. It is an independent check of
+// Build: it reads the Spec's rules, not the built program. The cost mode
+// minimizes cost plus DaysWeight·finish over plans meeting every rule;
+// MinimizeDays minimizes the finish over plans
 // meeting every rule; MaximizeCoverage drops the coverage rows and the
 // counts, keeps shares, required points, the budget and the day limit, and
 // minimizes −100·(weighted area covered)/(total) + 0.01·cost/budget.

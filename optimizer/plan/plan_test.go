@@ -7,17 +7,14 @@ import (
 	"errors"
 	"math"
 	"math/rand/v2"
-	"os"
 	"os/exec"
-	"path/filepath"
-	"regexp"
 	"runtime"
-	"strconv"
 	"strings"
 	"testing"
 
 	"github.com/rigmix/rigmix/optimizer/geom"
 	"github.com/rigmix/rigmix/optimizer/mip"
+	"github.com/rigmix/rigmix/optimizer/mip/miptest"
 	"github.com/rigmix/rigmix/plugins/builtin"
 	"github.com/rigmix/rigmix/plugins/sdk"
 	"github.com/rigmix/rigmix/ratebooks"
@@ -257,23 +254,7 @@ func TestDemoModelsAgreeWithCBC(t *testing.T) {
 			if err != nil || res.Status != mip.Optimal {
 				t.Fatalf("engine: %v %v", res.Status, err)
 			}
-			file := filepath.Join(t.TempDir(), name+".mps")
-			var b bytes.Buffer
-			if err := mip.WriteMPS(&b, pr.Model.Problem); err != nil {
-				t.Fatal(err)
-			}
-			if err := os.WriteFile(file, b.Bytes(), 0o644); err != nil {
-				t.Fatal(err)
-			}
-			out, err := exec.Command(cbc, file, "-ratio", "0", "-allowableGap", "0", "-threads", "1", "-solve", "-quit").CombinedOutput()
-			if err != nil {
-				t.Fatalf("cbc: %v\n%s", err, out)
-			}
-			m := regexp.MustCompile(`Objective value:\s+(\S+)`).FindSubmatch(out)
-			if m == nil || !bytes.Contains(out, []byte("Optimal solution found")) {
-				t.Fatalf("cbc did not report an optimum:\n%s", out)
-			}
-			want, _ := strconv.ParseFloat(string(m[1]), 64)
+			want := miptest.CBCOptimum(t, cbc, pr.Model.Problem)
 			if math.Abs(res.Obj-want) > 1e-6*math.Max(1, math.Abs(want)) {
 				t.Fatalf("engine %.8f, CBC %.8f", res.Obj, want)
 			}

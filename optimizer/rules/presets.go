@@ -6,6 +6,8 @@ import (
 	"math"
 	"sort"
 	"strings"
+
+	"github.com/rigmix/rigmix/scenarios/fielderr"
 )
 
 // Source strings, copied from the project's table of outside sources so a
@@ -230,7 +232,7 @@ func Lookup(name string) (Preset, error) {
 	}
 	best, bestD := "", math.MaxInt
 	for _, p := range all { // name order, so ties go to the first name
-		if d := editDistance(key, p.Name); d < bestD {
+		if d := fielderr.EditDistance(key, p.Name); d < bestD {
 			best, bestD = p.Name, d
 		}
 	}
@@ -240,28 +242,6 @@ func Lookup(name string) (Preset, error) {
 	}
 	return Preset{}, fmt.Errorf("%w %q: did you mean %q? (known presets: %s)",
 		ErrUnknownPreset, name, best, strings.Join(names, ", "))
-}
-
-// editDistance is the Levenshtein distance between a and b, counted in
-// bytes (preset names are ASCII).
-func editDistance(a, b string) int {
-	prev := make([]int, len(b)+1)
-	cur := make([]int, len(b)+1)
-	for j := range prev {
-		prev[j] = j
-	}
-	for i := 1; i <= len(a); i++ {
-		cur[0] = i
-		for j := 1; j <= len(b); j++ {
-			cost := 1
-			if a[i-1] == b[j-1] {
-				cost = 0
-			}
-			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
-		}
-		prev, cur = cur, prev
-	}
-	return prev[len(b)]
 }
 
 // Footprint limits of NAVFAC's isolated rigid foundation rule, ft².

@@ -149,14 +149,7 @@ func WriteFrontierCSV(w io.Writer, f *Frontier) error {
 	if err := cw.Write([]string{"max_days", "feasible", "status", "field_days", "total_cost", "priced_cost", "bound_cost", "optimality_gap", "rigs_mobilized", "rigs", "points", "on_frontier", "balanced"}); err != nil {
 		return err
 	}
-	on := map[int]bool{}
-	for _, p := range f.Points {
-		on[p.MaxDays] = true
-	}
-	bal := -1
-	if len(f.Points) > 0 {
-		bal = f.Points[f.Balanced].MaxDays
-	}
+	on, bal := f.marks()
 	for _, p := range f.Swept {
 		rec := []string{strconv.Itoa(p.MaxDays), strconv.FormatBool(p.Feasible), p.Status, strconv.Itoa(p.FieldDays),
 			ff(p.TotalCost, 2), ff(p.PricedCost, 2), ff(p.BoundCost, 2), ff(p.OptimalityGap, 6), strconv.Itoa(p.RigsMobilized), strings.Join(p.Rigs, " "),
@@ -276,14 +269,7 @@ func WriteFrontierText(w io.Writer, f *Frontier) error {
 	fmt.Fprintf(w, "fastest finish found %d days (proven bound %d); cheapest plan %d days\n", f.FastestDays, f.FastestBound, f.CheapestDays)
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
 	fmt.Fprintln(tw, "day limit\tfield days\tpriced cost\tcost bound\trigs\tpoints\topt. gap %\t\t")
-	on := map[int]bool{}
-	for _, p := range f.Points {
-		on[p.MaxDays] = true
-	}
-	bal := -1
-	if len(f.Points) > 0 {
-		bal = f.Points[f.Balanced].MaxDays
-	}
+	on, bal := f.marks()
 	for _, p := range f.Swept {
 		if !p.Feasible {
 			fmt.Fprintf(tw, "%d\t%s\t\t\t\t\t\t\t\n", p.MaxDays, p.Status)
@@ -355,4 +341,18 @@ func (an *Analysis) WriteText(w io.Writer) error {
 		}
 	}
 	return nil
+}
+
+// marks gives the day limits whose solve is on the frontier and the day
+// limit of the balanced point (−1 when there is none).
+func (f *Frontier) marks() (on map[int]bool, balanced int) {
+	on = map[int]bool{}
+	for _, p := range f.Points {
+		on[p.MaxDays] = true
+	}
+	balanced = -1
+	if len(f.Points) > 0 {
+		balanced = f.Points[f.Balanced].MaxDays
+	}
+	return on, balanced
 }

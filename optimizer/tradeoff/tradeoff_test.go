@@ -6,15 +6,13 @@ import (
 	"encoding/json"
 	"flag"
 	"math"
-	"os"
 	"os/exec"
-	"path/filepath"
-	"regexp"
 	"strconv"
 	"strings"
 	"testing"
 
 	"github.com/rigmix/rigmix/optimizer/mip"
+	"github.com/rigmix/rigmix/optimizer/mip/miptest"
 	"github.com/rigmix/rigmix/optimizer/model"
 	"github.com/rigmix/rigmix/optimizer/plan"
 	"github.com/rigmix/rigmix/plugins/builtin"
@@ -225,33 +223,6 @@ func TestSweepAndFilter(t *testing.T) {
 	}
 }
 
-// solveWithCBC writes the program as free MPS, solves it with COIN-OR CBC
-// (Debian's coinor-cbc), an independent solver, and returns its optimum.
-func solveWithCBC(t *testing.T, cbc string, p *mip.Problem) float64 {
-	t.Helper()
-	file := filepath.Join(t.TempDir(), "model.mps")
-	var b bytes.Buffer
-	if err := mip.WriteMPS(&b, p); err != nil {
-		t.Fatal(err)
-	}
-	if err := os.WriteFile(file, b.Bytes(), 0o644); err != nil {
-		t.Fatal(err)
-	}
-	out, err := exec.Command(cbc, file, "-ratio", "0", "-allowableGap", "0", "-threads", "1", "-solve", "-quit").CombinedOutput()
-	if err != nil {
-		t.Fatalf("cbc: %v\n%s", err, out)
-	}
-	m := regexp.MustCompile(`Objective value:\s+(\S+)`).FindSubmatch(out)
-	if m == nil || !bytes.Contains(out, []byte("Optimal solution found")) {
-		t.Fatalf("cbc did not report an optimum:\n%s", out)
-	}
-	v, err := strconv.ParseFloat(string(m[1]), 64)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return v
-}
-
 // TestFrontierAndBudgetPointsAgreeWithCBC solves one frontier point (the
 // fastest finish as a day limit) and one budget point of the maximal
 // covering form with our engine to its stated gap, and with CBC to
@@ -284,7 +255,7 @@ func TestFrontierAndBudgetPointsAgreeWithCBC(t *testing.T) {
 			if err != nil || res.X == nil {
 				t.Fatalf("engine: %v %v", res.Status, err)
 			}
-			want := solveWithCBC(t, cbc, v.Model.Problem)
+			want := miptest.CBCOptimum(t, cbc, v.Model.Problem)
 			// The engine's value is feasible, so not below CBC's optimum;
 			// and within its reported gap above it.
 			tol := res.Gap*math.Max(1, math.Abs(res.Obj)) + 1e-6*math.Max(1, math.Abs(want))
