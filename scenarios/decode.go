@@ -930,6 +930,11 @@ func (d *decoder) rules(m map[string]any, p string, z *Zone) (Rules, error) {
 	if r.Corners, hasCorners, err = d.boolean(m, p, "corners"); err != nil {
 		return r, err
 	}
+	noSpread, hasSpread := false, false
+	if noSpread, hasSpread, err = d.boolean(m, p, "spread"); err != nil {
+		return r, err
+	}
+	r.NoSpread = hasSpread && !noSpread
 	rp, hasReq, err := d.list(m, p, "required_points")
 	if err != nil {
 		return r, err

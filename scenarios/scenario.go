@@ -117,8 +117,11 @@ type Rules struct {
 	Methods          []sdk.Method // methods allowed (empty: all)
 	SampleIntervalFt float64      // sampling interval in borings (0: rig default)
 	Corners          bool         // a point is required at each polygon corner
-	RequiredPoints   []geom.Point // points that must be explored
-	Source           string       // where the rule numbers come from
+	// NoSpread turns off the implied spacing a count or area-per-point
+	// rule without a spacing rule gets (the file's "spread: false").
+	NoSpread       bool
+	RequiredPoints []geom.Point // points that must be explored
+	Source         string       // where the rule numbers come from
 
 	// Preset is the name of the rules.Presets entry the zone names, or "".
 	Preset string

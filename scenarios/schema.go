@@ -112,6 +112,7 @@ var schema = mapping(map[string]*keys{
 			"methods":         leaf,
 			"sample_interval": leaf,
 			"corners":         leaf,
+			"spread":          leaf,
 			"required_points": leaf,
 			"source":          leaf,
 		}),

@@ -118,7 +118,13 @@ type Layout struct {
 	// that contain another row's set are removed, which leaves the set of
 	// feasible covers unchanged. Rows are in the order of their cells.
 	RowCells [][]int
-	// RowCell[k] is the index into Cells of the cell whose set RowCells[k]
+	// EdgePoints are demand points of no area on the zones' outlines
+	// (every vertex, and every cell spacing along each edge): a spacing
+	// rule holds on the outline too, where a strip's farthest ground
+	// usually lies. Each has a covering row; none counts toward areas.
+	EdgePoints []Cell
+	// RowCell[k] is the index into Cells, or len(Cells)+j for EdgePoints[j],
+	// of the demand point whose set RowCells[k]
 	// is (the first cell with that set).
 	RowCell []int
 }
@@ -367,8 +373,25 @@ func Generate(zones []ZoneInput, noGo []geom.Polygon, opt Options) (*Layout, err
 			c.CoveredBy = local
 			out.Cells = append(out.Cells, c)
 		}
+		// The zone's outline, where a strip's farthest ground usually
+		// lies, is sampled as finely as its interior: demand points of no
+		// area at every vertex and every cell spacing along each edge.
+		// Those no allowed point can reach are left to the exact check.
+		edgePts := append(slices.Clone(z.Polygon), z.Polygon.PointsAlongBoundary(zp.cellSpace)...)
+		for _, q := range edgePts {
+			at := len(arena)
+			arena = grid.WithinSorted(q, r, arena)
+			if len(arena) == at {
+				continue
+			}
+			local := arena[at:len(arena):len(arena)]
+			for j := range local {
+				local[j] += first
+			}
+			out.EdgePoints = append(out.EdgePoints, Cell{Zone: i, P: q, Weight: zp.weight, CoveredBy: local})
+		}
 	}
-	out.RowCells, out.RowCell = reduceRows(out.Cells, len(out.Candidates))
+	out.RowCells, out.RowCell = reduceRows(append(slices.Clip(out.Cells), out.EdgePoints...), len(out.Candidates))
 	return out, nil
 }
 

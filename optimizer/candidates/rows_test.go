@@ -29,8 +29,9 @@ func checkRows(t *testing.T, l *Layout) {
 		}
 		return true
 	}
+	all := append(slices.Clip(l.Cells), l.EdgePoints...)
 	for k, r := range l.RowCells {
-		if !slices.Equal(r, l.Cells[l.RowCell[k]].CoveredBy) || len(r) == 0 {
+		if !slices.Equal(r, all[l.RowCell[k]].CoveredBy) || len(r) == 0 {
 			t.Fatalf("row %d %v is not the set of cell %d", k, r, l.RowCell[k])
 		}
 		if k > 0 && l.RowCell[k] <= l.RowCell[k-1] {
@@ -46,7 +47,7 @@ func checkRows(t *testing.T, l *Layout) {
 			}
 		}
 	}
-	for ci, c := range l.Cells {
+	for ci, c := range all {
 		ok := false
 		for _, r := range l.RowCells {
 			if subset(r, c.CoveredBy) {
@@ -105,7 +106,7 @@ func TestRowReductionBruteForce(t *testing.T) {
 			feasible := 0
 			for mask := uint32(0); mask < 1<<n; mask++ {
 				all := true
-				for _, c := range l.Cells {
+				for _, c := range append(slices.Clip(l.Cells), l.EdgePoints...) {
 					if !meets(mask, c.CoveredBy) {
 						all = false
 						break
@@ -161,8 +162,9 @@ func TestRowReductionRandom(t *testing.T) {
 		}
 		checked++
 		checkRows(t, l)
-		full := make([]uint32, len(l.Cells))
-		for k, c := range l.Cells {
+		demand := append(slices.Clip(l.Cells), l.EdgePoints...)
+		full := make([]uint32, len(demand))
+		for k, c := range demand {
 			for _, j := range c.CoveredBy {
 				full[k] |= 1 << j
 			}

@@ -94,12 +94,28 @@ func Farthest(g Ground, sites []Point) Spot {
 // O(n·k·log n + n·e) for n sites with k Voronoi neighbours each and e
 // ground edges near each region.
 func FarthestBySite(g Ground, sites []Point) []Spot {
+	out, _ := farthestBySite(g, sites, math.Inf(1))
+	return out
+}
+
+// SpotsBeyond returns every vertex of the Voronoi regions' pieces of ground
+// (the candidates FarthestBySite measures) that lies farther than r from
+// its nearest site, in site order. Where a region's farthest ground lies
+// beyond r, the region's other far corners usually do too; a covering
+// model told of all of them at once needs fewer rounds.
+func SpotsBeyond(g Ground, sites []Point, r float64) []Spot {
+	_, beyond := farthestBySite(g, sites, r)
+	return beyond
+}
+
+func farthestBySite(g Ground, sites []Point, r float64) ([]Spot, []Spot) {
 	out := make([]Spot, len(sites))
 	for i := range out {
 		out[i] = Spot{Site: -1, Dist: -1}
 	}
+	var beyond []Spot
 	if len(g.Outline) < 3 || len(sites) == 0 {
-		return out
+		return out, nil
 	}
 	box := g.Outline.Bounds().Expand(1)
 	edges := g.edges()
@@ -108,6 +124,9 @@ func FarthestBySite(g Ground, sites []Point) []Spot {
 		d := q.Dist(sites[i])
 		if out[i].Site < 0 || d > out[i].Dist {
 			out[i] = Spot{At: q, Dist: d, Site: i}
+		}
+		if d > r {
+			beyond = append(beyond, Spot{At: q, Dist: d, Site: i})
 		}
 	}
 	for i := range sites {
@@ -153,7 +172,7 @@ func FarthestBySite(g Ground, sites []Point) []Spot {
 		}
 		consider(nearestSite(q, sites), q)
 	}
-	return out
+	return out, beyond
 }
 
 // NeighbourPairs returns the pairs of sites (i < j, ascending) whose

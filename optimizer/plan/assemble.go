@@ -6,7 +6,6 @@ import (
 	"math"
 	"time"
 
-	"github.com/rigmix/rigmix/optimizer/candidates"
 	"github.com/rigmix/rigmix/optimizer/geom"
 	"github.com/rigmix/rigmix/optimizer/lab"
 	"github.com/rigmix/rigmix/optimizer/mip"
@@ -67,11 +66,15 @@ func (pr *Prepared) Solve(ctx context.Context, opt Options) (*mip.Result, error)
 	mo.Start = pr.StartSolution(ctx, mo.GapRel, mo.TimeLimit/3)
 	pr.Timings.add("start solution (zone covers)", t0)
 	t0 = time.Now()
-	res, err := mip.Solve(ctx, pr.Model.Problem, mo)
-	pr.Timings.add("solve", t0)
+	cov, res, rounds, err := pr.SolveCovered(ctx, mo)
 	if err != nil {
 		return nil, err
 	}
+	timings := pr.Timings
+	*pr = *cov
+	pr.Timings = timings
+	pr.Rounds = rounds
+	pr.Timings.add(fmt.Sprintf("solve (%d round(s) of exact coverage, %d row(s) and %d point(s) added)", rounds.Rounds, rounds.RowsAdded, rounds.PointsAdded), t0)
 	if res.X == nil {
 		return nil, &ErrNoPlan{Status: res.Status}
 	}
@@ -220,7 +223,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		b.DaysSaved = b.FieldDays - p.Finish
 		p.Baseline = b
 	}
-	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth, pr.farthestCell(chosenPoint))
+	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth, pr.ExactReach(chosenPoint))
 	pb := pr.Model.Problem
 	if math.IsInf(res.Bound, 0) || math.IsNaN(res.Bound) {
 		// Stopped before the root bound: every cost is ≥ 0, so 0 is a
@@ -240,7 +243,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 	return p, nil
 }
 
-func (pr *Prepared) ruleChecks(count, sampled []int, minDepth, farthest []float64) []RuleCheck {
+func (pr *Prepared) ruleChecks(count, sampled []int, minDepth []float64, farthest []geom.Spot) []RuleCheck {
 	sc := pr.In.Scenario
 	var out []RuleCheck
 	for z, zn := range sc.Zones {
@@ -251,10 +254,33 @@ func (pr *Prepared) ruleChecks(count, sampled []int, minDepth, farthest []float6
 				lat = "triangular"
 			}
 			radius := geom.CoveringRadius(string(lat), r.MaxSpacingFt)
-			out = append(out, RuleCheck{Zone: zn.ID, Rule: "max spacing",
-				Required: fmt.Sprintf("every cell centre within %.1f ft of a point (%s spacing %.0f ft)", radius, lat, r.MaxSpacingFt),
-				Achieved: fmt.Sprintf("farthest cell centre %.1f ft from a point", farthest[z]),
-				Met:      farthest[z] <= radius+1e-6, Source: r.Source})
+			f := farthest[z]
+			rc := RuleCheck{Zone: zn.ID, Rule: "max spacing",
+				Required: fmt.Sprintf("every spot of the zone within %.1f ft of a point (%s spacing %.0f ft)", radius, lat, r.MaxSpacingFt),
+				Met:      f.Site >= 0 && f.Dist <= radius+coverTol(radius), Source: r.Source}
+			if f.Site >= 0 {
+				rc.Achieved = fmt.Sprintf("farthest ground %.1f ft from a point, at %s", f.Dist, spotText(f.At))
+				rc.FarthestFt = round(f.Dist, 3)
+				rc.FarthestAt = &XY{XFt: round(f.At.X, 1), YFt: round(f.At.Y, 1)}
+			} else {
+				rc.Achieved = "no point in the zone"
+			}
+			out = append(out, rc)
+		}
+		if r := pr.ImpliedRadiusFt[z]; r > 0 {
+			f := farthest[z]
+			rc := RuleCheck{Zone: zn.ID, Rule: "spread (implied)",
+				Required: fmt.Sprintf("every spot of the zone within %.1f ft of a point (√(area / %d points); spread: false turns it off)", r, pr.ZoneMin[z]),
+				Met:      f.Site >= 0 && f.Dist <= r+coverTol(r),
+				Origin:   "computed: √(zone area / points required), so a count rule's points are spread (our choice of slack)"}
+			if f.Site >= 0 {
+				rc.Achieved = fmt.Sprintf("farthest ground %.1f ft from a point, at %s", f.Dist, spotText(f.At))
+				rc.FarthestFt = round(f.Dist, 3)
+				rc.FarthestAt = &XY{XFt: round(f.At.X, 1), YFt: round(f.At.Y, 1)}
+			} else {
+				rc.Achieved = "no point in the zone"
+			}
+			out = append(out, rc)
 		}
 		if n := pr.ZoneMin[z]; n > 0 {
 			out = append(out, RuleCheck{Zone: zn.ID, Rule: "minimum points",
@@ -328,56 +354,6 @@ func round(v float64, places int) float64 {
 	return r
 }
 
-// farthestCell is, per zone, the largest distance from the centre of a
-// coverage cell that some allowed point can reach to the nearest chosen
-// point of the zone: the largest gap the plan leaves, to compare with the
-// covering radius. Ground no allowed point can reach (behind no-go areas) is
-// reported among the warnings instead.
-func (pr *Prepared) farthestCell(chosen []bool) []float64 {
-	lay := pr.Layout
-	nz := len(pr.In.Scenario.Zones)
-	pts := make([][]geom.Point, nz)
-	for q, c := range lay.Candidates {
-		if chosen[q] {
-			pts[c.Zone] = append(pts[c.Zone], c.P)
-		}
-	}
-	grids := make([]*geom.Grid, nz)
-	for z := range pts {
-		if len(pts[z]) > 0 && lay.RadiusFt[z] > 0 {
-			grids[z] = geom.NewGrid(pts[z], lay.RadiusFt[z])
-		}
-	}
-	out := make([]float64, nz)
-	var buf []int
-	visit := func(c candidatesCell) {
-		z := c.Zone
-		if lay.RadiusFt[z] == 0 {
-			return
-		}
-		best := math.Inf(1)
-		if grids[z] != nil {
-			buf = grids[z].WithinSorted(c.P, lay.RadiusFt[z], buf[:0])
-			for _, i := range buf {
-				best = math.Min(best, math.Hypot(pts[z][i].X-c.P.X, pts[z][i].Y-c.P.Y))
-			}
-		}
-		if math.IsInf(best, 1) { // beyond the radius: search every point
-			for _, q := range pts[z] {
-				best = math.Min(best, math.Hypot(q.X-c.P.X, q.Y-c.P.Y))
-			}
-		}
-		if best > out[z] {
-			out[z] = best
-		}
-	}
-	for _, c := range lay.Cells {
-		visit(c)
-	}
-	return out
-}
-
-type candidatesCell = candidates.Cell
 
 // excluded lists, zone by zone, the method and rig pairs the zone allows but
 // the rig cannot do there, with the rig's reason.

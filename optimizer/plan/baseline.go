@@ -123,6 +123,37 @@ func (pr *Prepared) gridCount(z int) int {
 				pts = append(pts, pr.Layout.Candidates[c.CoveredBy[0]].P)
 			}
 		}
+		// Then, as a person checks a layout with a scale rule, a point at
+		// each spot still beyond the radius (the exact measure), until none
+		// is left; spots in no-go areas cannot take a point.
+		g := pr.Ground(z)
+		for round := 0; round < maxCoverRounds; round++ {
+			added := false
+			if len(pts) == 0 {
+				pts = append(pts, zn.Polygon.Centroid())
+				added = true
+			}
+			for _, sp := range geom.FarthestBySite(g, pts) {
+				if sp.Site < 0 || sp.Dist <= r+coverTol(r) || pr.inNoGo(sp.At) {
+					continue
+				}
+				pts = append(pts, sp.At)
+				added = true
+			}
+			if !added {
+				break
+			}
+		}
 	}
 	return max(len(pts), pr.ZoneMin[z], 1)
+}
+
+// inNoGo reports whether q lies in a no-go area (boundary included).
+func (pr *Prepared) inNoGo(q geom.Point) bool {
+	for _, ng := range pr.In.Scenario.NoGo {
+		if ng.Polygon.Contains(q) {
+			return true
+		}
+	}
+	return false
 }

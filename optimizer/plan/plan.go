@@ -105,6 +105,17 @@ type RuleCheck struct {
 	// NAME: SOURCE", "computed: …" or "default: …".
 	Origin string  `json:"origin,omitempty"`
 	Value  float64 `json:"-"`
+	// FarthestFt and FarthestAt are, for a spacing rule, the exact
+	// farthest ground from the zone's points and where it is (see
+	// geom.Farthest); absent for other rules.
+	FarthestFt float64 `json:"farthest_ft,omitempty"`
+	FarthestAt *XY     `json:"farthest_at,omitempty"`
+}
+
+// XY is a place in the site's local frame, in feet.
+type XY struct {
+	XFt float64 `json:"x_ft"`
+	YFt float64 `json:"y_ft"`
 }
 
 // Coverage summarizes how much of the ground under spacing rules lies within

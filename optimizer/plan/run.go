@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 	"strings"
 	"time"
@@ -81,6 +82,11 @@ type Prepared struct {
 	// computing CoverMin (nil when the zone has no spacing rule or none
 	// was found); the start solution is built from it.
 	CoverSets [][]int
+	// ImpliedRadiusFt is, per zone, the covering radius a count rule
+	// implies where no spacing rule is given (0: none; see ImpliedRadius).
+	ImpliedRadiusFt []float64
+	// Rounds reports the row generation of the last Solve (see exact.go).
+	Rounds CoverageRounds
 	// Timings records how long each stage took (wall time; kept out of
 	// the plan so the plan stays the same from run to run).
 	Timings Timings
@@ -156,18 +162,44 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		pr.Rigs = append(pr.Rigs, rigData{name: name, rig: r, info: info, profiles: map[profileKey]profile{}})
 	}
 
+	// Counting rules: points each zone's count and area rules ask for.
+	pr.ZoneMin = make([]int, len(sc.Zones))
+	for z, zn := range sc.Zones {
+		n := zn.Rules.MinPoints
+		if zn.Rules.AreaPerPointFt2 > 0 {
+			if k := int(math.Ceil(zn.Polygon.Area()/zn.Rules.AreaPerPointFt2 - 1e-9)); k > n {
+				n = k
+			}
+		}
+		pr.ZoneMin[z] = n
+	}
+
 	// Candidates and coverage.
 	zin := make([]candidates.ZoneInput, len(sc.Zones))
+	pr.ImpliedRadiusFt = make([]float64, len(sc.Zones))
 	for z, zn := range sc.Zones {
 		cand := 0.0
-		if zn.Rules.MaxSpacingFt == 0 && zn.Rules.AreaPerPointFt2 > 0 {
+		spacing, lattice := zn.Rules.MaxSpacingFt, string(zn.Rules.Lattice)
+		if spacing == 0 && zn.Rules.AreaPerPointFt2 > 0 {
 			// No spacing rule: lay candidates at half the spacing of a
 			// square grid with one point per the rule's area.
 			cand = 0.5 * math.Sqrt(zn.Rules.AreaPerPointFt2)
 		}
+		if spacing == 0 && pr.ZoneMin[z] > 0 && !zn.Rules.NoSpread {
+			// A count rule spreads its points: see ImpliedRadius.
+			r := ImpliedRadius(zn.Polygon.Area(), pr.ZoneMin[z])
+			pr.ImpliedRadiusFt[z] = r
+			spacing, lattice = r*math.Sqrt2, string(scenarios.Square)
+			// A quarter of the spacing: with few points each one's place
+			// matters, and half the spacing can leave no pair of
+			// candidates that meets the radius on a small zone.
+			if cand == 0 || cand > 0.25*spacing {
+				cand = 0.25 * spacing
+			}
+		}
 		zin[z] = candidates.ZoneInput{
 			ID: zn.ID, Polygon: zn.Polygon,
-			SpacingFt: zn.Rules.MaxSpacingFt, Lattice: string(zn.Rules.Lattice),
+			SpacingFt: spacing, Lattice: lattice,
 			CandidateSpacingFt: cand,
 			Corners:            zn.Rules.Corners, Required: zn.Rules.RequiredPoints,
 			Weight: zn.Priority,
@@ -285,24 +317,8 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		// A corner candidate exists only when the zone's rule asks for a
 		// point at each corner (Rules.Corners), so it is required too.
 		spec.Required[p] = c.Required || c.Corner
-		zn := sc.Zones[c.Zone]
-		for ri := range pr.Rigs {
-			rd := &pr.Rigs[ri]
-			for _, m := range allMethods {
-				prof, ok := rd.profiles[profileKey{c.Zone, m}]
-				if !ok || !prof.answer.Feasible {
-					continue
-				}
-				pr.Options = append(pr.Options, optionData{point: p, zone: c.Zone, method: m, rig: ri, depth: depthFor(zn, m), prof: prof})
-				spec.Options = append(spec.Options, model.Option{
-					Point: p, Rig: ri, Sampled: m.Sampled(),
-					Cost: prof.cost, Hours: prof.answer.Hours.Total() + prof.move,
-					Label: fmt.Sprintf("%s_%s", m, rd.name),
-				})
-			}
-		}
+		pr.appendOptions(spec, p)
 	}
-	pr.ZoneMin = make([]int, len(sc.Zones))
 	t0 = time.Now()
 	pr.CoverMin, pr.CoverSets, err = coverNumbers(ctx, pr, spec)
 	pr.Timings.add("zone covering numbers", t0)
@@ -310,13 +326,7 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		return nil, err
 	}
 	for z, zn := range sc.Zones {
-		n := zn.Rules.MinPoints
-		if zn.Rules.AreaPerPointFt2 > 0 {
-			if k := int(math.Ceil(zn.Polygon.Area()/zn.Rules.AreaPerPointFt2 - 1e-9)); k > n {
-				n = k
-			}
-		}
-		pr.ZoneMin[z] = n
+		n := pr.ZoneMin[z]
 		spec.Zones = append(spec.Zones, model.Zone{Name: zn.Name, MinCount: max(n, pr.CoverMin[z]), SampledShare: zn.Rules.SampledShare})
 	}
 	for _, rd := range pr.Rigs {
@@ -325,6 +335,13 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 	if err := checkRoom(pr, spec); err != nil {
 		return nil, err
 	}
+	t0 = time.Now()
+	pr.Spec = spec
+	spec.CoverRows = slices.Clone(spec.CoverRows)
+	if err := pr.preloadRows(ctx); err != nil {
+		return nil, err
+	}
+	pr.Timings.add("exact coverage of the zone covers", t0)
 	t0 = time.Now()
 	m, err := model.Build(spec)
 	pr.Timings.add("model build", t0)
@@ -336,6 +353,43 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 	}
 	pr.Spec, pr.Model = spec, m
 	return pr, nil
+}
+
+// ImpliedRadius is the covering radius a zone of area a ft² with a rule of
+// n points is held to when it has no spacing rule, so that its points are
+// spread over it rather than bunched: √(a/n), the side of the square of
+// ground each point stands for. A square grid of one point per a/n would
+// leave √(a/n)/√2; the √2 of slack lets n points meet it on compact zones
+// with room to follow their shape (our choice, not a published rule; on a
+// long thin zone it can ask for more than n points, which is what spreading
+// them along it takes). A scenario turns it off per zone with spread: false.
+func ImpliedRadius(areaFt2 float64, n int) float64 {
+	if n <= 0 || !(areaFt2 > 0) {
+		return 0
+	}
+	return math.Sqrt(areaFt2 / float64(n))
+}
+
+// appendOptions adds candidate p's options — every method its zone allows
+// with every rig that can do it there — to pr.Options and spec.Options.
+func (pr *Prepared) appendOptions(spec *model.Spec, p int) {
+	c := pr.Layout.Candidates[p]
+	zn := pr.In.Scenario.Zones[c.Zone]
+	for ri := range pr.Rigs {
+		rd := &pr.Rigs[ri]
+		for _, m := range allMethods {
+			prof, ok := rd.profiles[profileKey{c.Zone, m}]
+			if !ok || !prof.answer.Feasible {
+				continue
+			}
+			pr.Options = append(pr.Options, optionData{point: p, zone: c.Zone, method: m, rig: ri, depth: depthFor(zn, m), prof: prof})
+			spec.Options = append(spec.Options, model.Option{
+				Point: p, Rig: ri, Sampled: m.Sampled(),
+				Cost: prof.cost, Hours: prof.answer.Hours.Total() + prof.move,
+				Label: fmt.Sprintf("%s_%s", m, rd.name),
+			})
+		}
+	}
 }
 
 // zoneMethods lists the methods a zone allows that a rig performs, in the

@@ -85,6 +85,9 @@ func FromPrepared(ctx context.Context, pr *plan.Prepared, cfg Config) (*Analyzer
 	}
 	o.sum.Note = "least cost meeting every rule"
 	a.cheapest = o
+	// The rest of the analysis works on the model with the covering rows
+	// the cheapest plan's exact check added.
+	a.pr = o.pr
 	return a, nil
 }
 

@@ -146,10 +146,34 @@ func (a *Analyzer) Frontier(ctx context.Context) (*Frontier, error) {
 		return nil, err
 	}
 	f.FastestDays, f.FastestBound = sf.FastestDays, sf.FastestBound
-	for _, p := range sf.Points {
-		cp := *pr
-		cp.Spec, cp.Model = p.Model.Spec, p.Model
-		sum, err := summarize(&cp, p.Result, a.cfg.FeatureDiameterFt, "")
+	// Each point's plan is completed to the exact coverage rule (rows at
+	// the spots its cells missed, re-solved from it), as every plan is.
+	done, err := runAll(ctx, a.st.Workers, func() []func(context.Context) (*outcome, error) {
+		jobs := make([]func(context.Context) (*outcome, error), len(sf.Points))
+		for k, p := range sf.Points {
+			jobs[k] = func(ctx context.Context) (*outcome, error) {
+				cp := *pr
+				cp.Spec, cp.Model = p.Model.Spec, p.Model
+				if p.Result.X == nil {
+					return &outcome{pr: &cp, res: p.Result}, nil
+				}
+				opt := a.st.mip()
+				opt.Start = p.Result.X
+				cov, res, _, err := cp.CompleteCoverage(ctx, p.Result, opt)
+				if err != nil {
+					return nil, err
+				}
+				return &outcome{pr: cov, res: res}, nil
+			}
+		}
+		return jobs
+	}())
+	if err != nil {
+		return nil, err
+	}
+	for k, p := range sf.Points {
+		p.Model, p.Result = done[k].pr.Model, done[k].res
+		sum, err := summarize(done[k].pr, p.Result, a.cfg.FeatureDiameterFt, "")
 		if err != nil {
 			return nil, err
 		}

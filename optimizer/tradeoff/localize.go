@@ -89,27 +89,49 @@ func carryPlan(pr *plan.Prepared, x []float64, v *plan.Prepared) []float64 {
 // no localized plan or no LP bound — and the caller solves the whole site.
 func (a *Analyzer) localized(ctx context.Context, v *plan.Prepared, z int, change string, base float64) (*Relaxation, error) {
 	start := carryPlan(a.pr, a.cheapest.res.X, v)
-	full := v.Model.Problem
-	sub := *full
-	sub.LP.ColLo = append([]float64(nil), full.LP.ColLo...)
-	sub.LP.ColUp = append([]float64(nil), full.LP.ColUp...)
-	for o, op := range v.Spec.Options {
-		if v.Spec.PointZone[op.Point] == z {
-			continue
+	fixed := make([]float64, len(start))
+	copy(fixed, start)
+	var res *mip.Result
+	// The zone's plan is completed to the exact coverage rule as every
+	// plan is: rows at the spots its cells missed, re-solved (other zones
+	// stay fixed as in the cheapest plan, which meets their rules).
+	for round := 0; ; round++ {
+		full := v.Model.Problem
+		sub := *full
+		sub.LP.ColLo = append([]float64(nil), full.LP.ColLo...)
+		sub.LP.ColUp = append([]float64(nil), full.LP.ColUp...)
+		for o, op := range v.Spec.Options {
+			if v.Spec.PointZone[op.Point] == z {
+				continue
+			}
+			j := v.Model.XCol[o]
+			x := math.Max(sub.LP.ColLo[j], math.Min(sub.LP.ColUp[j], math.Round(fixed[j])))
+			sub.LP.ColLo[j], sub.LP.ColUp[j] = x, x
 		}
-		j := v.Model.XCol[o]
-		x := math.Max(sub.LP.ColLo[j], math.Min(sub.LP.ColUp[j], math.Round(start[j])))
-		sub.LP.ColLo[j], sub.LP.ColUp[j] = x, x
+		opt := a.st.mip()
+		opt.Start = start
+		var err error
+		if res, err = mip.Solve(ctx, &sub, opt); err != nil {
+			return nil, err
+		}
+		if res.X == nil {
+			return nil, nil
+		}
+		next, rows, err := v.AddSpotRows(res.X)
+		if err != nil {
+			return nil, err
+		}
+		if rows == 0 {
+			break
+		}
+		if round >= 40 || ctx.Err() != nil {
+			return nil, nil
+		}
+		start = plan.MapStart(v.Model, next.Model, res.X)
+		fixed = plan.MapStart(v.Model, next.Model, fixed)
+		v = next
 	}
-	opt := a.st.mip()
-	opt.Start = start
-	res, err := mip.Solve(ctx, &sub, opt)
-	if err != nil {
-		return nil, err
-	}
-	if res.X == nil {
-		return nil, nil
-	}
+	full := v.Model.Problem
 	bnd, err := lp.Solve(&full.LP, lp.Options{})
 	if err != nil || bnd.Status != lp.Optimal {
 		return nil, nil

@@ -117,7 +117,7 @@ func (a *Analyzer) RuleCosts(ctx context.Context) ([]RuleCost, error) {
 			s1 := r.MaxSpacingFt * SpacingStep
 			jobs = append(jobs,
 				job{i, true, viaPrepare(z, fmt.Sprintf("spacing %.0f → %.1f ft", r.MaxSpacingFt, s1), func(r *scenarios.Rules) { r.MaxSpacingFt = s1 })},
-				job{i, false, viaPrepare(z, "no spacing rule", func(r *scenarios.Rules) { r.MaxSpacingFt = 0 })})
+				job{i, false, viaPrepare(z, "no spacing rule", func(r *scenarios.Rules) { r.MaxSpacingFt, r.NoSpread = 0, true })})
 		}
 		if n := pr.ZoneMin[z]; n > 0 {
 			i := add(RuleCost{Zone: zn.ID, Rule: "minimum points", Required: fmt.Sprintf("≥ %d", n)})

@@ -173,7 +173,7 @@ func solveCheapest(ctx context.Context, pr *plan.Prepared, st Settings, featureF
 
 // solveWith is solveVariant with the engine options given.
 func solveWith(ctx context.Context, pr *plan.Prepared, opt mip.Options, featureFt float64, label string) (*outcome, error) {
-	res, err := mip.Solve(ctx, pr.Model.Problem, opt)
+	pr, res, _, err := pr.SolveCovered(ctx, opt)
 	if err != nil {
 		return nil, err
 	}

@@ -355,7 +355,7 @@ func TestRuleCosts(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		res, err := mip.Solve(context.Background(), pr.Model.Problem, mip.Options{GapRel: 1e-6})
+		pr, res, _, err := pr.SolveCovered(context.Background(), mip.Options{GapRel: 1e-6})
 		if err != nil || res.X == nil {
 			t.Fatalf("re-plan: %v %v", res.Status, err)
 		}
