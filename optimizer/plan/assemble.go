@@ -354,7 +354,6 @@ func round(v float64, places int) float64 {
 	return r
 }
 
-
 // excluded lists, zone by zone, the method and rig pairs the zone allows but
 // the rig cannot do there, with the rig's reason.
 func (pr *Prepared) excluded() []Excluded {

@@ -200,7 +200,7 @@ func TestStripsAtAnyAngle(t *testing.T) {
 	for _, deg := range []float64{0, 4, 30, 45, 90} {
 		for _, w := range []float64{40, 20} {
 			t.Run(fmt.Sprintf("%g ft wide at %g°", w, deg), func(t *testing.T) {
-				strip := turned(poly(550, 1000, 1450, 1000, 1450, 1000 + w, 550, 1000 + w), deg, c)
+				strip := turned(poly(550, 1000, 1450, 1000, 1450, 1000+w, 550, 1000+w), deg, c)
 				data := siteYAML("[[0, 0], [2000, 0], [2000, 2000], [0, 2000]]",
 					zoneYAML("RD", strip, "max_spacing: 300, lattice: triangular"), "")
 				p := checkCoverage(t, generatedInput(t, data), 200)
