@@ -80,6 +80,12 @@ const alongNote = " Spacing is along the alignment; on a square lattice a narrow
 	"lets points lie up to √2 times the spacing apart along its centre line, so model " +
 	"the alignment so that the along-line distance is checked."
 
+// ufcRoadNote says where in UFC 3-250-12N the road spacing is: the number
+// was checked against a stored copy of the document's text.
+const ufcRoadNote = "UFC 3-250-12N is Design: Pavements (8 June 2005, since cancelled), Section 2, " +
+	"exploratory borings: the maximum spacing along the centre lines of proposed roads is 300 ft, " +
+	"100 ft or less in widely varying soils; the same section asks at least 6 ft below finished grade in cuts."
+
 // presets lists every preset, in name order (checked by a test).
 var presets = []Preset{
 	{
@@ -195,13 +201,15 @@ var presets = []Preset{
 		Name: "ufc-road", Title: "Roads: at most 300 ft apart along the centre line",
 		MaxSpacingFt: 300, Lattice: "square",
 		Source: SourceUFCRoads, Tag: TagSeen,
-		Note: "At most 300 ft along the centre line; at most 100 ft where soils vary (ufc-road-variable)." + alongNote,
+		Note: "At most 300 ft along the centre line; at most 100 ft where soils vary (ufc-road-variable). " +
+			ufcRoadNote + alongNote,
 	},
 	{
 		Name: "ufc-road-variable", Title: "Roads where soils vary: at most 100 ft apart",
 		MaxSpacingFt: 100, Lattice: "square",
 		Source: SourceUFCRoads, Tag: TagSeen,
-		Note: "At most 100 ft along the centre line where soils vary; 300 ft otherwise (ufc-road)." + alongNote,
+		Note: "At most 100 ft along the centre line where soils vary; 300 ft otherwise (ufc-road). " +
+			ufcRoadNote + alongNote,
 	},
 	{
 		Name: "ufgs-unknown-site", Title: "Site of unknown ground, preliminary: about 200 ft centres, 30 ft deep",
