@@ -48,7 +48,7 @@ func BuildingDepth(ruleFt, rockFt float64) (depthFt float64, governs, basis stri
 	const src = "common practice: buildings at least about 20–25 ft or to refusal; the deeper end, 25 ft, taken"
 	switch {
 	case ruleFt >= BuildingMinDepthFt:
-		return ruleFt, GovernsRule, fmt.Sprintf("the rule's %.1f ft is past the %g ft minimum (%s)", ruleFt, BuildingMinDepthFt, src), nil
+		return ruleFt, GovernsRule, fmt.Sprintf("deeper than the %g ft building minimum (common practice)", BuildingMinDepthFt), nil
 	case rockFt > 0 && rockFt < BuildingMinDepthFt:
 		d := math.Max(ruleFt, rockFt)
 		return d, GovernsRefusal, fmt.Sprintf("to rock (refusal) at %.1f ft, above the %g ft minimum (%s)", rockFt, BuildingMinDepthFt, src), nil
