@@ -409,6 +409,7 @@ var labKinds = []struct {
 	{"tube", lab.Tube},
 	{"bag", lab.Bag},
 	{"bulk", lab.Bulk},
+	{"analytical", lab.Analytical},
 }
 
 // labProgram reads the top-level lab key: absent (nil, the default

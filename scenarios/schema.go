@@ -148,6 +148,7 @@ var schema = mapping(map[string]*keys{
 		"tube":         labShares,
 		"bag":          labShares,
 		"bulk":         labShares,
+		"analytical":   labShares,
 	})),
 })
 

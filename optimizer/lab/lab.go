@@ -65,10 +65,16 @@ const (
 	// a split barrel's sample is too small for (common practice). A
 	// program's BulkPerPoint says how many each sampled point gives.
 	Bulk Kind = "bulk"
+	// Analytical is a sample jarred for the environmental analytical
+	// list; a program's AnalyticalPerPoint says how many each sampled
+	// point gives (common practice: two a boring — the interval field
+	// screening marks as most affected, and the deepest or the one at the
+	// water table).
+	Analytical Kind = "analytical"
 )
 
 // Kinds lists the sample kinds in the order quantities are summed.
-func Kinds() []Kind { return []Kind{SplitBarrel, Tube, Bag, Bulk} }
+func Kinds() []Kind { return []Kind{SplitBarrel, Tube, Bag, Bulk, Analytical} }
 
 // Soil is the soil group a test applies to.
 type Soil string
@@ -162,6 +168,9 @@ type Program struct {
 	// BulkPerPoint is the number of bulk samples each sampled point
 	// (boring or test pit) gives for the program's bulk tests; 0: none.
 	BulkPerPoint float64
+	// AnalyticalPerPoint is the number of samples each sampled point sends
+	// for the analytical list; 0: none.
+	AnalyticalPerPoint float64
 	// TubesBetweenSPT asks for a thin-walled tube sample at each position
 	// between split-barrel samples in a boring (TxDOT LRFD Geotechnical
 	// Manual, 2024: where cohesive soils are observed, tubes at the
@@ -275,7 +284,9 @@ func order(key string) int {
 	return len(catalog)
 }
 
-func knownKind(k Kind) bool { return k == SplitBarrel || k == Tube || k == Bag || k == Bulk }
+func knownKind(k Kind) bool {
+	return k == SplitBarrel || k == Tube || k == Bag || k == Bulk || k == Analytical
+}
 
 // Check reports what is wrong with a program, or nil: an unknown kind or
 // test, a share outside 0..1, a test listed twice for one kind.
@@ -289,6 +300,9 @@ func (p *Program) Check() error {
 	if !(p.BulkPerPoint >= 0) || math.IsInf(p.BulkPerPoint, 0) {
 		return fmt.Errorf("lab: bulk samples per point %v: want a number ≥ 0", p.BulkPerPoint)
 	}
+	if !(p.AnalyticalPerPoint >= 0) || math.IsInf(p.AnalyticalPerPoint, 0) {
+		return fmt.Errorf("lab: analytical samples per point %v: want a number ≥ 0", p.AnalyticalPerPoint)
+	}
 	kinds := make([]string, 0, len(p.PerSample))
 	for k := range p.PerSample {
 		kinds = append(kinds, string(k))
@@ -297,7 +311,7 @@ func (p *Program) Check() error {
 	for _, ks := range kinds {
 		k := Kind(ks)
 		if !knownKind(k) {
-			return fmt.Errorf("lab: unknown sample kind %q (want split-barrel, tube, bag or bulk)", k)
+			return fmt.Errorf("lab: unknown sample kind %q (want split-barrel, tube, bag, bulk or analytical)", k)
 		}
 		seen := map[string]bool{}
 		for _, t := range p.PerSample[k] {
@@ -323,6 +337,7 @@ type Counts struct {
 	Tube        float64 // thin-walled tube samples (tube-sample)
 	Bag         float64 // bag samples from test pits
 	Bulk        float64 // bulk samples for compaction, bearing-ratio and permeability tests
+	Analytical  float64 // samples sent for the environmental analytical list
 }
 
 // Of returns the count of kind k.
@@ -336,13 +351,16 @@ func (c Counts) Of(k Kind) float64 {
 		return c.Bag
 	case Bulk:
 		return c.Bulk
+	case Analytical:
+		return c.Analytical
 	}
 	return 0
 }
 
 // Add returns the sum of two counts.
 func (c Counts) Add(d Counts) Counts {
-	return Counts{SplitBarrel: c.SplitBarrel + d.SplitBarrel, Tube: c.Tube + d.Tube, Bag: c.Bag + d.Bag, Bulk: c.Bulk + d.Bulk}
+	return Counts{SplitBarrel: c.SplitBarrel + d.SplitBarrel, Tube: c.Tube + d.Tube, Bag: c.Bag + d.Bag, Bulk: c.Bulk + d.Bulk,
+		Analytical: c.Analytical + d.Analytical}
 }
 
 // Rate-book items rigs report samples in (the ratebooks package's

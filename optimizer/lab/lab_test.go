@@ -278,7 +278,7 @@ func TestCountsFromQuantities(t *testing.T) {
 	if got := CountsFromQuantities(qs); got != (Counts{SplitBarrel: 17, Tube: 2}) {
 		t.Errorf("CountsFromQuantities = %+v", got)
 	}
-	if got := (Counts{1, 2, 3, 4}).Add(Counts{10, 20, 30, 40}); got != (Counts{11, 22, 33, 44}) {
+	if got := (Counts{1, 2, 3, 4, 5}).Add(Counts{10, 20, 30, 40, 50}); got != (Counts{11, 22, 33, 44, 55}) {
 		t.Errorf("Add = %+v", got)
 	}
 }

@@ -67,8 +67,9 @@ var purposeSources = map[Purpose]string{
 	SoftGround: "tube samples between the SPT samples where cohesive soil is met (TxDOT LRFD Geotechnical " +
 		"Manual, 2024); on them, common practice: consolidation (ASTM D2435) on 1 in 3, UU triaxial on 1 in 3, " +
 		"Atterberg limits and hydrometer on 1 in 3",
-	Environmental: "common practice: the site's analytical list on 1 in 2 samples, priced as one lump sum per " +
-		"sample; moisture content on every sample; geotechnical index tests left to the geotechnical zones",
+	Environmental: "common practice: the site's analytical list on two samples a sampled point (the interval " +
+		"field screening marks as most affected, and the deepest or the one at the water table), priced as one " +
+		"lump sum per sample; moisture content on every sample; geotechnical index tests left to the geotechnical zones",
 	Earthwork: "common practice: one bulk sample per sampled point, classified (sieve, Atterberg limits); " +
 		"standard Proctor (ASTM D698) on 1 in 3 bulk samples, at least one",
 }
@@ -100,9 +101,10 @@ func purposeProgram(p Purpose) *Program {
 				must("consolidation", 1.0/3), must("uu", 1.0/3)},
 		}}
 	case Environmental:
-		return &Program{Name: string(p), FineShare: 1, PerSample: map[Kind][]Test{
-			SplitBarrel: {must("moisture", 1), must("analytical", 1.0/2)},
-			Bag:         {must("moisture", 1), must("analytical", 1.0/2)},
+		return &Program{Name: string(p), FineShare: 1, AnalyticalPerPoint: 2, PerSample: map[Kind][]Test{
+			SplitBarrel: {must("moisture", 1)},
+			Bag:         {must("moisture", 1)},
+			Analytical:  {must("analytical", 1)},
 		}}
 	case Earthwork:
 		return &Program{Name: string(p), FineShare: 1, BulkPerPoint: 1, PerSample: map[Kind][]Test{
@@ -140,6 +142,7 @@ func ForPurposes(ps []Purpose) (*Program, error) {
 		srcs = append(srcs, string(pu)+" — "+purposeSources[pu])
 		p := purposeProgram(pu)
 		out.BulkPerPoint = math.Max(out.BulkPerPoint, p.BulkPerPoint)
+		out.AnalyticalPerPoint = math.Max(out.AnalyticalPerPoint, p.AnalyticalPerPoint)
 		out.TubesBetweenSPT = out.TubesBetweenSPT || p.TubesBetweenSPT
 		for _, k := range Kinds() {
 			for _, t := range p.PerSample[k] {
@@ -174,7 +177,8 @@ func (p *Program) share(k Kind, key string) float64 {
 }
 
 // Derived completes the samples one point recovers with those the program
-// adds: BulkPerPoint bulk samples at a sampled point, and with
+// adds: BulkPerPoint bulk samples and AnalyticalPerPoint samples for the
+// analytical list at a sampled point, and with
 // TubesBetweenSPT a tube at each position between two split-barrel samples
 // of a boring (one fewer than the split-barrel samples). It returns the
 // counts and the field quantities the added tubes cost (rate-book item
@@ -185,8 +189,9 @@ func (p *Program) Derived(c Counts, sampled, boring bool) (Counts, []sdk.Quantit
 		return c, nil
 	}
 	var qs []sdk.Quantity
-	if sampled && p.BulkPerPoint > 0 {
+	if sampled {
 		c.Bulk += p.BulkPerPoint
+		c.Analytical += p.AnalyticalPerPoint
 	}
 	if boring && p.TubesBetweenSPT && c.SplitBarrel > 1 {
 		n := c.SplitBarrel - 1

@@ -44,8 +44,8 @@ func TestPurposePrograms(t *testing.T) {
 		// LRFD, 2024), 70 tubes; consolidation (ASTM D2435) on ⌈70/3⌉ = 24.
 		{"soft ground", prog(SoftGround), map[string]float64{ItemConsolidation: 24, ItemUU: 24},
 			[]string{ItemCBR, ItemPermeability}},
-		// Environmental: the analytical list on 1 in 2 samples, 40.
-		{"environmental", prog(Environmental), map[string]float64{ItemAnalytical: 40, ItemMoisture: 80},
+		// Environmental: the analytical list on two samples a point, 20.
+		{"environmental", prog(Environmental), map[string]float64{ItemAnalytical: 20, ItemMoisture: 80},
 			[]string{ItemSieve, ItemHydrometer}},
 		// Foundation: the default program; hydrometer on 1 in 10: 8.
 		{"foundation", prog(Foundation), map[string]float64{ItemHydrometer: 8, ItemSieve: 27},

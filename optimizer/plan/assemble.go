@@ -111,7 +111,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		rigBy[i] = map[string]int{}
 	}
 	chosenPoint := make([]bool, len(pr.Layout.Candidates))
-	var labCounts lab.Counts
+	labCounts := make([]lab.Counts, len(sc.Zones))
 	for k, o := range sol.Chosen {
 		od := pr.Options[o]
 		c := pr.Layout.Candidates[od.point]
@@ -126,6 +126,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		}
 		if od.method == sdk.Boring {
 			pt.SampleIntervalFt = zn.Rules.SampleIntervalFt
+			pt.Sampling = sdk.DescribeSchedule(sdk.ScheduleOf(sdk.Site{SampleIntervalFt: zn.Rules.SampleIntervalFt, SampleSchedule: zn.Rules.SampleSchedule}))
 		}
 		if frame != nil {
 			lon, lat := frame.ToLonLat(c.P)
@@ -134,7 +135,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		}
 		p.Points = append(p.Points, pt)
 		addQ(od.prof.answer.Quantities, 1)
-		labCounts = labCounts.Add(od.prof.lab)
+		labCounts[od.zone] = labCounts[od.zone].Add(od.prof.lab)
 		chosenPoint[od.point] = true
 		zoneCount[od.zone]++
 		if od.method.Sampled() {
@@ -150,7 +151,20 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 			p.Warnings = append(p.Warnings, pitWarnings(pt.ID, od.depth)...)
 		}
 	}
-	labQ, err := labProgram(sc).Quantities(labCounts)
+	// The lab program by zone: each zone's samples get its purposes'
+	// tests; the totals are rounded up once over the plan.
+	parts := make([]lab.Part, len(sc.Zones))
+	for z, zn := range sc.Zones {
+		prog, err := labProgram(sc, z)
+		if err != nil {
+			return nil, err
+		}
+		parts[z] = lab.Part{Label: zn.ID, Program: prog, Counts: labCounts[z]}
+		if labCounts[z] != (lab.Counts{}) {
+			p.Lab = append(p.Lab, LabBasis{Zone: zn.ID, Program: prog.Name, Basis: prog.Source})
+		}
+	}
+	labQ, err := lab.Combine(parts)
 	if err != nil {
 		return nil, err
 	}
