@@ -1,0 +1,111 @@
+package plan
+
+import (
+	"context"
+	"strings"
+	"testing"
+
+	"github.com/rigmix/rigmix/plugins/sdk"
+	"github.com/rigmix/rigmix/scenarios"
+)
+
+// purposeSite has a parking lot, a detention pond and a building over a
+// soft corner, explored by borings only (invented test data).
+const purposeSite = `units: ft
+name: purposes
+boundary:
+  polygon: [[0, 0], [600, 0], [600, 300], [0, 300]]
+zones:
+  - id: LOT
+    use: pavement
+    polygon: [[0, 0], [200, 0], [200, 300], [0, 300]]
+    ground: {surface: firm}
+    rules: {max_spacing: 150, min_depth: 10, methods: [boring]}
+  - id: POND
+    use: open
+    purpose: [pond]
+    polygon: [[200, 0], [400, 0], [400, 300], [200, 300]]
+    ground: {surface: firm}
+    rules: {max_spacing: 150, min_depth: 15, methods: [boring]}
+  - id: SOFT
+    use: structure
+    purpose: [foundation, soft_ground]
+    polygon: [[400, 0], [600, 0], [600, 300], [400, 300]]
+    structure: {stories: 2, load_class: light}
+    ground: {surface: firm, groundwater_depth: 8}
+    rules: {max_spacing: 150, min_depth: {from: stories}, methods: [boring]}
+rigs: [tire-drill]
+rate_book: valley-2026
+yard_miles: 20
+`
+
+// TestLabByPurpose: a pavement zone gets compaction (ASTM D698) and CBR
+// (ASTM D1883) tests, a pond permeability (ASTM D5084) and infiltration
+// (ASTM D3385) tests, a soft zone tube samples between the SPT samples and
+// consolidation (ASTM D2435) on them (the programs' shares are common
+// practice; the tubes between SPT samples are the TxDOT LRFD Geotechnical
+// Manual's, 2024). Sampling follows the default schedule, every 2.5 ft to
+// 10 ft then every 5 ft (common practice; ASTM D1586 sets no interval).
+func TestLabByPurpose(t *testing.T) {
+	sc, err := scenarios.Parse([]byte(purposeSite), "purposes.yaml", nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, err := Run(context.Background(), scenarioInput(t, sc), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	qty := map[string]float64{}
+	for _, l := range p.Estimate {
+		qty[l.Item] = l.Quantity
+	}
+	for _, item := range []string{"lab-proctor", "lab-cbr", "lab-permeability", "field-infiltration", "lab-consolidation", "tube-sample"} {
+		if qty[item] < 1 {
+			t.Errorf("no %s in the estimate: %v", item, qty)
+		}
+	}
+	// SPT samples follow the schedule: each boring's count from
+	// sdk.SampleDepths on the default schedule; tubes one fewer per boring
+	// in the soft zone.
+	wantSPT, wantTubes := 0, 0
+	byZone := map[string]int{}
+	for _, pt := range p.Points {
+		if pt.Method != string(sdk.Boring) {
+			continue
+		}
+		if pt.Sampling != "every 2.5 ft to 10 ft, then every 5 ft" {
+			t.Errorf("%s: sampling %q", pt.ID, pt.Sampling)
+		}
+		n := len(sdk.SampleDepths(pt.DepthFt, sdk.DefaultSampleSchedule()))
+		wantSPT += n
+		if pt.Zone == "SOFT" {
+			wantTubes += n - 1
+		}
+		byZone[pt.Zone]++
+	}
+	if qty["spt-sample"] != float64(wantSPT) || qty["tube-sample"] != float64(wantTubes) {
+		t.Errorf("spt-sample %g, tube-sample %g; want %d and %d from the schedule", qty["spt-sample"], qty["tube-sample"], wantSPT, wantTubes)
+	}
+	// Proctor and CBR on 1 in 3 bulk samples, one a boring in the lot;
+	// permeability on 1 in 2 in the pond (common practice).
+	if want := float64((byZone["LOT"] + 2) / 3); qty["lab-cbr"] != want {
+		t.Errorf("lab-cbr %g, want ⌈%d/3⌉ = %g", qty["lab-cbr"], byZone["LOT"], want)
+	}
+	// The soft zone is a two-story light building: 3·2^0.7 m = 16 ft by
+	// Sowers, raised to the 25 ft building minimum (common practice).
+	for _, pt := range p.Points {
+		if pt.Zone == "SOFT" && pt.DepthFt < 25 {
+			t.Errorf("%s: %g ft, under the 25 ft building minimum", pt.ID, pt.DepthFt)
+		}
+	}
+	got := map[string]string{}
+	for _, l := range p.Lab {
+		got[l.Zone] = l.Program
+		if !strings.Contains(l.Basis, "common practice") {
+			t.Errorf("%s: basis %q", l.Zone, l.Basis)
+		}
+	}
+	if got["LOT"] != "pavement" || got["POND"] != "pond" || got["SOFT"] != "foundation+soft_ground" {
+		t.Errorf("lab programs %v", got)
+	}
+}
