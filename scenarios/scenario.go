@@ -46,8 +46,9 @@ type Scenario struct {
 	TimeLimitS float64  // solve time limit, seconds (0: none)
 
 	// Lab is the program of laboratory tests priced on the samples the
-	// plan recovers; nil means lab.Default(). A file's "lab: none" gives
-	// lab.None().
+	// plan recovers, for every zone; nil means each zone's samples get
+	// the program of its purposes (lab.ForPurposes(zone.Purposes)). A
+	// file's "lab: none" gives lab.None().
 	Lab *lab.Program
 }
 
