@@ -156,6 +156,9 @@ func ForPurposes(ps []Purpose) (*Program, error) {
 	}
 	out.Name = strings.Join(names, "+")
 	out.Source = strings.Join(srcs, "; ")
+	if len(names) == 1 {
+		out.Source = purposeSources[Purpose(names[0])]
+	}
 	return out, out.Check()
 }
 

@@ -121,14 +121,14 @@ func SampleDepths(depthFt float64, bands []SampleBand) []float64 {
 	return out
 }
 
-// DescribeSchedule writes a schedule for people: "every 2.5 ft to 10 ft,
-// then every 5 ft".
+// DescribeSchedule writes a schedule for people, to four significant
+// figures: "every 2.5 ft to 10 ft, then every 5 ft".
 func DescribeSchedule(bands []SampleBand) string {
 	parts := make([]string, len(bands))
 	for i, b := range bands {
-		p := fmt.Sprintf("every %g ft", b.EveryFt)
+		p := fmt.Sprintf("every %.4g ft", b.EveryFt)
 		if b.ToFt > 0 {
-			p += fmt.Sprintf(" to %g ft", b.ToFt)
+			p += fmt.Sprintf(" to %.4g ft", b.ToFt)
 		}
 		if i > 0 {
 			p = "then " + p

@@ -24,6 +24,10 @@ func TestDefaultSampleSchedule(t *testing.T) {
 	if s := sdk.DescribeSchedule(sdk.DefaultSampleSchedule()); s != "every 2.5 ft to 10 ft, then every 5 ft" {
 		t.Errorf("DescribeSchedule = %q", s)
 	}
+	// 1.5 m in feet, to four figures (1 ft = 0.3048 m).
+	if s := sdk.DescribeSchedule([]sdk.SampleBand{{EveryFt: 1.5 / 0.3048}}); s != "every 4.921 ft" {
+		t.Errorf("DescribeSchedule(1.5 m) = %q", s)
+	}
 }
 
 func TestSampleDepthsSchedules(t *testing.T) {
