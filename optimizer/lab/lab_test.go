@@ -68,6 +68,7 @@ func TestDefaultProgram(t *testing.T) {
 		{SplitBarrel, "moisture", 1},      // common practice
 		{SplitBarrel, "sieve", 1.0 / 3},   // common practice
 		{SplitBarrel, "atterberg", 0.25},  // common practice
+		{SplitBarrel, "hydrometer", 0.1},  // common practice: classification (ASTM D2487) needs only sieve and limits
 		{SplitBarrel, "consolidation", 0}, // disturbed samples are not consolidated (ASTM D2435 needs an intact specimen)
 		{Bag, "moisture", 1},              // common practice
 		{Tube, "consolidation", 0.1},      // common practice

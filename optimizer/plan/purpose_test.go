@@ -109,3 +109,20 @@ func TestLabByPurpose(t *testing.T) {
 		t.Errorf("lab programs %v", got)
 	}
 }
+
+// TestCautions: the overhead-line caution gives OSHA 29 CFR 1926.1408
+// Table A by voltage (seen), not a single 20 ft, and the utilities caution
+// no longer cites the ASTM D420-18 clause that could not be confirmed.
+func TestCautions(t *testing.T) {
+	all := strings.Join(Cautions, "\n")
+	for _, s := range []string{"1926.1408 Table A", "over 350 to 500 kV 25 ft", "over 750 to 1,000 kV 45 ft", "1926.651(b)"} {
+		if !strings.Contains(all, s) {
+			t.Errorf("cautions lack %q", s)
+		}
+	}
+	for _, s := range []string{"at least 20 ft;", "§1.3.1"} {
+		if strings.Contains(all, s) {
+			t.Errorf("cautions still say %q", s)
+		}
+	}
+}

@@ -107,7 +107,8 @@ var presets = []Preset{
 		Name: "das-highway", Title: "Highways: borings about 250 m apart",
 		MaxSpacingFt: m(250), Lattice: "square",
 		Source: SourceDasSowers, Tag: TagSeen,
-		Note: "Published range 250–500 m (820–1640 ft); the close end, 250 m, is taken as the conservative default." + alongNote,
+		Note: "Published range 250–500 m (820–1640 ft); the close end, 250 m, is taken as the conservative default. " +
+			"UFC 3-250-12N asks at most 300 ft along a road's centre line (ufc-road), the more conservative of the two." + alongNote,
 	},
 	{
 		Name: "das-multistory-building", Title: "Multistory buildings: borings about 10 m apart",
@@ -149,7 +150,8 @@ var presets = []Preset{
 		Source: SourceGEC5, Tag: TagSeen + " (attribution memory)",
 		Note: "Published 30–60 m (98–197 ft) for walls longer than 30 m, alternating in front of and behind " +
 			"the wall; the close end, 30 m, is taken. The values were read; their attribution to GEC-5 is " +
-			"from memory." + alongNote,
+			"from memory. TxDOT asks at most 200 ft (txdot-wall); where the two differ this one is the more " +
+			"conservative." + alongNote,
 	},
 	{
 		Name: "navfac-closely-spaced-footings", Title: "Large structure with closely spaced footings: about 50 ft both ways",
@@ -195,7 +197,8 @@ var presets = []Preset{
 		MaxSpacingFt: 200, Lattice: "square",
 		Source: SourceTxDOT, Tag: TagSeen,
 		Note: "At most 200 ft apart; at least 15 ft below a fill wall base and 20 ft below a cut wall base " +
-			"(TxDOTWallDepth)." + alongNote,
+			"(TxDOTWallDepth). FHWA GEC-5 asks a point every 30–60 m (98–197 ft; fhwa-wall), the more " +
+			"conservative of the two." + alongNote,
 	},
 	{
 		Name: "ufc-road", Title: "Roads: at most 300 ft apart along the centre line",
