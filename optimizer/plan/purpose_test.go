@@ -98,6 +98,17 @@ func TestLabByPurpose(t *testing.T) {
 			t.Errorf("%s: %g ft, under the 25 ft building minimum", pt.ID, pt.DepthFt)
 		}
 	}
+	// The stakeout jobs carry each boring's schedule for the field crew.
+	in := scenarioInput(t, sc)
+	jobs, _, err := ScheduleInputs(context.Background(), p, sc, in.RateBook, in.Rigs)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, j := range jobs {
+		if j.Method == string(sdk.Boring) && j.Sampling != "every 2.5 ft to 10 ft, then every 5 ft" {
+			t.Errorf("job %s: sampling %q", j.ID, j.Sampling)
+		}
+	}
 	got := map[string]string{}
 	for _, l := range p.Lab {
 		got[l.Zone] = l.Program
