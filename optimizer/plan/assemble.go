@@ -10,6 +10,7 @@ import (
 	"github.com/rigmix/rigmix/optimizer/geom"
 	"github.com/rigmix/rigmix/optimizer/lab"
 	"github.com/rigmix/rigmix/optimizer/mip"
+	"github.com/rigmix/rigmix/optimizer/rules"
 	"github.com/rigmix/rigmix/plugins/sdk"
 	"github.com/rigmix/rigmix/scenarios"
 )
@@ -235,6 +236,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		p.Baseline = b
 	}
 	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth, pr.farthestCell(chosenPoint))
+	p.Warnings = append(p.Warnings, shallowBuildingWarnings(sc)...)
 	pb := pr.Model.Problem
 	if math.IsInf(res.Bound, 0) || math.IsNaN(res.Bound) {
 		// Stopped before the root bound: every cost is ≥ 0, so 0 is a
@@ -315,6 +317,23 @@ func zoneIndex(zs []scenarios.Zone, id string) int {
 		}
 	}
 	return -1
+}
+
+// shallowBuildingWarnings flags a structure zone whose stated depth is
+// under the shallow end of the least depth common practice gives buildings
+// (about 20–25 ft or to refusal; rules.BuildingMinDepthLowFt), unless known
+// rock comes first. Depths worked out from stories or a footing already
+// carry the 25 ft minimum.
+func shallowBuildingWarnings(sc *scenarios.Scenario) []string {
+	var w []string
+	for _, zn := range sc.Zones {
+		d := zn.Rules.MinDepthFt
+		if zn.Use != scenarios.UseStructure || d >= rules.BuildingMinDepthLowFt || (zn.Ground.RockFt > 0 && zn.Ground.RockFt <= d) {
+			continue
+		}
+		w = append(w, fmt.Sprintf("zone %s: a structure explored %.1f ft deep, under the least depth common practice gives buildings (about %g–%g ft, or to refusal); the scenario's min_depth governs", zn.ID, d, rules.BuildingMinDepthLowFt, rules.BuildingMinDepthFt))
+	}
+	return w
 }
 
 // pitWarnings flags the excavation safety requirements a test pit of a

@@ -137,3 +137,18 @@ func TestCautions(t *testing.T) {
 		}
 	}
 }
+
+// TestShallowBuildingWarning: a structure zone stated shallower than the
+// common-practice least depth for buildings (about 20–25 ft or to
+// refusal) is flagged; at 20 ft, or with rock above the depth, it is not.
+func TestShallowBuildingWarning(t *testing.T) {
+	zone := func(depth, rock float64) scenarios.Zone {
+		return scenarios.Zone{ID: "B", Use: scenarios.UseStructure, Rules: scenarios.Rules{MinDepthFt: depth}, Ground: scenarios.Ground{RockFt: rock}}
+	}
+	sc := &scenarios.Scenario{Zones: []scenarios.Zone{zone(10, 0), zone(20, 0), zone(10, 8),
+		{ID: "P", Use: scenarios.UsePavement, Rules: scenarios.Rules{MinDepthFt: 5}}}}
+	w := shallowBuildingWarnings(sc)
+	if len(w) != 1 || !strings.Contains(w[0], "10.0 ft deep") || !strings.Contains(w[0], "common practice") {
+		t.Errorf("warnings %q, want one for the 10-ft structure", w)
+	}
+}

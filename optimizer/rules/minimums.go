@@ -25,6 +25,10 @@ const (
 // conservative default.
 const BuildingMinDepthFt = 25.0
 
+// BuildingMinDepthLowFt is the shallow end of that common-practice range,
+// 20 ft: a stated depth under it is flagged.
+const BuildingMinDepthLowFt = 20.0
+
 // Governing names for a depth with a floor.
 const (
 	GovernsRule    = "rule"    // the depth rule itself

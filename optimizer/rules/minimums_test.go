@@ -9,8 +9,8 @@ import (
 // buildings, about 20–25 ft or to refusal, whatever a stress rule gives
 // (common practice; the deeper end, 25 ft, is the default).
 func TestBuildingDepthMinimum(t *testing.T) {
-	if BuildingMinDepthFt < 20 || BuildingMinDepthFt > 25 {
-		t.Fatalf("BuildingMinDepthFt = %g, want within the common-practice 20–25 ft", BuildingMinDepthFt)
+	if BuildingMinDepthLowFt != 20 || BuildingMinDepthFt != 25 {
+		t.Fatalf("building minimum %g–%g ft, want the common-practice 20–25 ft", BuildingMinDepthLowFt, BuildingMinDepthFt)
 	}
 	// A two-story school on 6-ft square footings, 2,500 psf net, 2 ft deep:
 	// the ASCE (1972) criteria (in Das) give well under 20 ft.
