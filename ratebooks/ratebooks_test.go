@@ -2,6 +2,7 @@ package ratebooks
 
 import (
 	"errors"
+	"github.com/rigmix/rigmix/optimizer/lab"
 	"os"
 	"path/filepath"
 	"strings"
@@ -226,5 +227,38 @@ func TestOpen(t *testing.T) {
 	}
 	if _, err := Open("coastal-2025"); err == nil {
 		t.Error("Open of an unknown name succeeded")
+	}
+}
+
+// TestLabItemsAreStandard: every test of the lab programs (package
+// optimizer/lab), and the tube samples soft ground adds, is a standard
+// item priced per test in every demo rate book.
+func TestLabItemsAreStandard(t *testing.T) {
+	items := append([]string{"tube-sample"}, func() []string {
+		var out []string
+		for _, c := range lab.Catalog() {
+			out = append(out, c.Item)
+		}
+		return out
+	}()...)
+	for _, code := range items {
+		if u, ok := standardUnit(code); !ok || u != lab.Unit {
+			t.Errorf("%s: standard unit %q (listed %v), want %q", code, u, ok, lab.Unit)
+		}
+		for _, name := range Demos() {
+			b, err := LoadDemo(name)
+			if err != nil {
+				t.Fatal(err)
+			}
+			found := false
+			for _, it := range b.Items {
+				if it.Code == code {
+					found = it.UnitPrice > 0
+				}
+			}
+			if !found {
+				t.Errorf("demo rate book %s does not price %s", name, code)
+			}
+		}
 	}
 }
