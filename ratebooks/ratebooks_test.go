@@ -2,11 +2,12 @@ package ratebooks
 
 import (
 	"errors"
-	"github.com/rigmix/rigmix/optimizer/lab"
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"github.com/rigmix/rigmix/optimizer/lab"
 )
 
 func TestBadRateBooks(t *testing.T) {
