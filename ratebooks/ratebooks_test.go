@@ -6,6 +6,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"github.com/rigmix/rigmix/optimizer/lab"
 )
 
 func TestBadRateBooks(t *testing.T) {
@@ -157,11 +159,13 @@ func TestDemos(t *testing.T) {
 }
 
 func TestStandardItemsMatchTable(t *testing.T) {
-	// The contract in notes/items.md lists 27 codes, plus the 7 lab test
-	// codes of package optimizer/lab; each unit is one of ft, each, hr,
-	// day, mi.
-	if n := len(StandardCodes()); n != 34 {
-		t.Errorf("%d standard codes, want 34", n)
+	// The contract in notes/items.md lists 27 codes, plus the 13 test
+	// codes of package optimizer/lab (7 index and strength tests, and the
+	// compaction, bearing-ratio, permeability, infiltration and analytical
+	// items of the programs by zone purpose); each unit is one of ft,
+	// each, hr, day, mi.
+	if n := len(StandardCodes()); n != 40 {
+		t.Errorf("%d standard codes, want 40", n)
 	}
 	seen := map[string]bool{}
 	for _, it := range StandardItems() {
@@ -224,5 +228,38 @@ func TestOpen(t *testing.T) {
 	}
 	if _, err := Open("coastal-2025"); err == nil {
 		t.Error("Open of an unknown name succeeded")
+	}
+}
+
+// TestLabItemsAreStandard: every test of the lab programs (package
+// optimizer/lab), and the tube samples soft ground adds, is a standard
+// item priced per test in every demo rate book.
+func TestLabItemsAreStandard(t *testing.T) {
+	items := append([]string{"tube-sample"}, func() []string {
+		var out []string
+		for _, c := range lab.Catalog() {
+			out = append(out, c.Item)
+		}
+		return out
+	}()...)
+	for _, code := range items {
+		if u, ok := standardUnit(code); !ok || u != lab.Unit {
+			t.Errorf("%s: standard unit %q (listed %v), want %q", code, u, ok, lab.Unit)
+		}
+		for _, name := range Demos() {
+			b, err := LoadDemo(name)
+			if err != nil {
+				t.Fatal(err)
+			}
+			found := false
+			for _, it := range b.Items {
+				if it.Code == code {
+					found = it.UnitPrice > 0
+				}
+			}
+			if !found {
+				t.Errorf("demo rate book %s does not price %s", name, code)
+			}
+		}
 	}
 }

@@ -41,6 +41,12 @@ var standardItems = []Item{
 	{Code: "lab-consolidation", Unit: "each", Description: "Laboratory one-dimensional consolidation, incremental loading (ASTM D2435)"},
 	{Code: "lab-ucs", Unit: "each", Description: "Laboratory unconfined compressive strength of cohesive soil (ASTM D2166)"},
 	{Code: "lab-uu", Unit: "each", Description: "Laboratory unconsolidated-undrained triaxial compression (ASTM D2850)"},
+	{Code: "lab-proctor", Unit: "each", Description: "Laboratory compaction, standard effort — standard Proctor (ASTM D698)"},
+	{Code: "lab-proctor-modified", Unit: "each", Description: "Laboratory compaction, modified effort — modified Proctor (ASTM D1557)"},
+	{Code: "lab-cbr", Unit: "each", Description: "Laboratory California bearing ratio of compacted soil (ASTM D1883)"},
+	{Code: "lab-permeability", Unit: "each", Description: "Laboratory hydraulic conductivity, flexible-wall permeameter (ASTM D5084)"},
+	{Code: "field-infiltration", Unit: "each", Description: "Field infiltration rate, double-ring infiltrometer, technician and equipment (ASTM D3385)"},
+	{Code: "lab-analytical", Unit: "each", Description: "Environmental analytical list, lump sum per sample for the list the site's rules name"},
 }
 
 // StandardItems returns the standard item codes with their units and

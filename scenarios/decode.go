@@ -10,6 +10,7 @@ import (
 	"time"
 
 	"github.com/rigmix/rigmix/optimizer/geom"
+	"github.com/rigmix/rigmix/optimizer/lab"
 	"github.com/rigmix/rigmix/optimizer/rules"
 	"github.com/rigmix/rigmix/plugins/sdk"
 	"github.com/rigmix/rigmix/ratebooks"
@@ -777,6 +778,9 @@ func (d *decoder) zone(m map[string]any, p string) (Zone, error) {
 		return z, d.errf(p+".use", "one of: "+strings.Join(uses, ", "), "missing")
 	}
 	z.Use = Use(use)
+	if z.Purposes, err = d.purposes(m, p, z.Use); err != nil {
+		return z, err
+	}
 	if z.Polygon, _, err = d.outline(m, p, true); err != nil {
 		return z, err
 	}
@@ -927,6 +931,12 @@ func (d *decoder) rules(m map[string]any, p string, z *Zone) (Rules, error) {
 	if r.SampleIntervalFt, hasInterval, err = d.length(m, p, "sample_interval", maxIntervalFt, 5, "the sampling interval in borings"); err != nil {
 		return r, err
 	}
+	if r.SampleSchedule, err = d.sampleSchedule(m, p); err != nil {
+		return r, err
+	}
+	if hasInterval && len(r.SampleSchedule) > 0 {
+		return r, d.errf(p+".sample_schedule", "give sample_interval or sample_schedule, not both", "both sample_interval and sample_schedule are given")
+	}
 	if r.Corners, hasCorners, err = d.boolean(m, p, "corners"); err != nil {
 		return r, err
 	}
@@ -962,6 +972,7 @@ func (d *decoder) rules(m map[string]any, p string, z *Zone) (Rules, error) {
 	// preset's, and a preset's over defaults.
 	for key, stated := range map[string]bool{"area_per_point": hasArea, "max_spacing": hasSpacing, "min_points": hasMin,
 		"sampled_share": hasShare && share > 0, "methods": len(r.Methods) > 0, "sample_interval": hasInterval,
+		"sample_schedule": len(r.SampleSchedule) > 0,
 		"required_points": len(r.RequiredPoints) > 0, "lattice": hasLattice, "corners": hasCorners && r.Corners} {
 		if stated {
 			set(key)
@@ -1108,4 +1119,82 @@ func unwrapPathErr(err error) string {
 		return msg[i+2:]
 	}
 	return msg
+}
+
+// purposes reads a zone's purpose list (what its ground is explored for,
+// for the lab program); absent, the purposes its use implies.
+func (d *decoder) purposes(m map[string]any, p string, u Use) ([]lab.Purpose, error) {
+	var known []string
+	for _, pu := range lab.Purposes() {
+		known = append(known, string(pu))
+	}
+	hint := "purposes: " + strings.Join(known, ", ") + "; e.g. purpose: [pavement, soft_ground]"
+	names, ok, err := d.strList(m, p, "purpose", hint)
+	if err != nil {
+		return nil, err
+	}
+	if !ok || len(names) == 0 {
+		return PurposesOf(u), nil
+	}
+	var out []lab.Purpose
+	seen := map[string]bool{}
+	for i, n := range names {
+		ip := fmt.Sprintf("%s.purpose[%d]", p, i)
+		pu, ok := lab.ParsePurpose(n)
+		if !ok {
+			return nil, d.errf(ip, suggestOneOf(n, known), "unknown purpose %q", n)
+		}
+		if seen[n] {
+			return nil, d.errf(ip, "list each purpose once", "%q listed twice", n)
+		}
+		seen[n] = true
+		out = append(out, pu)
+	}
+	return out, nil
+}
+
+// sampleSchedule reads rules.sample_schedule: a list of bands {to: DEPTH,
+// every: INTERVAL} in the file unit, shallowest first; the last may leave
+// out to (to the bottom of the hole).
+func (d *decoder) sampleSchedule(m map[string]any, p string) ([]sdk.SampleBand, error) {
+	items, ok, err := d.list(m, p, "sample_schedule")
+	if err != nil || !ok {
+		return nil, err
+	}
+	fp := p + ".sample_schedule"
+	if len(items) == 0 {
+		return nil, d.errf(fp, "leave the key out for the default, or give bands such as [{to: 10, every: 2.5}, {every: 5}]", "is empty")
+	}
+	var out []sdk.SampleBand
+	prev := 0.0
+	for i, raw := range items {
+		ip := fmt.Sprintf("%s[%d]", fp, i)
+		band, isMap := raw.(map[string]any)
+		if !isMap {
+			return nil, d.errf(ip, "a band such as {to: 10, every: 2.5}", "must be a mapping, got %s", fmtVal(raw))
+		}
+		every, ok, err := d.length(band, ip, "every", maxIntervalFt, 2.5, "the sampling interval in the band")
+		if err != nil {
+			return nil, err
+		}
+		if !ok {
+			return nil, d.errf(ip+".every", fmt.Sprintf("the interval in %s, e.g. %s", d.unit, fmtNum(d.example(5))), "missing")
+		}
+		to, hasTo, err := d.length(band, ip, "to", maxDepthFt, 10, "the bottom of the band")
+		if err != nil {
+			return nil, err
+		}
+		if !hasTo && i != len(items)-1 {
+			return nil, d.errf(ip+".to", "give the bottom of every band but the last", "missing")
+		}
+		if hasTo && to <= prev {
+			return nil, d.errf(ip+".to", fmt.Sprintf("below the band above, which ends at %s %s", fmtNum(prev/d.ftPer), d.unit), "must be deeper than the band above")
+		}
+		prev = to
+		out = append(out, sdk.SampleBand{ToFt: to, EveryFt: every})
+	}
+	if err := sdk.CheckSchedule(out); err != nil {
+		return nil, d.errf(fp, "", "%v", err)
+	}
+	return out, nil
 }

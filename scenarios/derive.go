@@ -41,7 +41,7 @@ var depthKinds = map[string][]string{
 	"stories":    nil,
 	"footing":    {"bearing_pressure", "foundation_depth", "length", "method", "sat_unit_weight", "shape", "unit_weight", "width"},
 	"cut":        {"cut_depth", "guide"},
-	"embankment": {"height"},
+	"embankment": {"guide", "height"},
 	"wall":       {"base_depth", "wall"},
 	"rock":       {"core"},
 }
@@ -122,10 +122,7 @@ func (d *decoder) minDepth(m map[string]any, p string, z *Zone) (depthFt float64
 	case "cut":
 		depthFt, src, err = d.cutDepth(sub, fp, z)
 	case "embankment":
-		var h float64
-		if h, err = d.needLength(sub, fp, "height", z, "the embankment height above original ground", 15); err == nil {
-			depthFt, src, err = rules.TxDOTEmbankmentDepth(h)
-		}
+		depthFt, src, err = d.embankmentDepth(sub, fp, z)
 	case "wall":
 		depthFt, src, err = d.wallDepth(sub, fp, z)
 	case "rock":
@@ -140,6 +137,16 @@ func (d *decoder) minDepth(m map[string]any, p string, z *Zone) (depthFt float64
 	}
 	if !(depthFt > 0) {
 		return 0, "", true, d.errf(fp, "give the depth as a number, or check the inputs", "zone %s: the rule gives a depth of %s %s", z.ID, fmtNum(depthFt/d.ftPer), d.unit)
+	}
+	if z.Use == UseStructure && (kind == "stories" || kind == "footing") {
+		// Common practice: a building's borings go at least about 20–25 ft
+		// or to refusal, whatever the stories or stress rule gives.
+		d2, _, basis, err := rules.BuildingDepth(depthFt, z.Ground.RockFt)
+		if err != nil {
+			return 0, "", true, d.errf(fp, "check the inputs of the depth rule", "zone %s: %v", z.ID, err)
+		}
+		src += "; " + basis
+		depthFt = d2
 	}
 	if depthFt > maxDepthFt {
 		return 0, "", true, d.errf(fp, "is the unit right? units: is "+d.unit, "zone %s: the rule gives %.4g %s, deeper than the %s %s a point may be",
@@ -335,6 +342,28 @@ func (d *decoder) cutDepth(sub map[string]any, fp string, z *Zone) (float64, str
 	return rules.GEC5CutDepth(cut)
 }
 
+// embankmentDepth works out the depth under an embankment: by default the
+// deeper of the TxDOT rule, max(height, 20 ft), and the federal guidance
+// over soft ground, twice the height (from memory); guide: txdot or
+// guide: aashto takes one of them alone.
+func (d *decoder) embankmentDepth(sub map[string]any, fp string, z *Zone) (float64, string, error) {
+	h, err := d.needLength(sub, fp, "height", z, "the embankment height above original ground", 15)
+	if err != nil {
+		return 0, "", err
+	}
+	guide, _, err := d.choice(sub, fp, "guide", []string{"aashto", "txdot"})
+	if err != nil {
+		return 0, "", err
+	}
+	switch guide {
+	case "txdot":
+		return rules.TxDOTEmbankmentDepth(h)
+	case "aashto":
+		return rules.AASHTOEmbankmentDepth(h)
+	}
+	return rules.EmbankmentDepth(h)
+}
+
 func (d *decoder) wallDepth(sub map[string]any, fp string, z *Zone) (float64, string, error) {
 	base, err := d.needLength(sub, fp, "base_depth", z, "the depth of the wall base below the ground at the boring", 5)
 	if err != nil {
@@ -379,6 +408,8 @@ var labKinds = []struct {
 	{"split_barrel", lab.SplitBarrel},
 	{"tube", lab.Tube},
 	{"bag", lab.Bag},
+	{"bulk", lab.Bulk},
+	{"analytical", lab.Analytical},
 }
 
 // labProgram reads the top-level lab key: absent (nil, the default

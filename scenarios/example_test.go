@@ -47,7 +47,7 @@ func ExampleRules_Origins() {
 	// B1: spacing 50 ft (triangular lattice), depth 69.0 ft
 	//   max_spacing scenario
 	//   lattice     default: triangular
-	//   min_depth   computed: Sowers, in Das: D = 6·S^0.7 m, heavy building (formula from memory); S = 6 → 69.0 ft
+	//   min_depth   computed: Sowers, in Das: D = 6·S^0.7 m, heavy building (formula from memory); S = 6; deeper than the 25 ft building minimum (common practice) → 69.0 ft
 	// P1: spacing 75 ft (square lattice), depth 45.0 ft
 	//   max_spacing scenario
 	//   lattice     preset das-multistory-building: Das, Principles of Foundation Engineering, after Sowers & Sowers (1970)

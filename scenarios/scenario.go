@@ -46,8 +46,9 @@ type Scenario struct {
 	TimeLimitS float64  // solve time limit, seconds (0: none)
 
 	// Lab is the program of laboratory tests priced on the samples the
-	// plan recovers; nil means lab.Default(). A file's "lab: none" gives
-	// lab.None().
+	// plan recovers, for every zone; nil means each zone's samples get
+	// the program of its purposes (lab.ForPurposes(zone.Purposes)). A
+	// file's "lab: none" gives lab.None().
 	Lab *lab.Program
 }
 
@@ -68,12 +69,34 @@ const (
 	UseOpen          Use = "open"
 )
 
+// PurposesOf returns the lab purposes a zone's use implies when the file
+// names none: a structure's foundations, a pavement's subgrade, fill as
+// earthwork, environmental samples for the analytical list; slopes are
+// explored for strength like foundations, open ground for index tests.
+func PurposesOf(u Use) []lab.Purpose {
+	switch u {
+	case UseStructure, UseSlope:
+		return []lab.Purpose{lab.Foundation}
+	case UsePavement:
+		return []lab.Purpose{lab.Pavement}
+	case UseFill:
+		return []lab.Purpose{lab.Earthwork}
+	case UseEnvironmental:
+		return []lab.Purpose{lab.Environmental}
+	}
+	return []lab.Purpose{lab.General}
+}
+
 // Zone is an area of the site with one use, one kind of ground and one set
 // of rules.
 type Zone struct {
-	ID       string
-	Name     string
-	Use      Use
+	ID   string
+	Name string
+	Use  Use
+	// Purposes are what the zone's ground is explored for, as far as the
+	// lab program goes (pavement, pond, soft_ground, ...); the file's
+	// purpose list, else the one its use implies (PurposesOf).
+	Purposes []lab.Purpose
 	Polygon  geom.Polygon // ft
 	Priority float64      // weight of its area in coverage measures (default 1)
 
@@ -116,7 +139,11 @@ type Rules struct {
 	SampledShare     float64      // at least this share of points recovers samples (0..1)
 	Methods          []sdk.Method // methods allowed (empty: all)
 	SampleIntervalFt float64      // sampling interval in borings (0: rig default)
-	Corners          bool         // a point is required at each polygon corner
+	// SampleSchedule is the sampling schedule in borings, shallowest band
+	// first (depths in ft); empty: SampleIntervalFt, or the default
+	// schedule (sdk.DefaultSampleSchedule) when that is 0 too.
+	SampleSchedule []sdk.SampleBand
+	Corners        bool // a point is required at each polygon corner
 	// NoSpread turns off the implied spacing a count or area-per-point
 	// rule without a spacing rule gets (the file's "spread: false").
 	NoSpread       bool

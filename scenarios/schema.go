@@ -53,13 +53,19 @@ var minDepthKeys = orScalar(mapping(map[string]*keys{
 
 // labShares are the test shares of one kind of sample.
 var labShares = mapping(map[string]*keys{
-	"moisture":      leaf,
-	"sieve":         leaf,
-	"hydrometer":    leaf,
-	"atterberg":     leaf,
-	"consolidation": leaf,
-	"ucs":           leaf,
-	"uu":            leaf,
+	"moisture":         leaf,
+	"sieve":            leaf,
+	"hydrometer":       leaf,
+	"atterberg":        leaf,
+	"consolidation":    leaf,
+	"ucs":              leaf,
+	"uu":               leaf,
+	"proctor":          leaf,
+	"proctor_modified": leaf,
+	"cbr":              leaf,
+	"permeability":     leaf,
+	"infiltration":     leaf,
+	"analytical":       leaf,
 })
 
 var geojsonKeys = mapping(map[string]*keys{
@@ -87,6 +93,7 @@ var schema = mapping(map[string]*keys{
 		"id":       leaf,
 		"name":     leaf,
 		"use":      leaf,
+		"purpose":  leaf,
 		"polygon":  leaf,
 		"geojson":  geojsonKeys,
 		"priority": leaf,
@@ -111,6 +118,10 @@ var schema = mapping(map[string]*keys{
 			"sampled_share":   leaf,
 			"methods":         leaf,
 			"sample_interval": leaf,
+			"sample_schedule": listOf(mapping(map[string]*keys{
+				"to":    leaf,
+				"every": leaf,
+			})),
 			"corners":         leaf,
 			"spread":          leaf,
 			"required_points": leaf,
@@ -137,6 +148,8 @@ var schema = mapping(map[string]*keys{
 		"split_barrel": labShares,
 		"tube":         labShares,
 		"bag":          labShares,
+		"bulk":         labShares,
+		"analytical":   labShares,
 	})),
 })
 

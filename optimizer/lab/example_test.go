@@ -28,6 +28,6 @@ func ExampleProgram_Quantities() {
 	// Output:
 	// lab-moisture     18 each
 	// lab-sieve         6 each
-	// lab-hydrometer    6 each
+	// lab-hydrometer    2 each
 	// lab-atterberg     5 each
 }

@@ -21,10 +21,20 @@
 //
 // The default program (Default) is common practice, not a published rule:
 // moisture content on every sample, grain size by sieve on one in three,
-// the hydrometer on one in three fine-grained samples, Atterberg limits on
-// one in four fine-grained samples; on tube samples also one-dimensional
-// consolidation on one in ten, unconfined compression on one in four and
-// UU triaxial on one in ten.
+// the hydrometer on one in ten fine-grained samples (classification by
+// ASTM D2487 needs only the sieve and the Atterberg limits), Atterberg
+// limits on one in four fine-grained samples; on tube samples also
+// one-dimensional consolidation on one in ten, unconfined compression on
+// one in four and UU triaxial on one in ten.
+//
+// A zone's purposes (ForPurposes, purpose.go) change the program for its
+// samples: pavements get compaction (ASTM D698, or D1557) and bearing ratio
+// (ASTM D1883) on bulk samples of the subgrade; ponds and infiltration
+// areas hydraulic conductivity (ASTM D5084), field infiltration (ASTM
+// D3385) and the hydrometer; soft compressible ground tube samples between
+// the SPT samples and consolidation (ASTM D2435) on them; environmental
+// zones the site's analytical list as a lump sum per sample. Combine sums
+// the zones' expected tests and rounds each total up.
 package lab
 
 import (
@@ -49,10 +59,22 @@ const (
 	// Bag is a bulk sample bagged from a test pit: disturbed, good for
 	// index tests.
 	Bag Kind = "bag"
+	// Bulk is a bulk sample of the subgrade or of a pond's floor, some
+	// 25–50 lb, from auger cuttings or a pit near the surface: enough soil
+	// for compaction, bearing-ratio and remoulded permeability tests, which
+	// a split barrel's sample is too small for (common practice). A
+	// program's BulkPerPoint says how many each sampled point gives.
+	Bulk Kind = "bulk"
+	// Analytical is a sample jarred for the environmental analytical
+	// list; a program's AnalyticalPerPoint says how many each sampled
+	// point gives (common practice: two a boring — the interval field
+	// screening marks as most affected, and the deepest or the one at the
+	// water table).
+	Analytical Kind = "analytical"
 )
 
 // Kinds lists the sample kinds in the order quantities are summed.
-func Kinds() []Kind { return []Kind{SplitBarrel, Tube, Bag} }
+func Kinds() []Kind { return []Kind{SplitBarrel, Tube, Bag, Bulk, Analytical} }
 
 // Soil is the soil group a test applies to.
 type Soil string
@@ -72,6 +94,12 @@ const (
 	ItemConsolidation = "lab-consolidation"
 	ItemUCS           = "lab-ucs"
 	ItemUU            = "lab-uu"
+	ItemProctor       = "lab-proctor"
+	ItemProctorMod    = "lab-proctor-modified"
+	ItemCBR           = "lab-cbr"
+	ItemPermeability  = "lab-permeability"
+	ItemInfiltration  = "field-infiltration"
+	ItemAnalytical    = "lab-analytical"
 
 	// Unit is the unit of every lab item.
 	Unit = "each"
@@ -97,6 +125,12 @@ var catalog = []Test{
 	{Key: "consolidation", Item: ItemConsolidation, Name: "One-dimensional consolidation (incremental loading)", Standard: "ASTM D2435", Soil: Fine},
 	{Key: "ucs", Item: ItemUCS, Name: "Unconfined compressive strength of cohesive soil", Standard: "ASTM D2166", Soil: Fine},
 	{Key: "uu", Item: ItemUU, Name: "Unconsolidated-undrained triaxial compression", Standard: "ASTM D2850", Soil: Fine},
+	{Key: "proctor", Item: ItemProctor, Name: "Compaction, standard effort (standard Proctor)", Standard: "ASTM D698", Soil: AnySoil},
+	{Key: "proctor_modified", Item: ItemProctorMod, Name: "Compaction, modified effort (modified Proctor)", Standard: "ASTM D1557", Soil: AnySoil},
+	{Key: "cbr", Item: ItemCBR, Name: "California bearing ratio of laboratory-compacted soil", Standard: "ASTM D1883", Soil: AnySoil},
+	{Key: "permeability", Item: ItemPermeability, Name: "Hydraulic conductivity, flexible-wall permeameter", Standard: "ASTM D5084", Soil: AnySoil},
+	{Key: "infiltration", Item: ItemInfiltration, Name: "Field infiltration rate, double-ring infiltrometer", Standard: "ASTM D3385", Soil: AnySoil},
+	{Key: "analytical", Item: ItemAnalytical, Name: "Environmental analytical list, one lump sum per sample for the list the site's rules name", Standard: "the site's analytical list", Soil: AnySoil},
 }
 
 // Catalog returns every known test with a zero Share, in report order.
@@ -131,12 +165,26 @@ type Program struct {
 	FineShare float64
 	// PerSample lists the tests run on each kind of sample.
 	PerSample map[Kind][]Test
+	// BulkPerPoint is the number of bulk samples each sampled point
+	// (boring or test pit) gives for the program's bulk tests; 0: none.
+	BulkPerPoint float64
+	// AnalyticalPerPoint is the number of samples each sampled point sends
+	// for the analytical list; 0: none.
+	AnalyticalPerPoint float64
+	// TubesBetweenSPT asks for a thin-walled tube sample at each position
+	// between split-barrel samples in a boring (TxDOT LRFD Geotechnical
+	// Manual, 2024: where cohesive soils are observed, tubes at the
+	// intermediate locations between SPT samples), so soft ground yields
+	// tubes to consolidate.
+	TubesBetweenSPT bool
 }
 
 // SourceCommonPractice is the basis of the default program's shares.
 const SourceCommonPractice = "common practice: moisture content on every sample, sieve on 1 in 3, " +
-	"hydrometer on 1 in 3 fine-grained, Atterberg limits on 1 in 4 fine-grained; on tube samples " +
-	"also consolidation on 1 in 10, unconfined compression on 1 in 4, UU triaxial on 1 in 10"
+	"hydrometer on 1 in 10 fine-grained (classification by ASTM D2487 needs only the sieve and the " +
+	"Atterberg limits; the hydrometer is for where the clay fraction itself is the question), " +
+	"Atterberg limits on 1 in 4 fine-grained; on tube samples also consolidation on 1 in 10, " +
+	"unconfined compression on 1 in 4, UU triaxial on 1 in 10"
 
 // Default returns the default program (common practice, see the package
 // comment). FineShare is 1: with nothing known of the ground, every
@@ -147,7 +195,7 @@ func Default() *Program {
 		return []Test{
 			must("moisture", 1),
 			must("sieve", 1.0/3),
-			must("hydrometer", 1.0/3),
+			must("hydrometer", 1.0/10),
 			must("atterberg", 1.0/4),
 		}
 	}
@@ -236,7 +284,9 @@ func order(key string) int {
 	return len(catalog)
 }
 
-func knownKind(k Kind) bool { return k == SplitBarrel || k == Tube || k == Bag }
+func knownKind(k Kind) bool {
+	return k == SplitBarrel || k == Tube || k == Bag || k == Bulk || k == Analytical
+}
 
 // Check reports what is wrong with a program, or nil: an unknown kind or
 // test, a share outside 0..1, a test listed twice for one kind.
@@ -247,6 +297,12 @@ func (p *Program) Check() error {
 	if !(p.FineShare >= 0 && p.FineShare <= 1) {
 		return fmt.Errorf("lab: fine share %v: want a share between 0 and 1", p.FineShare)
 	}
+	if !(p.BulkPerPoint >= 0) || math.IsInf(p.BulkPerPoint, 0) {
+		return fmt.Errorf("lab: bulk samples per point %v: want a number ≥ 0", p.BulkPerPoint)
+	}
+	if !(p.AnalyticalPerPoint >= 0) || math.IsInf(p.AnalyticalPerPoint, 0) {
+		return fmt.Errorf("lab: analytical samples per point %v: want a number ≥ 0", p.AnalyticalPerPoint)
+	}
 	kinds := make([]string, 0, len(p.PerSample))
 	for k := range p.PerSample {
 		kinds = append(kinds, string(k))
@@ -255,7 +311,7 @@ func (p *Program) Check() error {
 	for _, ks := range kinds {
 		k := Kind(ks)
 		if !knownKind(k) {
-			return fmt.Errorf("lab: unknown sample kind %q (want split-barrel, tube or bag)", k)
+			return fmt.Errorf("lab: unknown sample kind %q (want split-barrel, tube, bag, bulk or analytical)", k)
 		}
 		seen := map[string]bool{}
 		for _, t := range p.PerSample[k] {
@@ -280,6 +336,8 @@ type Counts struct {
 	SplitBarrel float64 // split-barrel SPT samples (the rate book's spt-sample)
 	Tube        float64 // thin-walled tube samples (tube-sample)
 	Bag         float64 // bag samples from test pits
+	Bulk        float64 // bulk samples for compaction, bearing-ratio and permeability tests
+	Analytical  float64 // samples sent for the environmental analytical list
 }
 
 // Of returns the count of kind k.
@@ -291,13 +349,18 @@ func (c Counts) Of(k Kind) float64 {
 		return c.Tube
 	case Bag:
 		return c.Bag
+	case Bulk:
+		return c.Bulk
+	case Analytical:
+		return c.Analytical
 	}
 	return 0
 }
 
 // Add returns the sum of two counts.
 func (c Counts) Add(d Counts) Counts {
-	return Counts{SplitBarrel: c.SplitBarrel + d.SplitBarrel, Tube: c.Tube + d.Tube, Bag: c.Bag + d.Bag}
+	return Counts{SplitBarrel: c.SplitBarrel + d.SplitBarrel, Tube: c.Tube + d.Tube, Bag: c.Bag + d.Bag, Bulk: c.Bulk + d.Bulk,
+		Analytical: c.Analytical + d.Analytical}
 }
 
 // Rate-book items rigs report samples in (the ratebooks package's
@@ -360,7 +423,8 @@ func PitBagSamples(depthFt, intervalFt float64) int {
 
 // Quantities turns sample counts into rate-book quantities of lab tests,
 // one per test item with a positive count, in catalogue order (moisture,
-// sieve, hydrometer, Atterberg, consolidation, UCS, UU). A nil program is
+// sieve, hydrometer, Atterberg, consolidation, UCS, UU, then the compaction,
+// bearing-ratio, permeability, infiltration and analytical tests). A nil program is
 // the default program. Each total is rounded up to whole tests.
 func (p *Program) Quantities(c Counts) ([]sdk.Quantity, error) {
 	return p.quantities(c, true)

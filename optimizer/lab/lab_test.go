@@ -12,7 +12,10 @@ import (
 // TestCatalogStandards checks each test's ASTM designation against the
 // standards named in the issue and the brief: D2216 moisture content, D6913
 // sieve, D7928 hydrometer, D4318 Atterberg limits, D2435 one-dimensional
-// consolidation, D2166 unconfined compression, D2850 UU triaxial.
+// consolidation, D2166 unconfined compression, D2850 UU triaxial, D698
+// standard and D1557 modified compaction, D1883 CBR, D5084 flexible-wall
+// hydraulic conductivity, D3385 double-ring infiltration (the designations
+// as the standards' titles give them; from memory).
 func TestCatalogStandards(t *testing.T) {
 	want := map[string]string{
 		ItemMoisture:      "ASTM D2216",
@@ -22,11 +25,17 @@ func TestCatalogStandards(t *testing.T) {
 		ItemConsolidation: "ASTM D2435",
 		ItemUCS:           "ASTM D2166",
 		ItemUU:            "ASTM D2850",
+		ItemProctor:       "ASTM D698",
+		ItemProctorMod:    "ASTM D1557",
+		ItemCBR:           "ASTM D1883",
+		ItemPermeability:  "ASTM D5084",
+		ItemInfiltration:  "ASTM D3385",
+		ItemAnalytical:    "the site's analytical list",
 	}
 	got := map[string]string{}
 	for _, c := range Catalog() {
 		got[c.Item] = c.Standard
-		if !strings.HasPrefix(c.Item, "lab-") || c.Name == "" || c.Key == "" {
+		if !(strings.HasPrefix(c.Item, "lab-") || c.Item == ItemInfiltration) || c.Name == "" || c.Key == "" {
 			t.Errorf("catalogue entry %+v", c)
 		}
 	}
@@ -59,6 +68,7 @@ func TestDefaultProgram(t *testing.T) {
 		{SplitBarrel, "moisture", 1},      // common practice
 		{SplitBarrel, "sieve", 1.0 / 3},   // common practice
 		{SplitBarrel, "atterberg", 0.25},  // common practice
+		{SplitBarrel, "hydrometer", 0.1},  // common practice: classification (ASTM D2487) needs only sieve and limits
 		{SplitBarrel, "consolidation", 0}, // disturbed samples are not consolidated (ASTM D2435 needs an intact specimen)
 		{Bag, "moisture", 1},              // common practice
 		{Tube, "consolidation", 0.1},      // common practice
@@ -98,21 +108,22 @@ func TestQuantities(t *testing.T) {
 		want map[string]float64
 	}{
 		{
-			// 12 split-barrel samples: 12 moisture, 4 sieve, 4 hydrometer, 3 Atterberg.
+			// 12 split-barrel samples: 12 moisture, 4 sieve, ⌈1.2⌉ = 2
+			// hydrometer (1 in 10), 3 Atterberg.
 			name: "split-barrel only", prog: Default(), c: Counts{SplitBarrel: 12},
-			want: map[string]float64{ItemMoisture: 12, ItemSieve: 4, ItemHydrometer: 4, ItemAtterberg: 3},
+			want: map[string]float64{ItemMoisture: 12, ItemSieve: 4, ItemHydrometer: 2, ItemAtterberg: 3},
 		},
 		{
-			// 13 + 10 tube: moisture 23; sieve ⌈23/3⌉ = 8; hydrometer 8;
-			// Atterberg ⌈23/4⌉ = 6; consolidation 1; UCS ⌈2.5⌉ = 3; UU 1.
+			// 13 + 10 tube: moisture 23; sieve ⌈23/3⌉ = 8; hydrometer
+			// ⌈2.3⌉ = 3; Atterberg ⌈23/4⌉ = 6; consolidation 1; UCS ⌈2.5⌉ = 3; UU 1.
 			name: "with tubes", prog: Default(), c: Counts{SplitBarrel: 13, Tube: 10},
-			want: map[string]float64{ItemMoisture: 23, ItemSieve: 8, ItemHydrometer: 8, ItemAtterberg: 6,
+			want: map[string]float64{ItemMoisture: 23, ItemSieve: 8, ItemHydrometer: 3, ItemAtterberg: 6,
 				ItemConsolidation: 1, ItemUCS: 3, ItemUU: 1},
 		},
 		{
 			// Nil program is the default.
 			name: "nil is default", prog: nil, c: Counts{Bag: 4},
-			want: map[string]float64{ItemMoisture: 4, ItemSieve: 2, ItemHydrometer: 2, ItemAtterberg: 1},
+			want: map[string]float64{ItemMoisture: 4, ItemSieve: 2, ItemHydrometer: 1, ItemAtterberg: 1},
 		},
 		{
 			name: "none", prog: None(), c: Counts{SplitBarrel: 40, Tube: 5, Bag: 9},
@@ -124,11 +135,11 @@ func TestQuantities(t *testing.T) {
 		},
 		{
 			// Half the 12 split-barrel samples fine-grained, every tube fine:
-			// hydrometer 6/3 + 12/3 = 6; Atterberg 6/4 + 12/4 = 4.5 → 5;
+			// hydrometer 6/10 + 12/10 = 1.8 → 2; Atterberg 6/4 + 12/4 = 4.5 → 5;
 			// consolidation 1.2 → 2; UCS 3; UU 1.2 → 2.
 			name: "fine share", prog: func() *Program { p := Default(); p.FineShare = 0.5; return p }(),
 			c: Counts{SplitBarrel: 12, Tube: 12},
-			want: map[string]float64{ItemMoisture: 24, ItemSieve: 8, ItemHydrometer: 6, ItemAtterberg: 5,
+			want: map[string]float64{ItemMoisture: 24, ItemSieve: 8, ItemHydrometer: 2, ItemAtterberg: 5,
 				ItemConsolidation: 2, ItemUCS: 3, ItemUU: 2},
 		},
 	}
@@ -222,7 +233,7 @@ func TestSetAndCheck(t *testing.T) {
 	if want := []string{"moisture", "hydrometer", "atterberg", "ucs"}; !reflect.DeepEqual(keys, want) {
 		t.Errorf("after Set: %v, want %v", keys, want)
 	}
-	if err := p.Set(SplitBarrel, "proctor", 1); err == nil || !strings.Contains(err.Error(), "moisture, sieve") {
+	if err := p.Set(SplitBarrel, "vane", 1); err == nil || !strings.Contains(err.Error(), "moisture, sieve") {
 		t.Errorf("unknown test: %v", err)
 	}
 	if err := p.Set("core", "moisture", 1); err == nil {
@@ -268,7 +279,7 @@ func TestCountsFromQuantities(t *testing.T) {
 	if got := CountsFromQuantities(qs); got != (Counts{SplitBarrel: 17, Tube: 2}) {
 		t.Errorf("CountsFromQuantities = %+v", got)
 	}
-	if got := (Counts{1, 2, 3}).Add(Counts{10, 20, 30}); got != (Counts{11, 22, 33}) {
+	if got := (Counts{1, 2, 3, 4, 5}).Add(Counts{10, 20, 30, 40, 50}); got != (Counts{11, 22, 33, 44, 55}) {
 		t.Errorf("Add = %+v", got)
 	}
 }

@@ -9,6 +9,7 @@ import (
 	"github.com/rigmix/rigmix/optimizer/geom"
 	"github.com/rigmix/rigmix/optimizer/lab"
 	"github.com/rigmix/rigmix/optimizer/mip"
+	"github.com/rigmix/rigmix/optimizer/rules"
 	"github.com/rigmix/rigmix/plugins/sdk"
 	"github.com/rigmix/rigmix/scenarios"
 )
@@ -114,7 +115,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		rigBy[i] = map[string]int{}
 	}
 	chosenPoint := make([]bool, len(pr.Layout.Candidates))
-	var labCounts lab.Counts
+	labCounts := make([]lab.Counts, len(sc.Zones))
 	for k, o := range sol.Chosen {
 		od := pr.Options[o]
 		c := pr.Layout.Candidates[od.point]
@@ -129,6 +130,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		}
 		if od.method == sdk.Boring {
 			pt.SampleIntervalFt = zn.Rules.SampleIntervalFt
+			pt.Sampling = sdk.DescribeSchedule(sdk.ScheduleOf(sdk.Site{SampleIntervalFt: zn.Rules.SampleIntervalFt, SampleSchedule: zn.Rules.SampleSchedule}))
 		}
 		if frame != nil {
 			lon, lat := frame.ToLonLat(c.P)
@@ -137,7 +139,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		}
 		p.Points = append(p.Points, pt)
 		addQ(od.prof.answer.Quantities, 1)
-		labCounts = labCounts.Add(od.prof.lab)
+		labCounts[od.zone] = labCounts[od.zone].Add(od.prof.lab)
 		chosenPoint[od.point] = true
 		zoneCount[od.zone]++
 		if od.method.Sampled() {
@@ -153,7 +155,20 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 			p.Warnings = append(p.Warnings, pitWarnings(pt.ID, od.depth)...)
 		}
 	}
-	labQ, err := labProgram(sc).Quantities(labCounts)
+	// The lab program by zone: each zone's samples get its purposes'
+	// tests; the totals are rounded up once over the plan.
+	parts := make([]lab.Part, len(sc.Zones))
+	for z, zn := range sc.Zones {
+		prog, err := labProgram(sc, z)
+		if err != nil {
+			return nil, err
+		}
+		parts[z] = lab.Part{Label: zn.ID, Program: prog, Counts: labCounts[z]}
+		if labCounts[z] != (lab.Counts{}) {
+			p.Lab = append(p.Lab, LabBasis{Zone: zn.ID, Program: prog.Name, Basis: prog.Source})
+		}
+	}
+	labQ, err := lab.Combine(parts)
 	if err != nil {
 		return nil, err
 	}
@@ -224,6 +239,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		p.Baseline = b
 	}
 	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth, pr.ExactReach(chosenPoint))
+	p.Warnings = append(p.Warnings, shallowBuildingWarnings(sc)...)
 	pb := pr.Model.Problem
 	if math.IsInf(res.Bound, 0) || math.IsNaN(res.Bound) {
 		// Stopped before the root bound: every cost is ≥ 0, so 0 is a
@@ -327,6 +343,23 @@ func zoneIndex(zs []scenarios.Zone, id string) int {
 		}
 	}
 	return -1
+}
+
+// shallowBuildingWarnings flags a structure zone whose stated depth is
+// under the shallow end of the least depth common practice gives buildings
+// (about 20–25 ft or to refusal; rules.BuildingMinDepthLowFt), unless known
+// rock comes first. Depths worked out from stories or a footing already
+// carry the 25 ft minimum.
+func shallowBuildingWarnings(sc *scenarios.Scenario) []string {
+	var w []string
+	for _, zn := range sc.Zones {
+		d := zn.Rules.MinDepthFt
+		if zn.Use != scenarios.UseStructure || d >= rules.BuildingMinDepthLowFt || (zn.Ground.RockFt > 0 && zn.Ground.RockFt <= d) {
+			continue
+		}
+		w = append(w, fmt.Sprintf("zone %s: a structure explored %.1f ft deep, under the least depth common practice gives buildings (about %g–%g ft, or to refusal); the scenario's min_depth governs", zn.ID, d, rules.BuildingMinDepthLowFt, rules.BuildingMinDepthFt))
+	}
+	return w
 }
 
 // pitWarnings flags the excavation safety requirements a test pit of a

@@ -36,7 +36,7 @@ func ScheduleInputs(ctx context.Context, p *Plan, sc *scenarios.Scenario, rb *ra
 		jobs = append(jobs, schedule.Job{
 			ID: pt.ID, Rig: pt.Rig, X: pt.XFt, Y: pt.YFt, Hours: pt.OnPointHours,
 			Surface: pt.Surface, Method: pt.Method, DepthFt: pt.DepthFt,
-			SampleIntervalFt: pt.SampleIntervalFt, Lon: pt.Lon, Lat: pt.Lat,
+			SampleIntervalFt: pt.SampleIntervalFt, Sampling: pt.Sampling, Lon: pt.Lon, Lat: pt.Lat,
 		})
 		used[pt.Rig] = true
 	}

@@ -4,6 +4,8 @@
 // item, rig by rig and rule by rule.
 package plan
 
+import "github.com/rigmix/rigmix/optimizer/rules"
+
 // Plan is the result of planning one scenario. Its JSON form is the plan
 // file documented in optimizer/plan/SCHEMA.md; field order and formatting are
 // stable so the same input gives the same bytes.
@@ -18,12 +20,15 @@ type Plan struct {
 	Rigs     []RigPlan   `json:"rigs"`
 	Finish   int         `json:"field_days"` // days until the last rig is done (rigs in parallel)
 	Rules    []RuleCheck `json:"rules"`
-	Coverage Coverage    `json:"coverage"`
-	Baseline *Baseline   `json:"hand_grid_baseline,omitempty"`
-	Solver   SolverInfo  `json:"solver"`
-	Excluded []Excluded  `json:"excluded_options"`
-	Warnings []string    `json:"warnings"`
-	Cautions []string    `json:"cautions"`
+	// Lab says, for each zone whose points recover samples, which lab
+	// program its samples get and what that program rests on.
+	Lab      []LabBasis `json:"lab,omitempty"`
+	Coverage Coverage   `json:"coverage"`
+	Baseline *Baseline  `json:"hand_grid_baseline,omitempty"`
+	Solver   SolverInfo `json:"solver"`
+	Excluded []Excluded `json:"excluded_options"`
+	Warnings []string   `json:"warnings"`
+	Cautions []string   `json:"cautions"`
 }
 
 // ScenarioInfo names the scenario a plan was made for.
@@ -56,11 +61,14 @@ type Point struct {
 	Rig              string   `json:"rig"`
 	DepthFt          float64  `json:"depth_ft"`
 	SampleIntervalFt float64  `json:"sample_interval_ft,omitempty"`
-	Hours            float64  `json:"hours"`          // on the point plus the move to it
-	OnPointHours     float64  `json:"hours_on_point"` // set-up to tear-down, no travel
-	Surface          string   `json:"surface"`        // ground surface of its zone
-	Cost             float64  `json:"cost"`
-	Required         bool     `json:"required,omitempty"`
+	// Sampling is the boring's sampling schedule in words, e.g. "every
+	// 2.5 ft to 10 ft, then every 5 ft".
+	Sampling     string  `json:"sampling,omitempty"`
+	Hours        float64 `json:"hours"`          // on the point plus the move to it
+	OnPointHours float64 `json:"hours_on_point"` // set-up to tear-down, no travel
+	Surface      string  `json:"surface"`        // ground surface of its zone
+	Cost         float64 `json:"cost"`
+	Required     bool    `json:"required,omitempty"`
 }
 
 // Line is one line of the itemized estimate: quantity × unit price.
@@ -91,6 +99,15 @@ type Excluded struct {
 	Method string `json:"method"`
 	Rig    string `json:"rig"`
 	Reason string `json:"reason"`
+}
+
+// LabBasis is the lab program a zone's samples get: the program's name (the
+// zone's purposes joined by "+", or the scenario's own program) and its
+// basis.
+type LabBasis struct {
+	Zone    string `json:"zone"`
+	Program string `json:"program"`
+	Basis   string `json:"basis"`
 }
 
 // RuleCheck tells whether one rule of one zone is met.
@@ -143,10 +160,14 @@ type SolverInfo struct {
 const SchemaVersion = "rigmix.plan/1"
 
 // Cautions are shown with every plan and report: exploration work can hurt
-// people.
+// people. The utilities line cites OSHA 29 CFR 1926.651(b) alone: a clause
+// of ASTM D420-18 once cited beside it could not be confirmed, so it was
+// dropped. The overhead-line clearances are OSHA 29 CFR 1926.1408 Table A by
+// voltage (rules.OverheadLineCaution); a single 20 ft is right only up to
+// 350 kV.
 var Cautions = []string{
-	"Locate underground utilities before any drilling or digging: make the one-call notice and have owners mark their lines (OSHA 29 CFR 1926.651(b); ASTM D420-18 §1.3.1).",
-	"Keep drill masts and excavator booms clear of overhead power lines (at least 20 ft; drilling safety guidelines).",
+	"Locate underground utilities before any drilling or digging: make the one-call notice and have owners mark their lines (OSHA 29 CFR 1926.651(b)).",
+	rules.OverheadLineCaution(),
 	"Test pits: nobody enters an excavation 4 ft or deeper without a safe way out (29 CFR 1926.651(c)(2)); 5 ft or deeper needs a protective system — sloping, benching or shoring — unless in stable rock (1926.652(a)(1)); deeper than 20 ft needs a design by a registered professional engineer (Subpart P, Appendices B and F).",
 	"On an environmental site, soil and water brought up are investigation-derived waste: contain, label and dispose of them as the site's rules require.",
 	"This plan is a planning aid. A licensed professional reviews it; local codes and the client's requirements govern.",

@@ -13,6 +13,7 @@ import (
 	"testing"
 
 	"github.com/rigmix/rigmix/optimizer/geom"
+	"github.com/rigmix/rigmix/optimizer/lab"
 	"github.com/rigmix/rigmix/optimizer/mip"
 	"github.com/rigmix/rigmix/optimizer/mip/miptest"
 	"github.com/rigmix/rigmix/plugins/builtin"
@@ -85,8 +86,12 @@ func TestDemoPlansHoldTogether(t *testing.T) {
 			// cents, and each lab line rounds the expected number of tests
 			// (charged in the objective) up to whole tests.
 			slack := 0.01*float64(len(p.Estimate)) + 0.01
+			labItems := map[string]bool{}
+			for _, c := range lab.Catalog() {
+				labItems[c.Item] = true
+			}
 			for _, l := range p.Estimate {
-				if strings.HasPrefix(l.Item, "lab-") {
+				if labItems[l.Item] {
 					slack += l.UnitPrice
 				}
 			}

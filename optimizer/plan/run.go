@@ -234,6 +234,7 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 					ID: fmt.Sprintf("%s/%s", zn.ID, m), Method: m,
 					DepthFt:          depthFor(zn, m),
 					SampleIntervalFt: zn.Rules.SampleIntervalFt,
+					SampleSchedule:   zn.Rules.SampleSchedule,
 					Surface:          zn.Ground.Surface, SlopePct: zn.Ground.SlopePct,
 					OverheadFt: zn.Ground.OverheadFt, GroundwaterFt: zn.Ground.GroundwaterFt,
 					RockFt:        zn.Ground.RockFt,
@@ -260,6 +261,23 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 			return nil, fmt.Errorf("rig %q: moves: %d answers for %d legs", rd.name, len(mv.Hours), len(legs))
 		}
 		for k, a := range ans.Answers {
+			prog, err := labProgram(sc, keys[k].zone)
+			if err != nil {
+				return nil, inputErrorf("%s: zones[%d].purpose: %v", sc.Source, keys[k].zone, err)
+			}
+			var counts lab.Counts
+			if a.Feasible {
+				// The zone's lab program may add samples the rig does not
+				// report: bulk samples for compaction and permeability,
+				// tubes between the SPT samples in soft ground (priced as
+				// the rate book's tube-sample).
+				var extra []sdk.Quantity
+				m := sites[k].Method
+				counts, extra = prog.Derived(samplesOf(a.Quantities, sites[k]), m.Sampled(), m == sdk.Boring)
+				if len(extra) > 0 {
+					a.Quantities = append(append([]sdk.Quantity(nil), a.Quantities...), extra...)
+				}
+			}
 			p := profile{answer: a, move: mv.Hours[k]}
 			if a.Feasible {
 				c, err := price(in.RateBook, a.Quantities, rd.name)
@@ -269,8 +287,8 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 				// Each point carries its expected share of the lab
 				// program on the samples it recovers (linear, so the
 				// model can weigh a sampled boring against a sounding).
-				p.lab = samplesOf(a.Quantities, sites[k])
-				labQ, err := labProgram(sc).Expected(p.lab)
+				p.lab = counts
+				labQ, err := prog.Expected(p.lab)
 				if err != nil {
 					return nil, inputErrorf("%s: lab: %v", sc.Source, err)
 				}
@@ -554,12 +572,14 @@ func checkRoom(pr *Prepared, spec *model.Spec) error {
 	return nil
 }
 
-// labProgram is the scenario's lab program; nil means the default program.
-func labProgram(sc *scenarios.Scenario) *lab.Program {
+// labProgram is the lab program of zone z: the scenario's own lab program
+// when it gives one (it then applies to every zone), else the program of
+// the zone's purposes (lab.ForPurposes).
+func labProgram(sc *scenarios.Scenario, z int) (*lab.Program, error) {
 	if sc.Lab != nil {
-		return sc.Lab
+		return sc.Lab, nil
 	}
-	return lab.Default()
+	return lab.ForPurposes(sc.Zones[z].Purposes)
 }
 
 // samplesOf counts the samples a point recovers: split-barrel and tube

@@ -119,6 +119,8 @@ type htmlView struct {
 	Rigs               htmlTable
 	Rules              []ruleView
 	Sources            []sourceView
+	Bases              []sourceView
+	Lab                []sourceView
 	Excluded           htmlTable
 	Alternatives       *htmlTable
 	Frontier, Budget   template.HTML
@@ -280,6 +282,11 @@ func newHTMLView(in HTMLInput) (*htmlView, error) {
 		}
 	}
 
+	v.Bases = ruleBases(p)
+	for _, l := range p.Lab {
+		v.Lab = append(v.Lab, sourceView{Zone: l.Zone + " (" + l.Program + ")", Source: l.Basis})
+	}
+
 	v.Excluded = htmlTable{Header: []string{"zone", "method", "rig", "why not"}}
 	for _, e := range p.Excluded {
 		v.Excluded.Rows = append(v.Excluded.Rows, []string{e.Zone, methodName(e.Method), e.Rig, e.Reason})
@@ -427,12 +434,12 @@ func methodRigTable(p *plan.Plan) htmlTable {
 
 func pointListTable(p *plan.Plan) htmlTable {
 	cur := p.RateBook.Currency
-	t := htmlTable{Header: []string{"point", "zone", "method", "rig", "depth ft", "sample interval ft", "x ft", "y ft", "hours", "cost (" + cur + ")"},
-		Num: []bool{false, false, false, false, true, true, true, true, true, true}}
+	t := htmlTable{Header: []string{"point", "zone", "method", "rig", "depth ft", "sampling", "x ft", "y ft", "hours", "cost (" + cur + ")"},
+		Num: []bool{false, false, false, false, true, false, true, true, true, true}}
 	for _, pt := range p.Points {
-		si := ""
-		if pt.SampleIntervalFt > 0 {
-			si = feet(pt.SampleIntervalFt)
+		si := pt.Sampling
+		if si == "" && pt.SampleIntervalFt > 0 {
+			si = "every " + feet(pt.SampleIntervalFt) + " ft"
 		}
 		id := pt.ID
 		if pt.Required {

@@ -177,6 +177,22 @@ var htmlPage = template.Must(template.New("report").Parse(`<!DOCTYPE html>
 <li><strong>{{.Zone}}</strong>: {{.Source}}</li>
 {{- end}}
 </ul>
+{{- if .Bases}}
+<h3>Basis of computed, preset and default rules</h3>
+<ul class="sources" id="rule-bases">
+{{- range .Bases}}
+<li><strong>{{.Zone}}</strong>: {{.Source}}</li>
+{{- end}}
+</ul>
+{{- end}}
+{{- if .Lab}}
+<h3>Lab program by zone</h3>
+<ul class="sources" id="lab-programs">
+{{- range .Lab}}
+<li><strong>{{.Zone}}</strong>: {{.Source}}</li>
+{{- end}}
+</ul>
+{{- end}}
 </section>
 {{- if .Excluded.Rows}}
 

@@ -161,6 +161,18 @@ func Text(w io.Writer, p *plan.Plan) error {
 		}
 		fmt.Fprintf(&b, "  %s: %s\n", z, src)
 	}
+	if bs := ruleBases(p); len(bs) > 0 {
+		b.WriteString("\nBasis of computed, preset and default rules\n")
+		for _, x := range bs {
+			fmt.Fprintf(&b, "  %s: %s\n", x.Zone, x.Source)
+		}
+	}
+	if len(p.Lab) > 0 {
+		b.WriteString("\nLab program by zone\n")
+		for _, l := range p.Lab {
+			fmt.Fprintf(&b, "  %s (%s): %s\n", l.Zone, l.Program, l.Basis)
+		}
+	}
 
 	if len(p.Excluded) > 0 {
 		b.WriteString("\nOptions the rigs ruled out\n")
@@ -223,6 +235,20 @@ func money(v float64, cur string) string {
 	}
 	if cur != "" {
 		out = cur + " " + out
+	}
+	return out
+}
+
+// ruleBases lists, rule by rule, the origin of every rule that the file
+// did not state itself (computed, preset or default), with the rule named:
+// "B1 minimum depth — computed: Sowers ... → 69.0 ft".
+func ruleBases(p *plan.Plan) []sourceView {
+	var out []sourceView
+	for _, r := range p.Rules {
+		if r.Origin == "" || r.Origin == "scenario" {
+			continue
+		}
+		out = append(out, sourceView{Zone: r.Zone + " " + r.Rule, Source: r.Origin})
 	}
 	return out
 }

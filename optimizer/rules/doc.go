@@ -38,9 +38,11 @@
 //   - Common practice, no published source: one boring per 2,500 ft² of
 //     building area (common-building-density).
 //   - TxDOT LRFD Geotechnical Manual (2024): wall borings at most 200 ft
-//     apart. UFC 3-250-12N: roads at most 300 ft along the centre line,
-//     100 ft where soils vary. UFGS 4-159-01: unknown site, about 200 ft
-//     centres, borings generally at least 30 ft deep.
+//     apart. UFC 3-250-12N (Design: Pavements, 2005, since cancelled;
+//     Section 2, read in a stored copy): roads at most 300 ft along the
+//     centre line, 100 ft or less where soils vary widely. UFGS 4-159-01:
+//     unknown site, about 200 ft centres, borings generally at least 30 ft
+//     deep.
 //
 // # Depth from the number of stories
 //
@@ -103,14 +105,41 @@
 //
 //   - FHWA GEC-5 (2002): cuts at least 5 m below the lowest cut elevation
 //     (GEC5CutDepth).
-//   - TxDOT LRFD Geotechnical Manual (2024): embankments max(height, 20 ft);
-//     cuts 15 ft below the cut bottom; walls at least 15 ft below a fill wall
-//     base and 20 ft below a cut wall base (TxDOTEmbankmentDepth,
-//     TxDOTCutDepth, TxDOTWallDepth).
+//   - TxDOT LRFD Geotechnical Manual (2024; the slopes-and-embankments
+//     page read in a stored copy): embankments max(height, 20 ft), further
+//     where compressible soils exist; cuts 15 ft below the cut bottom; walls
+//     at least 15 ft below a fill wall base and 20 ft below a cut wall base
+//     (TxDOTEmbankmentDepth, TxDOTCutDepth, TxDOTWallDepth). The same page
+//     asks SPT every 5 ft from 5 ft there, and tubes between the SPT samples
+//     where cohesive soil is met.
+//   - Federal guidance for embankments over soft ground: at least twice
+//     the height unless a hard stratum is met (AASHTOEmbankmentDepth;
+//     AASHTO LRFD Table 10.4.2-1 / FHWA GEC-5, from memory). The default,
+//     EmbankmentDepth, is the deeper of this and the TxDOT rule: TxDOT alone
+//     is unconservative for fills over 20 ft on soft ground.
+//   - Buildings: at least BuildingMinDepthFt, 25 ft, or to refusal,
+//     whatever a stories or stress rule gives (BuildingDepth; common
+//     practice, about 20–25 ft, the deeper end taken).
 //   - EN 1997-2 Annex B.3: spread footings max(3B, 6 m); rafts 1.5B; roads
 //     2 m below formation (EN1997FootingDepth, EN1997RaftDepth,
 //     EN1997RoadDepthFt).
 //   - To rock plus a core length, common practice (ToRockDepth).
+//
+// # Overhead power lines
+//
+// OSHA 29 CFR 1926.1408 Table A (read in a stored copy of the regulation's
+// text): up to 50 kV 10 ft, over 50 to 200 kV 15 ft, over 200 to 350 kV
+// 20 ft, over 350 to 500 kV 25 ft, over 500 to 750 kV 35 ft, over 750 to
+// 1,000 kV 45 ft; over 1,000 kV as the utility or a registered professional
+// engineer sets (OverheadLineClearanceFt, OverheadLineCaution). The table is
+// the crane rule; keeping drill masts and excavator booms to it is common
+// practice.
+//
+// # Sampling intervals
+//
+// ASTM D1586 describes the drive and sets no sampling interval. The default
+// schedule, every 2.5 ft to 10 ft then every 5 ft, is common practice
+// (sdk.DefaultSampleSchedule); a scenario may give its own bands.
 //
 // # References
 //

@@ -80,6 +80,12 @@ const alongNote = " Spacing is along the alignment; on a square lattice a narrow
 	"lets points lie up to √2 times the spacing apart along its centre line, so model " +
 	"the alignment so that the along-line distance is checked."
 
+// ufcRoadNote says where in UFC 3-250-12N the road spacing is: the number
+// was checked against a stored copy of the document's text.
+const ufcRoadNote = "UFC 3-250-12N is Design: Pavements (8 June 2005, since cancelled), Section 2, " +
+	"exploratory borings: the maximum spacing along the centre lines of proposed roads is 300 ft, " +
+	"100 ft or less in widely varying soils; the same section asks at least 6 ft below finished grade in cuts."
+
 // presets lists every preset, in name order (checked by a test).
 var presets = []Preset{
 	{
@@ -101,7 +107,8 @@ var presets = []Preset{
 		Name: "das-highway", Title: "Highways: borings about 250 m apart",
 		MaxSpacingFt: m(250), Lattice: "square",
 		Source: SourceDasSowers, Tag: TagSeen,
-		Note: "Published range 250–500 m (820–1640 ft); the close end, 250 m, is taken as the conservative default." + alongNote,
+		Note: "Published range 250–500 m (820–1640 ft); the close end, 250 m, is taken as the conservative default. " +
+			"UFC 3-250-12N asks at most 300 ft along a road's centre line (ufc-road), the more conservative of the two." + alongNote,
 	},
 	{
 		Name: "das-multistory-building", Title: "Multistory buildings: borings about 10 m apart",
@@ -143,7 +150,8 @@ var presets = []Preset{
 		Source: SourceGEC5, Tag: TagSeen + " (attribution memory)",
 		Note: "Published 30–60 m (98–197 ft) for walls longer than 30 m, alternating in front of and behind " +
 			"the wall; the close end, 30 m, is taken. The values were read; their attribution to GEC-5 is " +
-			"from memory." + alongNote,
+			"from memory. TxDOT asks at most 200 ft (txdot-wall); where the two differ this one is the more " +
+			"conservative." + alongNote,
 	},
 	{
 		Name: "navfac-closely-spaced-footings", Title: "Large structure with closely spaced footings: about 50 ft both ways",
@@ -189,19 +197,22 @@ var presets = []Preset{
 		MaxSpacingFt: 200, Lattice: "square",
 		Source: SourceTxDOT, Tag: TagSeen,
 		Note: "At most 200 ft apart; at least 15 ft below a fill wall base and 20 ft below a cut wall base " +
-			"(TxDOTWallDepth)." + alongNote,
+			"(TxDOTWallDepth). FHWA GEC-5 asks a point every 30–60 m (98–197 ft; fhwa-wall), the more " +
+			"conservative of the two." + alongNote,
 	},
 	{
 		Name: "ufc-road", Title: "Roads: at most 300 ft apart along the centre line",
 		MaxSpacingFt: 300, Lattice: "square",
 		Source: SourceUFCRoads, Tag: TagSeen,
-		Note: "At most 300 ft along the centre line; at most 100 ft where soils vary (ufc-road-variable)." + alongNote,
+		Note: "At most 300 ft along the centre line; at most 100 ft where soils vary (ufc-road-variable). " +
+			ufcRoadNote + alongNote,
 	},
 	{
 		Name: "ufc-road-variable", Title: "Roads where soils vary: at most 100 ft apart",
 		MaxSpacingFt: 100, Lattice: "square",
 		Source: SourceUFCRoads, Tag: TagSeen,
-		Note: "At most 100 ft along the centre line where soils vary; 300 ft otherwise (ufc-road)." + alongNote,
+		Note: "At most 100 ft along the centre line where soils vary; 300 ft otherwise (ufc-road). " +
+			ufcRoadNote + alongNote,
 	},
 	{
 		Name: "ufgs-unknown-site", Title: "Site of unknown ground, preliminary: about 200 ft centres, 30 ft deep",

@@ -199,7 +199,7 @@ func TestPresetsCopy(t *testing.T) {
 func presetsDoc() []byte {
 	var b bytes.Buffer
 	b.WriteString("# Exploration rule presets\n\n")
-	b.WriteString("Generated from `rules.Presets()` by `go test ./optimizer/rules -run TestPresetsDoc -update`;\n")
+	b.WriteString("Generated from `rules.Presets()` and `rules.DepthRules()` by `go test ./optimizer/rules -run TestPresetsDoc -update`;\n")
 	b.WriteString("do not edit by hand. Spacings are on a square lattice; a blank cell means the rule does not\n")
 	b.WriteString("apply. Metric sources are converted exactly (1 ft = 0.3048 m). Tags: seen (read in a stored\n")
 	b.WriteString("copy), memory (recalled, not re-read), derived (computed from a named formula), common\n")
@@ -228,7 +228,29 @@ func presetsDoc() []byte {
 			p.Name, p.Title, area, num(p.MaxSpacingFt), pts, corners, num(p.MinDepthFt),
 			p.Source, p.Tag, strings.ReplaceAll(p.Note, "|", "\\|"))
 	}
+	b.WriteString("\n## Depth rules, minimums and defaults\n\n")
+	b.WriteString("From `rules.DepthRules()`. The scenario keys that use them are in scenarios/REFERENCE.md.\n\n")
+	b.WriteString("| rule | asks | source | tag | note |\n|---|---|---|---|---|\n")
+	for _, r := range DepthRules() {
+		fmt.Fprintf(&b, "| `%s` | %s | %s | %s | %s |\n", r.Name, r.Rule, r.Source, r.Tag, strings.ReplaceAll(r.Note, "|", "\\|"))
+	}
 	return b.Bytes()
+}
+
+// TestDepthRulesWellFormed: every depth rule names what it asks, its source
+// and how that is known.
+func TestDepthRulesWellFormed(t *testing.T) {
+	for _, r := range DepthRules() {
+		if r.Name == "" || r.Rule == "" || r.Source == "" || r.Tag == "" {
+			t.Errorf("depth rule %+v lacks a field", r)
+		}
+		if !strings.Contains(r.Tag, TagSeen) && !strings.Contains(r.Tag, TagMemory) && !strings.Contains(r.Tag, TagPractice) && !strings.Contains(r.Tag, TagDerived) {
+			t.Errorf("depth rule %s: tag %q", r.Name, r.Tag)
+		}
+		if r.Tag == TagMemory && !strings.Contains(r.Source, "memory") && r.Source != SourceSowersForm {
+			t.Errorf("depth rule %s is from memory but its source %q does not say so", r.Name, r.Source)
+		}
+	}
 }
 
 func TestPresetsDoc(t *testing.T) {

@@ -73,6 +73,7 @@ type Stake struct {
 	Lon, Lat         *float64
 	DepthFt          float64
 	SampleIntervalFt float64
+	Sampling         string    // the boring's sampling schedule in words; "" for other methods
 	Date             time.Time // the day work on the point starts
 	WorkDay          int
 }
@@ -402,7 +403,7 @@ func build(cal Calendar, work [7]bool, routes []plannedRoute) (*Schedule, error)
 			s.Stakes = append(s.Stakes, Stake{
 				ID: j.ID, Rig: j.Rig, Seq: seq[j.ID], Method: j.Method, XFt: j.X, YFt: j.Y,
 				Lon: j.Lon, Lat: j.Lat, DepthFt: j.DepthFt, SampleIntervalFt: j.SampleIntervalFt,
-				Date: d.Date, WorkDay: d.WorkDay,
+				Sampling: j.Sampling, Date: d.Date, WorkDay: d.WorkDay,
 			})
 		}
 		s.StandbyHours += rs.StandbyHours

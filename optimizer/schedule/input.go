@@ -56,6 +56,10 @@ type Job struct {
 	Method           string
 	DepthFt          float64
 	SampleIntervalFt float64
+	// Sampling is the boring's sampling schedule in words, as the plan
+	// gives it ("every 2.5 ft to 10 ft, then every 5 ft"); "" for other
+	// methods.
+	Sampling string
 	// Lon, Lat are WGS 84 degrees when the site has an origin; nil if not.
 	Lon, Lat *float64
 }

@@ -11,7 +11,7 @@ import (
 // its rig reaches it.
 func WriteStakeoutCSV(w io.Writer, s *Schedule) error {
 	cw := csv.NewWriter(w)
-	if err := cw.Write([]string{"id", "rig", "seq", "method", "x_ft", "y_ft", "lon", "lat", "depth_ft", "sample_interval_ft", "date", "work_day"}); err != nil {
+	if err := cw.Write([]string{"id", "rig", "seq", "method", "x_ft", "y_ft", "lon", "lat", "depth_ft", "sample_interval_ft", "sampling", "date", "work_day"}); err != nil {
 		return err
 	}
 	for _, k := range s.Stakes {
@@ -20,7 +20,7 @@ func WriteStakeoutCSV(w io.Writer, s *Schedule) error {
 			lon, lat = num(*k.Lon, 7), num(*k.Lat, 7)
 		}
 		if err := cw.Write([]string{k.ID, k.Rig, strconv.Itoa(k.Seq), k.Method, num(k.XFt, 2), num(k.YFt, 2), lon, lat,
-			num(k.DepthFt, 1), num(k.SampleIntervalFt, 1), k.Date.Format(dateLayout), strconv.Itoa(k.WorkDay)}); err != nil {
+			num(k.DepthFt, 1), num(k.SampleIntervalFt, 1), k.Sampling, k.Date.Format(dateLayout), strconv.Itoa(k.WorkDay)}); err != nil {
 			return err
 		}
 	}
@@ -48,6 +48,7 @@ func WriteStakeoutGeoJSON(w io.Writer, s *Schedule) error {
 		YFt              float64 `json:"y_ft"`
 		DepthFt          float64 `json:"depth_ft"`
 		SampleIntervalFt float64 `json:"sample_interval_ft"`
+		Sampling         string  `json:"sampling,omitempty"`
 		Date             string  `json:"date"`
 		WorkDay          int     `json:"work_day"`
 	}
@@ -70,7 +71,7 @@ func WriteStakeoutGeoJSON(w io.Writer, s *Schedule) error {
 			Type: "Feature", ID: k.ID,
 			Geometry: geometry{Type: "Point", Coordinates: [2]json.Number{json.Number(num(*k.Lon, 7)), json.Number(num(*k.Lat, 7))}},
 			Properties: props{ID: k.ID, Rig: k.Rig, Seq: k.Seq, Method: k.Method, XFt: k.XFt, YFt: k.YFt,
-				DepthFt: k.DepthFt, SampleIntervalFt: k.SampleIntervalFt, Date: k.Date.Format(dateLayout), WorkDay: k.WorkDay},
+				DepthFt: k.DepthFt, SampleIntervalFt: k.SampleIntervalFt, Sampling: k.Sampling, Date: k.Date.Format(dateLayout), WorkDay: k.WorkDay},
 		})
 	}
 	b, err := json.MarshalIndent(fc, "", "  ")

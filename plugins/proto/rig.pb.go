@@ -346,8 +346,11 @@ type Site struct {
 	GroundwaterFt    float64                `protobuf:"fixed64,8,opt,name=groundwater_ft,json=groundwaterFt,proto3" json:"groundwater_ft,omitempty"`
 	RockFt           float64                `protobuf:"fixed64,9,opt,name=rock_ft,json=rockFt,proto3" json:"rock_ft,omitempty"`
 	Environmental    bool                   `protobuf:"varint,10,opt,name=environmental,proto3" json:"environmental,omitempty"`
-	unknownFields    protoimpl.UnknownFields
-	sizeCache        protoimpl.SizeCache
+	// Sampling schedule in borings, shallowest band first; empty: use
+	// sample_interval_ft, or the rig's default when that is 0 too.
+	SampleSchedule []*SampleBand `protobuf:"bytes,11,rep,name=sample_schedule,json=sampleSchedule,proto3" json:"sample_schedule,omitempty"`
+	unknownFields  protoimpl.UnknownFields
+	sizeCache      protoimpl.SizeCache
 }
 
 func (x *Site) Reset() {
@@ -450,6 +453,68 @@ func (x *Site) GetEnvironmental() bool {
 	return false
 }
 
+func (x *Site) GetSampleSchedule() []*SampleBand {
+	if x != nil {
+		return x.SampleSchedule
+	}
+	return nil
+}
+
+// One band of a sampling schedule: a sample every every_ft from the bottom
+// of the band above (0 for the first) down to to_ft; to_ft 0 means to the
+// bottom of the hole.
+type SampleBand struct {
+	state         protoimpl.MessageState `protogen:"open.v1"`
+	ToFt          float64                `protobuf:"fixed64,1,opt,name=to_ft,json=toFt,proto3" json:"to_ft,omitempty"`
+	EveryFt       float64                `protobuf:"fixed64,2,opt,name=every_ft,json=everyFt,proto3" json:"every_ft,omitempty"`
+	unknownFields protoimpl.UnknownFields
+	sizeCache     protoimpl.SizeCache
+}
+
+func (x *SampleBand) Reset() {
+	*x = SampleBand{}
+	mi := &file_rig_proto_msgTypes[6]
+	ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
+	ms.StoreMessageInfo(mi)
+}
+
+func (x *SampleBand) String() string {
+	return protoimpl.X.MessageStringOf(x)
+}
+
+func (*SampleBand) ProtoMessage() {}
+
+func (x *SampleBand) ProtoReflect() protoreflect.Message {
+	mi := &file_rig_proto_msgTypes[6]
+	if x != nil {
+		ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
+		if ms.LoadMessageInfo() == nil {
+			ms.StoreMessageInfo(mi)
+		}
+		return ms
+	}
+	return mi.MessageOf(x)
+}
+
+// Deprecated: Use SampleBand.ProtoReflect.Descriptor instead.
+func (*SampleBand) Descriptor() ([]byte, []int) {
+	return file_rig_proto_rawDescGZIP(), []int{6}
+}
+
+func (x *SampleBand) GetToFt() float64 {
+	if x != nil {
+		return x.ToFt
+	}
+	return 0
+}
+
+func (x *SampleBand) GetEveryFt() float64 {
+	if x != nil {
+		return x.EveryFt
+	}
+	return 0
+}
+
 type AssessRequest struct {
 	state         protoimpl.MessageState `protogen:"open.v1"`
 	Sites         []*Site                `protobuf:"bytes,1,rep,name=sites,proto3" json:"sites,omitempty"`
@@ -459,7 +524,7 @@ type AssessRequest struct {
 
 func (x *AssessRequest) Reset() {
 	*x = AssessRequest{}
-	mi := &file_rig_proto_msgTypes[6]
+	mi := &file_rig_proto_msgTypes[7]
 	ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 	ms.StoreMessageInfo(mi)
 }
@@ -471,7 +536,7 @@ func (x *AssessRequest) String() string {
 func (*AssessRequest) ProtoMessage() {}
 
 func (x *AssessRequest) ProtoReflect() protoreflect.Message {
-	mi := &file_rig_proto_msgTypes[6]
+	mi := &file_rig_proto_msgTypes[7]
 	if x != nil {
 		ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 		if ms.LoadMessageInfo() == nil {
@@ -484,7 +549,7 @@ func (x *AssessRequest) ProtoReflect() protoreflect.Message {
 
 // Deprecated: Use AssessRequest.ProtoReflect.Descriptor instead.
 func (*AssessRequest) Descriptor() ([]byte, []int) {
-	return file_rig_proto_rawDescGZIP(), []int{6}
+	return file_rig_proto_rawDescGZIP(), []int{7}
 }
 
 func (x *AssessRequest) GetSites() []*Site {
@@ -507,7 +572,7 @@ type Hours struct {
 
 func (x *Hours) Reset() {
 	*x = Hours{}
-	mi := &file_rig_proto_msgTypes[7]
+	mi := &file_rig_proto_msgTypes[8]
 	ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 	ms.StoreMessageInfo(mi)
 }
@@ -519,7 +584,7 @@ func (x *Hours) String() string {
 func (*Hours) ProtoMessage() {}
 
 func (x *Hours) ProtoReflect() protoreflect.Message {
-	mi := &file_rig_proto_msgTypes[7]
+	mi := &file_rig_proto_msgTypes[8]
 	if x != nil {
 		ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 		if ms.LoadMessageInfo() == nil {
@@ -532,7 +597,7 @@ func (x *Hours) ProtoReflect() protoreflect.Message {
 
 // Deprecated: Use Hours.ProtoReflect.Descriptor instead.
 func (*Hours) Descriptor() ([]byte, []int) {
-	return file_rig_proto_rawDescGZIP(), []int{7}
+	return file_rig_proto_rawDescGZIP(), []int{8}
 }
 
 func (x *Hours) GetSetup() float64 {
@@ -583,7 +648,7 @@ type Answer struct {
 
 func (x *Answer) Reset() {
 	*x = Answer{}
-	mi := &file_rig_proto_msgTypes[8]
+	mi := &file_rig_proto_msgTypes[9]
 	ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 	ms.StoreMessageInfo(mi)
 }
@@ -595,7 +660,7 @@ func (x *Answer) String() string {
 func (*Answer) ProtoMessage() {}
 
 func (x *Answer) ProtoReflect() protoreflect.Message {
-	mi := &file_rig_proto_msgTypes[8]
+	mi := &file_rig_proto_msgTypes[9]
 	if x != nil {
 		ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 		if ms.LoadMessageInfo() == nil {
@@ -608,7 +673,7 @@ func (x *Answer) ProtoReflect() protoreflect.Message {
 
 // Deprecated: Use Answer.ProtoReflect.Descriptor instead.
 func (*Answer) Descriptor() ([]byte, []int) {
-	return file_rig_proto_rawDescGZIP(), []int{8}
+	return file_rig_proto_rawDescGZIP(), []int{9}
 }
 
 func (x *Answer) GetId() string {
@@ -655,7 +720,7 @@ type AssessResponse struct {
 
 func (x *AssessResponse) Reset() {
 	*x = AssessResponse{}
-	mi := &file_rig_proto_msgTypes[9]
+	mi := &file_rig_proto_msgTypes[10]
 	ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 	ms.StoreMessageInfo(mi)
 }
@@ -667,7 +732,7 @@ func (x *AssessResponse) String() string {
 func (*AssessResponse) ProtoMessage() {}
 
 func (x *AssessResponse) ProtoReflect() protoreflect.Message {
-	mi := &file_rig_proto_msgTypes[9]
+	mi := &file_rig_proto_msgTypes[10]
 	if x != nil {
 		ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 		if ms.LoadMessageInfo() == nil {
@@ -680,7 +745,7 @@ func (x *AssessResponse) ProtoReflect() protoreflect.Message {
 
 // Deprecated: Use AssessResponse.ProtoReflect.Descriptor instead.
 func (*AssessResponse) Descriptor() ([]byte, []int) {
-	return file_rig_proto_rawDescGZIP(), []int{9}
+	return file_rig_proto_rawDescGZIP(), []int{10}
 }
 
 func (x *AssessResponse) GetAnswers() []*Answer {
@@ -699,7 +764,7 @@ type MobilizeRequest struct {
 
 func (x *MobilizeRequest) Reset() {
 	*x = MobilizeRequest{}
-	mi := &file_rig_proto_msgTypes[10]
+	mi := &file_rig_proto_msgTypes[11]
 	ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 	ms.StoreMessageInfo(mi)
 }
@@ -711,7 +776,7 @@ func (x *MobilizeRequest) String() string {
 func (*MobilizeRequest) ProtoMessage() {}
 
 func (x *MobilizeRequest) ProtoReflect() protoreflect.Message {
-	mi := &file_rig_proto_msgTypes[10]
+	mi := &file_rig_proto_msgTypes[11]
 	if x != nil {
 		ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 		if ms.LoadMessageInfo() == nil {
@@ -724,7 +789,7 @@ func (x *MobilizeRequest) ProtoReflect() protoreflect.Message {
 
 // Deprecated: Use MobilizeRequest.ProtoReflect.Descriptor instead.
 func (*MobilizeRequest) Descriptor() ([]byte, []int) {
-	return file_rig_proto_rawDescGZIP(), []int{10}
+	return file_rig_proto_rawDescGZIP(), []int{11}
 }
 
 func (x *MobilizeRequest) GetDistanceMi() float64 {
@@ -744,7 +809,7 @@ type MobilizeResponse struct {
 
 func (x *MobilizeResponse) Reset() {
 	*x = MobilizeResponse{}
-	mi := &file_rig_proto_msgTypes[11]
+	mi := &file_rig_proto_msgTypes[12]
 	ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 	ms.StoreMessageInfo(mi)
 }
@@ -756,7 +821,7 @@ func (x *MobilizeResponse) String() string {
 func (*MobilizeResponse) ProtoMessage() {}
 
 func (x *MobilizeResponse) ProtoReflect() protoreflect.Message {
-	mi := &file_rig_proto_msgTypes[11]
+	mi := &file_rig_proto_msgTypes[12]
 	if x != nil {
 		ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 		if ms.LoadMessageInfo() == nil {
@@ -769,7 +834,7 @@ func (x *MobilizeResponse) ProtoReflect() protoreflect.Message {
 
 // Deprecated: Use MobilizeResponse.ProtoReflect.Descriptor instead.
 func (*MobilizeResponse) Descriptor() ([]byte, []int) {
-	return file_rig_proto_rawDescGZIP(), []int{11}
+	return file_rig_proto_rawDescGZIP(), []int{12}
 }
 
 func (x *MobilizeResponse) GetHours() float64 {
@@ -797,7 +862,7 @@ type MoveLeg struct {
 
 func (x *MoveLeg) Reset() {
 	*x = MoveLeg{}
-	mi := &file_rig_proto_msgTypes[12]
+	mi := &file_rig_proto_msgTypes[13]
 	ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 	ms.StoreMessageInfo(mi)
 }
@@ -809,7 +874,7 @@ func (x *MoveLeg) String() string {
 func (*MoveLeg) ProtoMessage() {}
 
 func (x *MoveLeg) ProtoReflect() protoreflect.Message {
-	mi := &file_rig_proto_msgTypes[12]
+	mi := &file_rig_proto_msgTypes[13]
 	if x != nil {
 		ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 		if ms.LoadMessageInfo() == nil {
@@ -822,7 +887,7 @@ func (x *MoveLeg) ProtoReflect() protoreflect.Message {
 
 // Deprecated: Use MoveLeg.ProtoReflect.Descriptor instead.
 func (*MoveLeg) Descriptor() ([]byte, []int) {
-	return file_rig_proto_rawDescGZIP(), []int{12}
+	return file_rig_proto_rawDescGZIP(), []int{13}
 }
 
 func (x *MoveLeg) GetDistanceFt() float64 {
@@ -855,7 +920,7 @@ type MovesRequest struct {
 
 func (x *MovesRequest) Reset() {
 	*x = MovesRequest{}
-	mi := &file_rig_proto_msgTypes[13]
+	mi := &file_rig_proto_msgTypes[14]
 	ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 	ms.StoreMessageInfo(mi)
 }
@@ -867,7 +932,7 @@ func (x *MovesRequest) String() string {
 func (*MovesRequest) ProtoMessage() {}
 
 func (x *MovesRequest) ProtoReflect() protoreflect.Message {
-	mi := &file_rig_proto_msgTypes[13]
+	mi := &file_rig_proto_msgTypes[14]
 	if x != nil {
 		ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 		if ms.LoadMessageInfo() == nil {
@@ -880,7 +945,7 @@ func (x *MovesRequest) ProtoReflect() protoreflect.Message {
 
 // Deprecated: Use MovesRequest.ProtoReflect.Descriptor instead.
 func (*MovesRequest) Descriptor() ([]byte, []int) {
-	return file_rig_proto_rawDescGZIP(), []int{13}
+	return file_rig_proto_rawDescGZIP(), []int{14}
 }
 
 func (x *MovesRequest) GetLegs() []*MoveLeg {
@@ -899,7 +964,7 @@ type MovesResponse struct {
 
 func (x *MovesResponse) Reset() {
 	*x = MovesResponse{}
-	mi := &file_rig_proto_msgTypes[14]
+	mi := &file_rig_proto_msgTypes[15]
 	ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 	ms.StoreMessageInfo(mi)
 }
@@ -911,7 +976,7 @@ func (x *MovesResponse) String() string {
 func (*MovesResponse) ProtoMessage() {}
 
 func (x *MovesResponse) ProtoReflect() protoreflect.Message {
-	mi := &file_rig_proto_msgTypes[14]
+	mi := &file_rig_proto_msgTypes[15]
 	if x != nil {
 		ms := protoimpl.X.MessageStateOf(protoimpl.Pointer(x))
 		if ms.LoadMessageInfo() == nil {
@@ -924,7 +989,7 @@ func (x *MovesResponse) ProtoReflect() protoreflect.Message {
 
 // Deprecated: Use MovesResponse.ProtoReflect.Descriptor instead.
 func (*MovesResponse) Descriptor() ([]byte, []int) {
-	return file_rig_proto_rawDescGZIP(), []int{14}
+	return file_rig_proto_rawDescGZIP(), []int{15}
 }
 
 func (x *MovesResponse) GetHours() []float64 {
@@ -960,7 +1025,7 @@ const file_rig_proto_rawDesc = "" +
 	"\x06access\x18\x04 \x01(\v2\x1b.rigmix.rig.v1.AccessLimitsR\x06access\x124\n" +
 	"\tday_items\x18\x05 \x03(\v2\x17.rigmix.rig.v1.QuantityR\bdayItems\x12!\n" +
 	"\fstandby_item\x18\x06 \x01(\tR\vstandbyItem\x12\x14\n" +
-	"\x05basis\x18\a \x01(\tR\x05basis\"\xb5\x02\n" +
+	"\x05basis\x18\a \x01(\tR\x05basis\"\xf9\x02\n" +
 	"\x04Site\x12\x0e\n" +
 	"\x02id\x18\x01 \x01(\tR\x02id\x12\x16\n" +
 	"\x06method\x18\x02 \x01(\tR\x06method\x12\x19\n" +
@@ -973,7 +1038,12 @@ const file_rig_proto_rawDesc = "" +
 	"\x0egroundwater_ft\x18\b \x01(\x01R\rgroundwaterFt\x12\x17\n" +
 	"\arock_ft\x18\t \x01(\x01R\x06rockFt\x12$\n" +
 	"\renvironmental\x18\n" +
-	" \x01(\bR\renvironmental\":\n" +
+	" \x01(\bR\renvironmental\x12B\n" +
+	"\x0fsample_schedule\x18\v \x03(\v2\x19.rigmix.rig.v1.SampleBandR\x0esampleSchedule\"<\n" +
+	"\n" +
+	"SampleBand\x12\x13\n" +
+	"\x05to_ft\x18\x01 \x01(\x01R\x04toFt\x12\x19\n" +
+	"\bevery_ft\x18\x02 \x01(\x01R\aeveryFt\":\n" +
 	"\rAssessRequest\x12)\n" +
 	"\x05sites\x18\x01 \x03(\v2\x13.rigmix.rig.v1.SiteR\x05sites\"\x8b\x01\n" +
 	"\x05Hours\x12\x14\n" +
@@ -1027,7 +1097,7 @@ func file_rig_proto_rawDescGZIP() []byte {
 	return file_rig_proto_rawDescData
 }
 
-var file_rig_proto_msgTypes = make([]protoimpl.MessageInfo, 15)
+var file_rig_proto_msgTypes = make([]protoimpl.MessageInfo, 16)
 var file_rig_proto_goTypes = []any{
 	(*DescribeRequest)(nil),  // 0: rigmix.rig.v1.DescribeRequest
 	(*MethodLimit)(nil),      // 1: rigmix.rig.v1.MethodLimit
@@ -1035,39 +1105,41 @@ var file_rig_proto_goTypes = []any{
 	(*Quantity)(nil),         // 3: rigmix.rig.v1.Quantity
 	(*RigInfo)(nil),          // 4: rigmix.rig.v1.RigInfo
 	(*Site)(nil),             // 5: rigmix.rig.v1.Site
-	(*AssessRequest)(nil),    // 6: rigmix.rig.v1.AssessRequest
-	(*Hours)(nil),            // 7: rigmix.rig.v1.Hours
-	(*Answer)(nil),           // 8: rigmix.rig.v1.Answer
-	(*AssessResponse)(nil),   // 9: rigmix.rig.v1.AssessResponse
-	(*MobilizeRequest)(nil),  // 10: rigmix.rig.v1.MobilizeRequest
-	(*MobilizeResponse)(nil), // 11: rigmix.rig.v1.MobilizeResponse
-	(*MoveLeg)(nil),          // 12: rigmix.rig.v1.MoveLeg
-	(*MovesRequest)(nil),     // 13: rigmix.rig.v1.MovesRequest
-	(*MovesResponse)(nil),    // 14: rigmix.rig.v1.MovesResponse
+	(*SampleBand)(nil),       // 6: rigmix.rig.v1.SampleBand
+	(*AssessRequest)(nil),    // 7: rigmix.rig.v1.AssessRequest
+	(*Hours)(nil),            // 8: rigmix.rig.v1.Hours
+	(*Answer)(nil),           // 9: rigmix.rig.v1.Answer
+	(*AssessResponse)(nil),   // 10: rigmix.rig.v1.AssessResponse
+	(*MobilizeRequest)(nil),  // 11: rigmix.rig.v1.MobilizeRequest
+	(*MobilizeResponse)(nil), // 12: rigmix.rig.v1.MobilizeResponse
+	(*MoveLeg)(nil),          // 13: rigmix.rig.v1.MoveLeg
+	(*MovesRequest)(nil),     // 14: rigmix.rig.v1.MovesRequest
+	(*MovesResponse)(nil),    // 15: rigmix.rig.v1.MovesResponse
 }
 var file_rig_proto_depIdxs = []int32{
 	1,  // 0: rigmix.rig.v1.RigInfo.methods:type_name -> rigmix.rig.v1.MethodLimit
 	2,  // 1: rigmix.rig.v1.RigInfo.access:type_name -> rigmix.rig.v1.AccessLimits
 	3,  // 2: rigmix.rig.v1.RigInfo.day_items:type_name -> rigmix.rig.v1.Quantity
-	5,  // 3: rigmix.rig.v1.AssessRequest.sites:type_name -> rigmix.rig.v1.Site
-	7,  // 4: rigmix.rig.v1.Answer.hours:type_name -> rigmix.rig.v1.Hours
-	3,  // 5: rigmix.rig.v1.Answer.quantities:type_name -> rigmix.rig.v1.Quantity
-	8,  // 6: rigmix.rig.v1.AssessResponse.answers:type_name -> rigmix.rig.v1.Answer
-	3,  // 7: rigmix.rig.v1.MobilizeResponse.quantities:type_name -> rigmix.rig.v1.Quantity
-	12, // 8: rigmix.rig.v1.MovesRequest.legs:type_name -> rigmix.rig.v1.MoveLeg
-	0,  // 9: rigmix.rig.v1.Rig.Describe:input_type -> rigmix.rig.v1.DescribeRequest
-	6,  // 10: rigmix.rig.v1.Rig.Assess:input_type -> rigmix.rig.v1.AssessRequest
-	10, // 11: rigmix.rig.v1.Rig.Mobilize:input_type -> rigmix.rig.v1.MobilizeRequest
-	13, // 12: rigmix.rig.v1.Rig.Moves:input_type -> rigmix.rig.v1.MovesRequest
-	4,  // 13: rigmix.rig.v1.Rig.Describe:output_type -> rigmix.rig.v1.RigInfo
-	9,  // 14: rigmix.rig.v1.Rig.Assess:output_type -> rigmix.rig.v1.AssessResponse
-	11, // 15: rigmix.rig.v1.Rig.Mobilize:output_type -> rigmix.rig.v1.MobilizeResponse
-	14, // 16: rigmix.rig.v1.Rig.Moves:output_type -> rigmix.rig.v1.MovesResponse
-	13, // [13:17] is the sub-list for method output_type
-	9,  // [9:13] is the sub-list for method input_type
-	9,  // [9:9] is the sub-list for extension type_name
-	9,  // [9:9] is the sub-list for extension extendee
-	0,  // [0:9] is the sub-list for field type_name
+	6,  // 3: rigmix.rig.v1.Site.sample_schedule:type_name -> rigmix.rig.v1.SampleBand
+	5,  // 4: rigmix.rig.v1.AssessRequest.sites:type_name -> rigmix.rig.v1.Site
+	8,  // 5: rigmix.rig.v1.Answer.hours:type_name -> rigmix.rig.v1.Hours
+	3,  // 6: rigmix.rig.v1.Answer.quantities:type_name -> rigmix.rig.v1.Quantity
+	9,  // 7: rigmix.rig.v1.AssessResponse.answers:type_name -> rigmix.rig.v1.Answer
+	3,  // 8: rigmix.rig.v1.MobilizeResponse.quantities:type_name -> rigmix.rig.v1.Quantity
+	13, // 9: rigmix.rig.v1.MovesRequest.legs:type_name -> rigmix.rig.v1.MoveLeg
+	0,  // 10: rigmix.rig.v1.Rig.Describe:input_type -> rigmix.rig.v1.DescribeRequest
+	7,  // 11: rigmix.rig.v1.Rig.Assess:input_type -> rigmix.rig.v1.AssessRequest
+	11, // 12: rigmix.rig.v1.Rig.Mobilize:input_type -> rigmix.rig.v1.MobilizeRequest
+	14, // 13: rigmix.rig.v1.Rig.Moves:input_type -> rigmix.rig.v1.MovesRequest
+	4,  // 14: rigmix.rig.v1.Rig.Describe:output_type -> rigmix.rig.v1.RigInfo
+	10, // 15: rigmix.rig.v1.Rig.Assess:output_type -> rigmix.rig.v1.AssessResponse
+	12, // 16: rigmix.rig.v1.Rig.Mobilize:output_type -> rigmix.rig.v1.MobilizeResponse
+	15, // 17: rigmix.rig.v1.Rig.Moves:output_type -> rigmix.rig.v1.MovesResponse
+	14, // [14:18] is the sub-list for method output_type
+	10, // [10:14] is the sub-list for method input_type
+	10, // [10:10] is the sub-list for extension type_name
+	10, // [10:10] is the sub-list for extension extendee
+	0,  // [0:10] is the sub-list for field type_name
 }
 
 func init() { file_rig_proto_init() }
@@ -1081,7 +1153,7 @@ func file_rig_proto_init() {
 			GoPackagePath: reflect.TypeOf(x{}).PkgPath(),
 			RawDescriptor: unsafe.Slice(unsafe.StringData(file_rig_proto_rawDesc), len(file_rig_proto_rawDesc)),
 			NumEnums:      0,
-			NumMessages:   15,
+			NumMessages:   16,
 			NumExtensions: 0,
 			NumServices:   1,
 		},

@@ -71,7 +71,12 @@ func infoFromProto(in *proto.RigInfo) RigInfo {
 }
 
 func siteToProto(s Site) *proto.Site {
+	var sched []*proto.SampleBand
+	for _, b := range s.SampleSchedule {
+		sched = append(sched, &proto.SampleBand{ToFt: b.ToFt, EveryFt: b.EveryFt})
+	}
 	return &proto.Site{
+		SampleSchedule:   sched,
 		Id:               s.ID,
 		Method:           string(s.Method),
 		DepthFt:          s.DepthFt,
@@ -86,7 +91,12 @@ func siteToProto(s Site) *proto.Site {
 }
 
 func siteFromProto(s *proto.Site) Site {
+	var sched []SampleBand
+	for _, b := range s.GetSampleSchedule() {
+		sched = append(sched, SampleBand{ToFt: b.GetToFt(), EveryFt: b.GetEveryFt()})
+	}
 	return Site{
+		SampleSchedule:   sched,
 		ID:               s.GetId(),
 		Method:           Method(s.GetMethod()),
 		DepthFt:          s.GetDepthFt(),

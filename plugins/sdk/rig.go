@@ -96,6 +96,10 @@ type Site struct {
 	GroundwaterFt    float64 // depth to groundwater; 0 means unknown
 	RockFt           float64 // depth to rock; 0 means unknown or none
 	Environmental    bool    // soil and water brought up are investigation-derived waste
+	// SampleSchedule is the sampling schedule in borings, shallowest band
+	// first; empty: SampleIntervalFt, or the rig's default when that is 0
+	// too (ScheduleOf).
+	SampleSchedule []SampleBand
 }
 
 // AssessRequest is a batch of sites.

@@ -8,7 +8,8 @@ import (
 	"github.com/rigmix/rigmix/plugins/sdk"
 )
 
-// A 50-ft geotechnical boring sampled every 5 ft (the default), and a 25-ft
+// A 50-ft geotechnical boring sampled by the default schedule (every 2.5 ft to
+// 10 ft, then every 5 ft), and a 25-ft
 // boring on an environmental site: the hours on the point and the bill of
 // quantities the rate book prices.
 func Example() {
@@ -31,16 +32,16 @@ func Example() {
 		}
 	}
 	// Output:
-	// B-1: 5.65 h (setup 0.50, advance 1.67, sampling 2.48, grouting 0.75, teardown 0.25)
+	// B-1: 5.82 h (setup 0.50, advance 1.67, sampling 2.66, grouting 0.75, teardown 0.25)
 	//   drill-0-50     50.00 ft
-	//   spt-sample     11.00 each
+	//   spt-sample     12.00 each
 	//   grout-boring   50.00 ft
-	//   field-logging   5.65 hr
-	// B-2: 4.22 h (setup 0.50, advance 0.83, sampling 1.13, grouting 0.50, teardown 1.25)
+	//   field-logging   5.82 hr
+	// B-2: 4.39 h (setup 0.50, advance 0.83, sampling 1.31, grouting 0.50, teardown 1.25)
 	//   drill-0-50     25.00 ft
-	//   spt-sample      6.00 each
+	//   spt-sample      7.00 each
 	//   grout-boring   25.00 ft
 	//   idw-drum        3.00 each
-	//   field-logging   4.22 hr
+	//   field-logging   4.39 hr
 	// B-3: no: wet ground: tire-drill works only on firm ground
 }

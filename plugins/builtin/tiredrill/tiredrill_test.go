@@ -38,15 +38,17 @@ func TestQuantities(t *testing.T) {
 		sdk.Site{ID: "B-rock", Method: sdk.Boring, DepthFt: 60, RockFt: 40, Surface: sdk.Firm},
 		sdk.Site{ID: "B-cont", Method: sdk.Boring, DepthFt: 20, SampleIntervalFt: 2, Surface: sdk.Firm},
 	)
-	// Band split is plain arithmetic; sample counts follow 2.5, 5, then the
-	// interval (TxDOT LRFD Geotechnical Manual: every 5 ft from 5 ft).
+	// Band split is plain arithmetic. Sample counts: with no interval, the
+	// default schedule, every 2.5 ft to 10 ft then every 5 ft (common
+	// practice; ASTM D1586 sets no interval); with an interval, 2.5, 5,
+	// then every interval (the 2.5-ft sample is common practice).
 	tests := []struct {
 		answer int
 		item   string
 		want   float64
 	}{
 		{0, "drill-0-50", 50}, {0, "drill-50-100", 10}, {0, "drill-100-150", 0},
-		{0, "spt-sample", 13}, // 2.5, 5, 10 … 60
+		{0, "spt-sample", 14}, // 2.5, 5, 7.5, 10, 15 … 60
 		{0, "grout-boring", 60},
 		{0, "rock-core", 0},
 		{0, "idw-drum", 0}, // not an environmental site
@@ -54,9 +56,10 @@ func TestQuantities(t *testing.T) {
 		{1, "spt-sample", 13}, // 2.5, 5, then 15, 25 … 115 (11)
 		{1, "grout-boring", 120},
 		// Rock at 40 ft: 40 ft of auger in the 0–50 band, 20 ft of core,
-		// samples in soil only (2.5, 5, 10 … 40 = 9), grout the full hole.
+		// samples in soil only (2.5, 5, 7.5, 10, 15 … 40 = 10), grout the
+		// full hole.
 		{2, "drill-0-50", 40}, {2, "drill-50-100", 0}, {2, "rock-core", 20},
-		{2, "spt-sample", 9}, {2, "grout-boring", 60},
+		{2, "spt-sample", 10}, {2, "grout-boring", 60},
 		// Continuous sampling, 24-in barrels: every 2 ft to 20 ft = 10.
 		{3, "spt-sample", 10},
 	}

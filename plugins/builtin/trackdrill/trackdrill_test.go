@@ -29,9 +29,10 @@ func TestFeasibility(t *testing.T) {
 func TestQuantities(t *testing.T) {
 	r := rigtest.Serve(t, New())
 	a := rigtest.Assess(t, r, sdk.Site{ID: "B-1", Method: sdk.Boring, DepthFt: 75, Surface: sdk.Soft, Environmental: true})[0]
-	// 75 ft: 50 in 0–50, 25 in 50–100 (plain arithmetic); samples 2.5, 5,
-	// 10 … 75 = 2 + 14 = 16 at the 5-ft default; grout the full depth.
-	for item, want := range map[string]float64{"drill-0-50": 50, "drill-50-100": 25, "spt-sample": 16, "grout-boring": 75} {
+	// 75 ft: 50 in 0–50, 25 in 50–100 (plain arithmetic); samples by the
+	// default schedule, every 2.5 ft to 10 ft then every 5 ft (common
+	// practice): 2.5, 5, 7.5, 10, 15 … 75 = 4 + 13 = 17; grout the full depth.
+	for item, want := range map[string]float64{"drill-0-50": 50, "drill-50-100": 25, "spt-sample": 17, "grout-boring": 75} {
 		if got, _ := rigtest.Amount(a.Quantities, item); got != want {
 			t.Errorf("%s = %g, want %g", item, got, want)
 		}

@@ -156,11 +156,60 @@ func startRigs(ctx context.Context, cfg Config, sc *scenarios.Scenario) (*host.F
 		fleet.Close()
 		return nil, nil, err
 	}
+	if err := checkMethodsOffered(ctx, sc, fleet); err != nil {
+		fleet.Close()
+		return nil, nil, err
+	}
 	rigs := map[string]sdk.Rig{}
 	for _, r := range fleet.Rigs() {
 		rigs[r.Info.Name] = r
 	}
 	return fleet, rigs, nil
+}
+
+// checkMethodsOffered refuses, in one line naming the field, a method a
+// zone allows that no offered rig performs (probe with only drill rigs
+// offered, say), and names the built-in rigs that could; none doing it,
+// it says a plugin rig would have to.
+func checkMethodsOffered(ctx context.Context, sc *scenarios.Scenario, fleet *host.Fleet) error {
+	offered := map[sdk.Method][]string{}
+	var names []string
+	for _, r := range fleet.Rigs() {
+		names = append(names, r.Info.Name)
+		for _, m := range r.Info.Methods {
+			offered[m.Method] = append(offered[m.Method], r.Info.Name)
+		}
+	}
+	for z, zn := range sc.Zones {
+		for j, m := range zn.Rules.Methods {
+			if len(offered[m]) > 0 {
+				continue
+			}
+			var could []string
+			for _, n := range builtin.Names() {
+				r, err := builtin.New(n)
+				if err != nil {
+					return err
+				}
+				info, err := r.Describe(ctx)
+				if err != nil {
+					return err
+				}
+				for _, ml := range info.Methods {
+					if ml.Method == m {
+						could = append(could, n)
+					}
+				}
+			}
+			fix := "no built-in rig performs it: offer a plugin rig that does (--plugin-dir), or remove it from the zone's methods"
+			if len(could) > 0 {
+				fix = "built-in rigs that could: " + strings.Join(could, ", ") + "; add one to rigs, or remove it from the zone's methods"
+			}
+			return usageError{fmt.Errorf("%s: zones[%d].rules.methods[%d]: zone %q allows %s, but no offered rig performs it (offered: %s); %s",
+				sc.Source, z, j, zn.ID, m, strings.Join(names, ", "), fix)}
+		}
+	}
+	return nil
 }
 
 // checkRigsOffered names, by its field path, a rig the scenario offers that

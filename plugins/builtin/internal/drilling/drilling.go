@@ -109,7 +109,7 @@ func Point(r Rates) fieldwork.Point {
 			qs = append(qs, fieldwork.Qty(fieldwork.ItemRockCore, fieldwork.UnitFt, rockFt,
 				fmt.Sprintf("NQ wireline core from rock at %.4g ft (ASTM D2113)", s.RockFt)))
 		}
-		samples := fieldwork.SampleDepths(soilFt, s.SampleIntervalFt)
+		samples := fieldwork.BoringSampleDepths(s, soilFt)
 		for _, d := range samples {
 			h.Sampling += r.SPTBaseHr + r.SPTHrPerFt*d
 		}

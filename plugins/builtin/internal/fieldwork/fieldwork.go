@@ -86,38 +86,27 @@ const (
 	SPTDriveNote   = "18 in driven in three 6-in increments, N = blows of the last two (ASTM D1586)"
 )
 
-// firstSamplesFt are the two shallow samples taken before the regular
-// interval starts: at 2.5 ft (just below topsoil) and 5 ft (common practice).
-var firstSamplesFt = []float64{2.5, 5}
-
-// SampleDepths gives the depths (top of each drive, ft) of split-barrel
-// samples in a boring of depthFt at intervalFt (0: DefaultSampleIntervalFt).
-// For intervals of 2.5 ft or more: 2.5, 5, then every interval after 5 ft.
-// For shorter (continuous) intervals: every interval from the surface
-// interval onward. A sample counts when its top is at or above the bottom of
-// the hole (common practice: the boring ends with its last sample).
+// SampleDepths gives the depths (top of each drive, ft) of samples in a
+// hole of depthFt at intervalFt (0: DefaultSampleIntervalFt): for intervals
+// of 2.5 ft or more, 2.5, 5, then every interval after 5 ft; for shorter
+// (continuous) intervals, every interval from the surface
+// (sdk.IntervalSchedule). A sample counts when its top is at or above the
+// bottom of the hole (common practice: the hole ends with its last sample).
+// Test pits take their bag samples by this rule.
 func SampleDepths(depthFt, intervalFt float64) []float64 {
-	if intervalFt <= 0 || math.IsNaN(intervalFt) {
+	if intervalFt <= 0 || math.IsNaN(intervalFt) || math.IsInf(intervalFt, 0) {
 		intervalFt = DefaultSampleIntervalFt
 	}
-	var out []float64
-	const eps = 1e-9
-	if intervalFt < firstSamplesFt[0] {
-		for k := 1; float64(k)*intervalFt <= depthFt+eps; k++ {
-			out = append(out, float64(k)*intervalFt)
-		}
-		return out
-	}
-	for _, d := range firstSamplesFt {
-		if d <= depthFt+eps {
-			out = append(out, d)
-		}
-	}
-	last := firstSamplesFt[len(firstSamplesFt)-1]
-	for k := 1; last+float64(k)*intervalFt <= depthFt+eps; k++ {
-		out = append(out, last+float64(k)*intervalFt)
-	}
-	return out
+	return sdk.SampleDepths(depthFt, sdk.IntervalSchedule(intervalFt))
+}
+
+// BoringSampleDepths gives the depths of split-barrel samples in soilFt of
+// soil at a boring site, by the site's schedule (sdk.ScheduleOf): its
+// SampleSchedule, else its SampleIntervalFt, else the default schedule,
+// every 2.5 ft to 10 ft then every 5 ft (common practice; ASTM D1586 sets
+// no interval).
+func BoringSampleDepths(s sdk.Site, soilFt float64) []float64 {
+	return sdk.SampleDepths(soilFt, sdk.ScheduleOf(s))
 }
 
 // DescribeDepths writes sample depths for an estimate note: "2.5, 5, 10 … 60 ft".
