@@ -698,6 +698,13 @@ func (d *decoder) decode(m map[string]any) (*Scenario, error) {
 	}
 	s.YardMiles = yard
 
+	s.MinSeparationFt = DefaultMinSeparationFt
+	if f, ok, err := d.length(m, "", "min_separation", 100, DefaultMinSeparationFt, "the least distance between two points of a plan"); err != nil {
+		return nil, err
+	} else if ok {
+		s.MinSeparationFt = f
+	}
+
 	s.HoursDay = DefaultHoursPerDay
 	if h, ok, err := d.number(m, "", "hours_per_day", bound{min: 0, minOpen: true, max: 24, unit: "h", hint: "working hours in a field day, e.g. 10"}); err != nil {
 		return nil, err
@@ -954,10 +961,32 @@ func (d *decoder) rules(m map[string]any, p string, z *Zone) (Rules, error) {
 	}
 	for i, raw := range rp {
 		ip := fmt.Sprintf("%s.required_points[%d]", p, i)
+		var how PointHow
+		if pm, ok := raw.(map[string]any); ok {
+			// {at: [x, y], method: boring, rig: tire-drill}
+			for k := range pm {
+				if k != "at" && k != "method" && k != "rig" {
+					return r, d.errf(ip+"."+k, "a required point is [x, y] or {at: [x, y], method: METHOD, rig: RIG}", "unknown key %q", k)
+				}
+			}
+			if pm["at"] == nil {
+				return r, d.errf(ip+".at", "give the point as at: [x, y]", "is missing")
+			}
+			if m, ok, err := d.choice(pm, ip, "method", methods); err != nil {
+				return r, err
+			} else if ok {
+				how.Method = sdk.Method(m)
+			}
+			if how.Rig, _, err = d.str(pm, ip, "rig", "the name of an offered rig, e.g. tire-drill"); err != nil {
+				return r, err
+			}
+			raw, ip = pm["at"], ip+".at"
+		}
 		pt, err := d.point(raw, ip)
 		if err != nil {
 			return r, err
 		}
+		r.RequiredHow = append(r.RequiredHow, how)
 		if !insideOrOn(z.Polygon, pt) {
 			return r, d.errf(ip, "a required point must lie inside its zone's polygon", "[%s, %s] is outside the zone", fmtNum(pt.X/d.ftPer), fmtNum(pt.Y/d.ftPer))
 		}

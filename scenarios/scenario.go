@@ -38,12 +38,16 @@ type Scenario struct {
 	Zones    []Zone
 	NoGo     []NoGo
 
-	Rigs       []string // rig names offered (built-in or plugin)
-	RateBook   string   // demo rate-book name, or a file path already resolved against the scenario file's folder
-	YardMiles  float64  // one-way distance from the rig yard, miles
-	HoursDay   float64  // working hours per field day
-	GapRel     float64  // relative optimality gap the solve stops at
-	TimeLimitS float64  // solve time limit, seconds (0: none)
+	Rigs      []string // rig names offered (built-in or plugin)
+	RateBook  string   // demo rate-book name, or a file path already resolved against the scenario file's folder
+	YardMiles float64  // one-way distance from the rig yard, miles
+	// MinSeparationFt is the least distance between two points of a plan
+	// (DefaultMinSeparationFt unless the file says), whatever zones they
+	// serve; two required points may be closer.
+	MinSeparationFt float64
+	HoursDay        float64 // working hours per field day
+	GapRel          float64 // relative optimality gap the solve stops at
+	TimeLimitS      float64 // solve time limit, seconds (0: none)
 
 	// Lab is the program of laboratory tests priced on the samples the
 	// plan recovers, for every zone; nil means each zone's samples get
@@ -148,7 +152,10 @@ type Rules struct {
 	// rule without a spacing rule gets (the file's "spread: false").
 	NoSpread       bool
 	RequiredPoints []geom.Point // points that must be explored
-	Source         string       // where the rule numbers come from
+	// RequiredHow is, for each required point, the method and rig it must
+	// be explored by ("" for either: any the zone allows).
+	RequiredHow []PointHow
+	Source      string // where the rule numbers come from
 
 	// Preset is the name of the rules.Presets entry the zone names, or "".
 	Preset string
@@ -158,6 +165,17 @@ type Rules struct {
 	// …" when worked out (depth from stories or a footing, the NAVFAC
 	// footprint minimum), "default: …" for a default.
 	Origins map[string]string
+}
+
+// DefaultMinSeparationFt keeps two holes of a plan at least 5 ft apart, so
+// that one does not stand in the other's disturbed ground and two zones
+// sharing an edge do not both drill the same spot (common practice).
+const DefaultMinSeparationFt = 5.0
+
+// PointHow fixes how a required point is explored.
+type PointHow struct {
+	Method sdk.Method `json:",omitempty"`
+	Rig    string     `json:",omitempty"`
 }
 
 // Origin values for rules the file states and for defaults.

@@ -12,6 +12,7 @@
 //	minimize  Σ c[o] x[o] + Σ M[r] y[r] + Σ D[r] d[r] + w T
 //	s.t.      Σ_{o at p∈S} x[o] ≥ 1           every coverage row S
 //	          Σ_{o at p} x[o] ≤ 1 (= 1 if required)   each point
+//	          Σ_{o at p or q} x[o] ≤ 1        points p, q closer than the separation
 //	          Σ_{o at p, rig r} x[o] ≤ y[r]    each point and rig
 //	          Σ_{o in zone} x[o] ≥ n[z]        per-zone minimum count
 //	          Σ_{sampled o in z} x[o] − s[z] Σ_{o in z} x[o] ≥ 0   sampled share
@@ -94,6 +95,9 @@ type Spec struct {
 	Required    []bool // point must be explored (nil: none)
 	Options     []Option
 	CoverRows   [][]int // each a set of points of which at least one is explored
+	// Apart are pairs of points of which at most one is explored (closer
+	// than the plan's minimum separation).
+	Apart [][2]int
 	Zones       []Zone
 	Rigs        []Rig
 	HoursPerDay float64
@@ -267,6 +271,18 @@ func Build(s *Spec) (*Model, error) {
 			cols[k] = m.XCol[o]
 		}
 		b.row(fmt.Sprintf("one_p%d", p), lo, 1, cols, ones(len(cols)))
+	}
+	// Points too close together: at most one of each pair.
+	for _, pq := range s.Apart {
+		var cols []int
+		for _, p := range pq {
+			for _, o := range byPoint[p] {
+				cols = append(cols, m.XCol[o])
+			}
+		}
+		if len(byPoint[pq[0]]) > 0 && len(byPoint[pq[1]]) > 0 {
+			b.row(fmt.Sprintf("apart_p%d_p%d", pq[0], pq[1]), math.Inf(-1), 1, cols, ones(len(cols)))
+		}
 	}
 	// Point-and-rig linking.
 	for p, opts := range byPoint {

@@ -238,7 +238,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		b.DaysSaved = b.FieldDays - p.Finish
 		p.Baseline = b
 	}
-	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth, pr.ExactReach(chosenPoint))
+	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth, pr.ExactReach(chosenPoint), pr.NeighbourFt(chosenPoint))
 	p.Warnings = append(p.Warnings, shallowBuildingWarnings(sc)...)
 	pb := pr.Model.Problem
 	if math.IsInf(res.Bound, 0) || math.IsNaN(res.Bound) {
@@ -259,7 +259,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 	return p, nil
 }
 
-func (pr *Prepared) ruleChecks(count, sampled []int, minDepth []float64, farthest []geom.Spot) []RuleCheck {
+func (pr *Prepared) ruleChecks(count, sampled []int, minDepth []float64, farthest []geom.Spot, neighbour []float64) []RuleCheck {
 	sc := pr.In.Scenario
 	var out []RuleCheck
 	for z, zn := range sc.Zones {
@@ -278,6 +278,10 @@ func (pr *Prepared) ruleChecks(count, sampled []int, minDepth []float64, farthes
 				rc.Achieved = fmt.Sprintf("farthest ground %.1f ft from a point, at %s", f.Dist, spotText(f.At))
 				rc.FarthestFt = round(f.Dist, 3)
 				rc.FarthestAt = &XY{XFt: round(f.At.X, 1), YFt: round(f.At.Y, 1)}
+				if neighbour[z] > 0 {
+					rc.Achieved += fmt.Sprintf("; neighbouring points at most %.1f ft apart", neighbour[z])
+					rc.NeighbourFt = round(neighbour[z], 3)
+				}
 			} else {
 				rc.Achieved = "no point in the zone"
 			}

@@ -89,6 +89,24 @@ func (pr *Prepared) ExactReach(chosen []bool) []geom.Spot {
 	return out
 }
 
+// NeighbourFt returns, per zone with a spacing rule, the largest distance
+// between two of its chosen points that are neighbours across its ground
+// (geom.NeighbourPairs: Voronoi regions sharing an edge on the ground), 0
+// with fewer than two points.
+func (pr *Prepared) NeighbourFt(chosen []bool) []float64 {
+	pts, _ := pr.zonePoints(chosen)
+	out := make([]float64, len(pts))
+	for z := range pts {
+		if pr.Layout.RadiusFt[z] == 0 {
+			continue
+		}
+		for _, pq := range geom.NeighbourPairs(pr.Ground(z), pts[z]) {
+			out[z] = max(out[z], pts[z][pq[0]].Dist(pts[z][pq[1]]))
+		}
+	}
+	return out
+}
+
 // zoneSpot is a spot of zone Zone's ground beyond its covering radius.
 type zoneSpot struct {
 	Zone int

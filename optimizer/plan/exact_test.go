@@ -85,6 +85,15 @@ func checkCoverage(t *testing.T, in Input, steps float64) *Plan {
 		t.Fatal(err)
 	}
 	sc := in.Scenario
+	// No two holes closer than the minimum separation (5 ft by default,
+	// common practice), whatever zones they serve.
+	for i, a := range p.Points {
+		for _, b := range p.Points[i+1:] {
+			if d := math.Hypot(a.XFt-b.XFt, a.YFt-b.YFt); d < sc.MinSeparationFt-0.15 && !(a.Required && b.Required) {
+				t.Errorf("points %s (zone %s) and %s (zone %s) are %.2f ft apart; the separation is %.1f ft", a.ID, a.Zone, b.ID, b.Zone, d, sc.MinSeparationFt)
+			}
+		}
+	}
 	var nogo []geom.Polygon
 	for _, ng := range sc.NoGo {
 		nogo = append(nogo, ng.Polygon)

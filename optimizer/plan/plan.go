@@ -127,6 +127,10 @@ type RuleCheck struct {
 	// geom.Farthest); absent for other rules.
 	FarthestFt float64 `json:"farthest_ft,omitempty"`
 	FarthestAt *XY     `json:"farthest_at,omitempty"`
+	// NeighbourFt is the largest distance between two neighbouring points
+	// of the zone (Voronoi neighbours across its ground), for a spacing
+	// rule read as "points no farther apart than"; 0 with fewer than two.
+	NeighbourFt float64 `json:"neighbour_ft,omitempty"`
 }
 
 // XY is a place in the site's local frame, in feet.

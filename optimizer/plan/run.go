@@ -82,6 +82,8 @@ type Prepared struct {
 	// computing CoverMin (nil when the zone has no spacing rule or none
 	// was found); the start solution is built from it.
 	CoverSets [][]int
+	// reqHow fixes the method or rig of required candidates.
+	reqHow map[int]scenarios.PointHow
 	// ImpliedRadiusFt is, per zone, the covering radius a count rule
 	// implies where no spacing rule is given (0: none; see ImpliedRadius).
 	ImpliedRadiusFt []float64
@@ -185,9 +187,10 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 			// square grid with one point per the rule's area.
 			cand = 0.5 * math.Sqrt(zn.Rules.AreaPerPointFt2)
 		}
-		if spacing == 0 && pr.ZoneMin[z] > 0 && !zn.Rules.NoSpread {
-			// A count rule spreads its points: see ImpliedRadius.
-			r := ImpliedRadius(zn.Polygon.Area(), pr.ZoneMin[z])
+		// A count rule spreads its points (see ImpliedRadius), unless they
+		// are so many that their candidates would be closer than the
+		// plan's minimum separation: then there is nothing to spread.
+		if r := ImpliedRadius(zn.Polygon.Area(), pr.ZoneMin[z]); spacing == 0 && r > 0 && !zn.Rules.NoSpread && 0.25*r*math.Sqrt2 >= sc.MinSeparationFt {
 			pr.ImpliedRadiusFt[z] = r
 			spacing, lattice = r*math.Sqrt2, string(scenarios.Square)
 			// A quarter of the spacing: with few points each one's place
@@ -219,6 +222,24 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		return nil, inputErrorf("%s: %v", sc.Source, err)
 	}
 	pr.Layout = lay
+	// Required points that fix their method or rig, by candidate.
+	pr.reqHow = map[int]scenarios.PointHow{}
+	for q, c := range lay.Candidates {
+		if !c.Required {
+			continue
+		}
+		r := sc.Zones[c.Zone].Rules
+		for k, pt := range r.RequiredPoints {
+			if k < len(r.RequiredHow) && pt == c.P && (r.RequiredHow[k] != scenarios.PointHow{}) {
+				how := r.RequiredHow[k]
+				if how.Rig != "" && !slices.Contains(sc.Rigs, how.Rig) {
+					return nil, inputErrorf("%s: zones[%d].rules.required_points[%d].rig: %q is not offered (rigs: %s); offer it or name one of those",
+						sc.Source, c.Zone, k, how.Rig, strings.Join(sc.Rigs, ", "))
+				}
+				pr.reqHow[q] = how
+			}
+		}
+	}
 
 	// One batched question per rig: every distinct (zone, method) site.
 	t0 = time.Now()
@@ -337,6 +358,28 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		spec.Required[p] = c.Required || c.Corner
 		pr.appendOptions(spec, p)
 	}
+	spec.Apart = apartPairs(lay.Candidates, sc.MinSeparationFt)
+	// A required point whose method or rig no offered rig can do there.
+	hasOption := make([]bool, len(lay.Candidates))
+	for _, op := range spec.Options {
+		hasOption[op.Point] = true
+	}
+	for q := range lay.Candidates {
+		if how, ok := pr.reqHow[q]; ok && !hasOption[q] {
+			c := lay.Candidates[q]
+			zn := sc.Zones[c.Zone]
+			k := slices.Index(zn.Rules.RequiredPoints, c.P)
+			what := string(how.Method)
+			if what == "" {
+				what = "any method"
+			}
+			if how.Rig != "" {
+				what += " by " + how.Rig
+			}
+			return nil, inputErrorf("%s: zones[%d].rules.required_points[%d]: %s cannot be done in zone %q (see the options the rigs ruled out with rigmix rigs); allow another method or rig for this point",
+				sc.Source, c.Zone, k, what, zn.ID)
+		}
+	}
 	t0 = time.Now()
 	pr.CoverMin, pr.CoverSets, err = coverNumbers(ctx, pr, spec)
 	pr.Timings.add("zone covering numbers", t0)
@@ -388,14 +431,45 @@ func ImpliedRadius(areaFt2 float64, n int) float64 {
 	return math.Sqrt(areaFt2 / float64(n))
 }
 
+// apartPairs lists the candidate pairs closer than sep (both required
+// excepted: the scenario asks for both), in index order.
+func apartPairs(cands []candidates.Candidate, sep float64) [][2]int {
+	if !(sep > 0) {
+		return nil
+	}
+	pts := make([]geom.Point, len(cands))
+	for i, c := range cands {
+		pts[i] = c.P
+	}
+	g := geom.NewGrid(pts, sep)
+	var out [][2]int
+	var buf []int
+	for p, c := range cands {
+		buf = g.WithinSorted(c.P, sep*(1-1e-9), buf[:0])
+		for _, q := range buf {
+			if q > p && !(c.Required && cands[q].Required) {
+				out = append(out, [2]int{p, q})
+			}
+		}
+	}
+	return out
+}
+
 // appendOptions adds candidate p's options — every method its zone allows
 // with every rig that can do it there — to pr.Options and spec.Options.
 func (pr *Prepared) appendOptions(spec *model.Spec, p int) {
 	c := pr.Layout.Candidates[p]
 	zn := pr.In.Scenario.Zones[c.Zone]
+	how, fixed := pr.reqHow[p]
 	for ri := range pr.Rigs {
 		rd := &pr.Rigs[ri]
+		if fixed && how.Rig != "" && how.Rig != rd.name {
+			continue
+		}
 		for _, m := range allMethods {
+			if fixed && how.Method != "" && how.Method != m {
+				continue
+			}
 			prof, ok := rd.profiles[profileKey{c.Zone, m}]
 			if !ok || !prof.answer.Feasible {
 				continue
