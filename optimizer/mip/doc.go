@@ -89,6 +89,17 @@
 //     Lagrangian MIP heuristic, Mathematical Programming Computation
 //     15:365–388 (volume and pages from memory).
 //
+// # Infinite and large values
+//
+// A bound (column or row) of magnitude lp.Infinity = 1e20 or more is
+// infinite: Solve reads 1e30 as "no bound", as CPLEX, CBC and HiGHS do.
+// Finite bounds, costs and coefficients must be at most lp.MaxFinite =
+// 1e15 in magnitude; Validate and Solve refuse others rather than risk a
+// wrong optimum, and ReadMPS also refuses nonzero coefficients below
+// MinCoef = 1e-15. A maximization read from MPS (OBJSENSE MAX) is solved
+// as the minimization of the negated objective; Problem.Sense turns a
+// result back into the file's own sense.
+//
 // Files in free MPS format are read and written by ReadMPS and WriteMPS;
 // OR-Library set-covering files by ReadORLibSetCover.
 package mip

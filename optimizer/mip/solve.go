@@ -46,6 +46,7 @@ func Solve(ctx context.Context, p *Problem, opt Options) (*Result, error) {
 	if err := p.Validate(); err != nil {
 		return nil, err
 	}
+	p = p.normalized()
 	if ctx == nil {
 		ctx = context.Background()
 	}

@@ -2,7 +2,6 @@ package cli
 
 import (
 	"bytes"
-	"encoding/json"
 	"fmt"
 	"io"
 	"os"
@@ -130,6 +129,7 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	c := &cobra.Command{
 		Use:   "solve MODEL.mps",
 		Short: "Solve any mixed-integer model in free MPS form with rigmix's engine (for cross-checks)",
+		Long:  solveLong,
 		Args:  cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			cfg, err := g.load(cmd.Flags())
@@ -150,7 +150,7 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 				opt.TimeLimit = time.Duration(cfg.TimeLimit * float64(time.Second))
 			}
 			if !o.asJSON && isTerminal(stderr) {
-				opt.Progress = progressPrinter(stderr)
+				opt.Progress = senseProgress(p, progressPrinter(stderr))
 			}
 			res, err := mip.Solve(cmd.Context(), p, opt)
 			if opt.Progress != nil {
@@ -159,19 +159,11 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 			if err != nil {
 				return err
 			}
+			sum := summarize(p, res)
 			if o.asJSON {
-				out := map[string]any{
-					"model": p.Name, "status": res.Status.String(), "objective": res.Obj,
-					"bound": res.Bound, "gap": res.Gap, "nodes": res.Nodes,
-					"lp_iterations": res.LPIterations, "seconds": res.Elapsed.Seconds(),
-				}
-				enc := json.NewEncoder(stdout)
-				enc.SetIndent("", "  ")
-				return enc.Encode(out)
+				return sum.writeJSON(stdout)
 			}
-			fmt.Fprintf(stdout, "model      %s (%d rows, %d columns)\nstatus     %s\nobjective  %.10g\nbound      %.10g\ngap        %.6f%%\nnodes      %d\ntime       %s\n",
-				p.Name, p.LP.NumRows, p.LP.NumCols, res.Status, res.Obj, res.Bound, 100*res.Gap, res.Nodes, res.Elapsed.Round(time.Millisecond))
-			return nil
+			return sum.writeText(stdout)
 		},
 	}
 	c.Flags().BoolVar(&o.asJSON, "json", false, "print the result as JSON")
