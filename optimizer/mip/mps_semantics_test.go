@@ -152,14 +152,12 @@ ENDATA
 // test when the folder is absent.
 func publicFile(t testing.TB, name string) string {
 	t.Helper()
-	b, err := os.ReadFile(filepath.Join(publicDir, name))
+	b, err := os.ReadFile(filepath.Join(dataDir(t, "mps-public"), name))
 	if err != nil {
-		t.Skipf("%s not readable (%v): the public MPS test set is absent; skipping", name, err)
+		t.Fatalf("%s: %v", name, err)
 	}
 	return string(b)
 }
-
-const publicDir = "../../../shared/data/mps-public"
 
 // withBounds returns the MPS text with a BOUNDS line "typ BND col value"
 // for every column added before ENDATA (in a BOUNDS section of its own
