@@ -289,6 +289,10 @@ func (e *engine) checkStop() bool {
 		e.stopped, e.stopStat = true, NodeLimit
 		return true
 	}
+	if e.opt.WorkLimit > 0 && e.lpIter >= e.opt.WorkLimit {
+		e.stopped, e.stopStat = true, WorkLimit
+		return true
+	}
 	return false
 }
 

@@ -121,7 +121,8 @@ func newDemosCmd(stdout io.Writer) *cobra.Command {
 }
 
 type solveOptions struct {
-	asJSON bool
+	asJSON    bool
+	workLimit int
 }
 
 func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -145,7 +146,10 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 			if err != nil {
 				return usageError{fmt.Errorf("%s: %v", args[0], err)}
 			}
-			opt := mip.Options{GapRel: cfg.Gap, Threads: cfg.Threads}
+			if o.workLimit < 0 {
+				return usageError{fmt.Errorf("--work-limit: must be ≥ 0 simplex iterations, got %d", o.workLimit)}
+			}
+			opt := mip.Options{GapRel: cfg.Gap, Threads: cfg.Threads, WorkLimit: o.workLimit}
 			if cfg.TimeLimit > 0 {
 				opt.TimeLimit = time.Duration(cfg.TimeLimit * float64(time.Second))
 			}
@@ -167,6 +171,7 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 		},
 	}
 	c.Flags().BoolVar(&o.asJSON, "json", false, "print the result as JSON")
+	c.Flags().IntVar(&o.workLimit, "work-limit", 0, "stop after this many simplex iterations (deterministic: the same result on every run; 0: none)")
 	c.Flags().Float64("gap", 0, "relative optimality gap to stop at")
 	c.Flags().Float64("time-limit", 0, "seconds")
 	c.Flags().Int("threads", 1, "solver threads (1 or 2)")

@@ -134,11 +134,16 @@ The objective and the bound are printed in the file's own sense: with OBJSENSE M
 the objective is the maximum and the bound an upper bound ("sense maximize").
 
 --json prints one object: model, sense ("minimize" or "maximize"), status
-("optimal", "infeasible", "unbounded", "time limit", "node limit", "interrupted"),
+("optimal", "infeasible", "unbounded", "time limit", "node limit", "work limit",
+"interrupted"),
 objective (null when no solution was found; "-inf" or "+inf" when unbounded),
 bound and gap (numbers, or the strings "+inf" and "-inf" where infinite: an
 infeasible minimization has bound "+inf", a search stopped before any bound
 "-inf"), nodes, lp_iterations and seconds.
+
+--work-limit N stops the search after N simplex iterations, checked between nodes:
+unlike --time-limit it gives the same result on every run whatever the machine's
+load. The time limit stays a safety; status "time limit" says that it fired.
 
 The exit status is 0 whenever the solve ran to a status, whichever it is (the
 status line says how it ended); 2 for a file that cannot be read; 1 for an
