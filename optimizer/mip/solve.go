@@ -91,6 +91,7 @@ func Solve(ctx context.Context, p *Problem, opt Options) (*Result, error) {
 	res.Status = status
 	res.Nodes = e.nodes
 	res.LPIterations = e.lpIter
+	res.Cuts = e.cutsAdded
 	if e.inc != nil {
 		res.X = ps.postsolve(e.inc)
 		res.Obj = e.incObj + e.offset
@@ -200,6 +201,7 @@ type engine struct {
 	seq            int
 	nodes          int
 	lpIter         int
+	cutsAdded      int
 	storedBases    int
 	pcSum          [2][]float64 // pseudocost sums per unit change: 0 down, 1 up
 	pcCnt          [2][]int
@@ -708,6 +710,11 @@ func (e *engine) search(root *node) (Status, error) {
 		}
 		isRoot := !rootSeen
 		rootSeen = true
+		if isRoot && r.Status == lp.Optimal {
+			if r, err = e.rootCuts(r); err != nil {
+				return 0, err
+			}
+		}
 		switch r.Status {
 		case lp.Infeasible:
 			continue

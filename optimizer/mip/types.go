@@ -83,6 +83,9 @@ type Options struct {
 	// how soon a good plan is known.
 	Start []float64
 
+	// noCuts turns the root cutting planes off (tests).
+	noCuts bool
+
 	// subMIP marks the solve of a sub-problem built by a heuristic, which
 	// runs no sub-MIP heuristic of its own (rensMaxDepth).
 	subDepth int
@@ -97,6 +100,8 @@ type Result struct {
 	// proven lower bound; Gap = (Obj-Bound)/max(1,|Obj|).
 	Obj, Bound, Gap     float64
 	Nodes, LPIterations int
+	// Cuts is the number of cutting planes added to the root LP.
+	Cuts int
 	// PresolvedRows and PresolvedCols give the size of the problem the
 	// search worked on, after presolve.
 	PresolvedRows, PresolvedCols int
