@@ -186,40 +186,37 @@ type engine struct {
 	cover  *coverData
 	lr     *lagrangeResult // root Lagrangian multipliers (covering)
 
-	s              *lp.Solver
-	s2             *lp.Solver // second solver for parallel strong branching
-	s2ok           bool       // s2 holds the optimal basis of the current node
-	glo, gup       []float64  // global bounds (root, tightened by fixing)
-	clo, cup       []float64  // bounds currently set in s
-	touched        []int      // columns whose bounds in s differ from global
-	isTouched      []bool
-	gran           float64 // feasible objective values are multiples of gran (0: unknown)
-	rowsOf         [][]int // row lists by column (for feasibility checks)
-	inc            []float64
-	incObj         float64
-	queue          nodeQueue
-	seq            int
-	nodes          int
-	lpIter         int
-	cutsAdded      int
-	storedBases    int
-	pcSum          [2][]float64 // pseudocost sums per unit change: 0 down, 1 up
-	pcCnt          [2][]int
-	pcAllSum       [2]float64
-	pcAllCnt       [2]int
-	lastBd         float64
-	prunedMin      float64 // least bound of any region pruned by the gap rule
-	curBound       float64 // bound of the node being processed
-	stopStat       Status
-	stopped        bool
-	rootDone       bool
-	diveEvery      int
-	lastDiveNode   int
-	lastRinsNode   int
-	rcFixedGlobal  int
-	rootLPObj      float64
-	rootRC, rootX  []float64
-	rootIntFixDone bool
+	s             *lp.Solver
+	s2            *lp.Solver // second solver for parallel strong branching
+	s2ok          bool       // s2 holds the optimal basis of the current node
+	glo, gup      []float64  // global bounds (root, tightened by fixing)
+	clo, cup      []float64  // bounds currently set in s
+	touched       []int      // columns whose bounds in s differ from global
+	isTouched     []bool
+	gran          float64 // feasible objective values are multiples of gran (0: unknown)
+	inc           []float64
+	incObj        float64
+	queue         nodeQueue
+	seq           int
+	nodes         int
+	lpIter        int
+	cutsAdded     int
+	storedBases   int
+	pcSum         [2][]float64 // pseudocost sums per unit change: 0 down, 1 up
+	pcCnt         [2][]int
+	pcAllSum      [2]float64
+	pcAllCnt      [2]int
+	lastBd        float64
+	prunedMin     float64 // least bound of any region pruned by the gap rule
+	curBound      float64 // bound of the node being processed
+	stopStat      Status
+	stopped       bool
+	rootDone      bool
+	lastDiveNode  int
+	lastRinsNode  int
+	rcFixedGlobal int
+	rootLPObj     float64
+	rootRC, rootX []float64
 }
 
 func (e *engine) globalBound() float64 {
