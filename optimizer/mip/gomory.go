@@ -36,6 +36,7 @@ const (
 	gmiMinEfficacy = 1e-4
 	gmiMaxParallel = 0.98
 	gmiMaxAlpha    = 1e7 // skip tableau rows with larger entries
+	gmiMaxRows     = 200 // tableau rows examined per round
 )
 
 // cut is π x ≥ π0 over the columns of the presolved problem.
@@ -101,7 +102,14 @@ func gmiCandidates(s *lp.Solver, g *gmiState, integer []bool, x, lo, up []float6
 	n, m := s.NumCols(), s.NumRows()
 	alpha := make([]float64, n+m)
 	pi := make([]float64, n)
-	var out []cut
+	// The rows of the most fractional basic columns, at most gmiMaxRows
+	// (ties by position).
+	type cand struct {
+		p    int
+		f0   float64
+		dist float64
+	}
+	var rows []cand
 	for p := 0; p < m; p++ {
 		j := s.BasicVar(p)
 		if j >= n || !integer[j] {
@@ -111,6 +119,16 @@ func gmiCandidates(s *lp.Solver, g *gmiState, integer []bool, x, lo, up []float6
 		if f0 < gmiMinFrac || f0 > 1-gmiMinFrac {
 			continue
 		}
+		rows = append(rows, cand{p, f0, math.Abs(f0 - 0.5)})
+	}
+	sort.SliceStable(rows, func(a, b int) bool { return rows[a].dist < rows[b].dist })
+	if len(rows) > gmiMaxRows {
+		rows = rows[:gmiMaxRows]
+	}
+	var out []cut
+	for _, rc := range rows {
+		p, f0 := rc.p, rc.f0
+		j := s.BasicVar(p)
 		if s.TableauRow(p, alpha) != nil {
 			return out
 		}
@@ -288,6 +306,14 @@ func (e *engine) rootCuts(r *lp.Result) (*lp.Result, error) {
 	if e.cover != nil || e.opt.subDepth > 0 || e.opt.noCuts {
 		return r, nil
 	}
+	if e.inc != nil && e.wouldPrune(r.Obj) {
+		// A start or a heuristic already meets the gap at the root.
+		return r, nil
+	}
+	// The cut rounds may spend as many simplex iterations as the root LP
+	// took (at least 1,000).
+	budget := max(1000, r.Iterations)
+	spent := 0
 	g := newGMIState(&e.p.LP)
 	perRound := max(10, min(100, g.m0/2))
 	total := max(50, 2*g.m0)
@@ -327,10 +353,11 @@ func (e *engine) rootCuts(r *lp.Result) (*lp.Result, error) {
 			return nil, err
 		}
 		r = nr
+		spent += r.Iterations
 		if r.Status != lp.Optimal {
 			return r, nil
 		}
-		if r.Obj-z0 < 1e-6*math.Max(1, math.Abs(z0)) {
+		if r.Obj-z0 < 1e-6*math.Max(1, math.Abs(z0)) || spent >= budget {
 			break
 		}
 	}
