@@ -9,7 +9,11 @@
 //
 //	minimize cᵀx  subject to  RowLo ≤ A x ≤ RowUp,  ColLo ≤ x ≤ ColUp,
 //
-// with A in compressed sparse columns. The solver adds one logical
+// with A in compressed sparse columns. A bound of magnitude Infinity
+// (1e20) or more is infinite, as in CPLEX and HiGHS, so 1e30 written for
+// "no bound" means no bound; finite bounds, costs and coefficients must
+// be at most MaxFinite (1e15) in magnitude (Validate refuses others).
+// The solver adds one logical
 // variable s_i per row and works on
 //
 //	A x + s = 0,   ColLo ≤ x ≤ ColUp,   −RowUp ≤ s ≤ −RowLo,

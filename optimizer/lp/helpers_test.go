@@ -32,14 +32,6 @@ func fill(n int, v float64) []float64 {
 	return s
 }
 
-func neg(v []float64) []float64 {
-	out := make([]float64, len(v))
-	for i, x := range v {
-		out[i] = -x
-	}
-	return out
-}
-
 // checkKKT verifies an Optimal result against the optimality conditions
 // of linear programming (e.g. Chvátal 1983, ch. 5 and 10): primal
 // feasibility, dual feasibility of the reduced costs for the bound each

@@ -8,10 +8,6 @@ import (
 	"time"
 )
 
-// errStop ends an inner loop because a limit was hit; s.stopStat says
-// which.
-var errStop = errors.New("lp: stopped")
-
 // rngSeed fixes the pseudo-random stream used for cost perturbation so
 // that every solve of the same input takes the same path.
 const rngSeed = 0x9E3779B97F4A7C15

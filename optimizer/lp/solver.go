@@ -110,10 +110,10 @@ func New(p *Problem, opt Options) (*Solver, error) {
 		NumRows:  m,
 		NumCols:  n,
 		Obj:      append([]float64(nil), p.Obj...),
-		ColLo:    append([]float64(nil), p.ColLo...),
-		ColUp:    append([]float64(nil), p.ColUp...),
-		RowLo:    append([]float64(nil), p.RowLo...),
-		RowUp:    append([]float64(nil), p.RowUp...),
+		ColLo:    normBounds(p.ColLo),
+		ColUp:    normBounds(p.ColUp),
+		RowLo:    normBounds(p.RowLo),
+		RowUp:    normBounds(p.RowUp),
 		ColStart: append([]int(nil), p.ColStart...),
 		RowIndex: append([]int(nil), p.RowIndex...),
 		Value:    append([]float64(nil), p.Value...),
@@ -159,10 +159,10 @@ func New(p *Problem, opt Options) (*Solver, error) {
 	s.head = make([]int, m)
 	s.dse = make([]float64, m)
 	for j := 0; j < n; j++ {
-		s.lo[j], s.up[j] = p.ColLo[j]/s.colScale[j], p.ColUp[j]/s.colScale[j]
+		s.lo[j], s.up[j] = s.prob.ColLo[j]/s.colScale[j], s.prob.ColUp[j]/s.colScale[j]
 	}
 	for i := 0; i < m; i++ {
-		s.lo[n+i], s.up[n+i] = -p.RowUp[i]*s.rowScale[i], -p.RowLo[i]*s.rowScale[i]
+		s.lo[n+i], s.up[n+i] = -s.prob.RowUp[i]*s.rowScale[i], -s.prob.RowLo[i]*s.rowScale[i]
 	}
 	s.lu = newLU(m)
 	s.rho = make([]float64, m)
@@ -247,6 +247,7 @@ func (s *Solver) checkRow(i int) {
 // bound above the upper bound makes the next Solve report Infeasible.
 func (s *Solver) SetColBounds(j int, lo, up float64) {
 	s.checkCol(j)
+	lo, up = NormBound(lo), NormBound(up)
 	s.prob.ColLo[j], s.prob.ColUp[j] = lo, up
 	s.lo[j], s.up[j] = lo/s.colScale[j], up/s.colScale[j]
 	s.fixNonbasic(j)
@@ -261,6 +262,7 @@ func (s *Solver) ColBounds(j int) (lo, up float64) {
 // SetRowBounds sets the bounds of row i, keeping the basis.
 func (s *Solver) SetRowBounds(i int, lo, up float64) {
 	s.checkRow(i)
+	lo, up = NormBound(lo), NormBound(up)
 	s.prob.RowLo[i], s.prob.RowUp[i] = lo, up
 	s.lo[s.n+i], s.up[s.n+i] = -up*s.rowScale[i], -lo*s.rowScale[i]
 	s.fixNonbasic(s.n + i)

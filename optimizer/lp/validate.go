@@ -8,9 +8,11 @@ import (
 // Validate checks that p is well formed: slice lengths match NumRows and
 // NumCols, ColStart is nondecreasing from 0, row indices are in range and
 // not repeated within a column, no value is NaN, coefficients and costs
-// are finite, and every lower bound is below +Inf, every upper bound
-// above −Inf and lower ≤ upper. The error wraps ErrInvalid and names the
-// field and index at fault.
+// are at most MaxFinite in magnitude, and every bound (read through
+// NormBound, so that ±1e20 and beyond are infinite) is either infinite or
+// at most MaxFinite in magnitude, every lower bound below +∞, every upper
+// bound above −∞ and lower ≤ upper. The error wraps ErrInvalid and names
+// the field and index at fault.
 func (p *Problem) Validate() error {
 	bad := func(format string, a ...any) error {
 		return fmt.Errorf("%w: %s", ErrInvalid, fmt.Sprintf(format, a...))
@@ -51,8 +53,8 @@ func (p *Problem) Validate() error {
 		if err := checkBounds("column", j, p.ColLo[j], p.ColUp[j]); err != nil {
 			return err
 		}
-		if math.IsNaN(p.Obj[j]) || math.IsInf(p.Obj[j], 0) {
-			return bad("Obj[%d] is %v, want a finite number", j, p.Obj[j])
+		if c := p.Obj[j]; math.IsNaN(c) || math.Abs(c) > MaxFinite {
+			return bad("Obj[%d] is %v, want a number of magnitude at most %g", j, c, MaxFinite)
 		}
 		for k := p.ColStart[j]; k < p.ColStart[j+1]; k++ {
 			i := p.RowIndex[k]
@@ -63,8 +65,8 @@ func (p *Problem) Validate() error {
 				return bad("column %d has row %d twice (RowIndex[%d]); merge the entries", j, i, k)
 			}
 			seen[i] = j
-			if v := p.Value[k]; math.IsNaN(v) || math.IsInf(v, 0) {
-				return bad("Value[%d] (row %d, column %d) is %v, want a finite number", k, i, j, v)
+			if v := p.Value[k]; math.IsNaN(v) || math.Abs(v) > MaxFinite {
+				return bad("Value[%d] (row %d, column %d) is %v, want a number of magnitude at most %g", k, i, j, v, MaxFinite)
 			}
 		}
 	}
@@ -77,6 +79,7 @@ func (p *Problem) Validate() error {
 }
 
 func checkBounds(what string, k int, lo, up float64) error {
+	lo, up = NormBound(lo), NormBound(up)
 	switch {
 	case math.IsNaN(lo) || math.IsNaN(up):
 		return fmt.Errorf("%w: %s %d bounds [%v, %v] contain NaN", ErrInvalid, what, k, lo, up)
@@ -84,6 +87,8 @@ func checkBounds(what string, k int, lo, up float64) error {
 		return fmt.Errorf("%w: %s %d lower bound is +Inf, want finite or -Inf", ErrInvalid, what, k)
 	case math.IsInf(up, -1):
 		return fmt.Errorf("%w: %s %d upper bound is -Inf, want finite or +Inf", ErrInvalid, what, k)
+	case !math.IsInf(lo, 0) && math.Abs(lo) > MaxFinite, !math.IsInf(up, 0) && math.Abs(up) > MaxFinite:
+		return fmt.Errorf("%w: %s %d bounds [%v, %v]: a finite bound must be at most %g in magnitude (write ±%g or beyond for none)", ErrInvalid, what, k, lo, up, MaxFinite, Infinity)
 	case lo > up:
 		return fmt.Errorf("%w: %s %d lower bound %v exceeds upper bound %v", ErrInvalid, what, k, lo, up)
 	}

@@ -33,6 +33,15 @@
 // integer columns only), bounds are rounded up to multiples of g, which
 // prunes nodes whose bound lies within g of the incumbent.
 //
+// At the root of a general MIP (not pure set covering) rounds of Gomory
+// mixed-integer cuts (Gomory 1960; Marchand, Martin, Weismantel and
+// Wolsey 2002) are derived from the rows of the optimal simplex tableau
+// (lp.Solver.TableauRow) and added to the LP (lp.Solver.AddRows, warm):
+// numerically unsafe cuts are dropped, the rest filtered by efficacy and
+// parallelism (Achterberg 2007, §8.9) as gomory.go describes. The cuts
+// live in the LP only; heuristics and feasibility checks use the rows of
+// the problem.
+//
 // Primal heuristics: for covering, the greedy rule of Chvátal (1979) with
 // redundant-column removal and 1-opt exchanges, an LP-guided greedy at
 // nodes; for general MIPs, before any LP, a weighted-violation repair
@@ -61,7 +70,10 @@
 // ≤ GapRel; such a result has status Optimal (the default GapRel 1e-9
 // means proven optimal). Results are deterministic: ties are broken by
 // index or creation order, and only time limits and cancellation depend
-// on the clock. With Options.Threads 2 a second LP solver runs in
+// on the clock. Options.WorkLimit bounds the search in simplex iterations
+// instead, checked between nodes, so a solve stopped by it gives the same
+// result on every run whatever the load of the machine; a time limit is
+// then only a safety, and status TimeLimit says that it fired. With Options.Threads 2 a second LP solver runs in
 // lockstep with the first (node LPs solved on both, strong-branching
 // candidates shared between them, results used in candidate order), so
 // that run is deterministic too.
@@ -80,6 +92,13 @@
 //     revisited, Operations Research Letters 33:42–54.
 //   - T. Achterberg (2007), Constraint Integer Programming, PhD thesis,
 //     TU Berlin (SCIP).
+//   - R. E. Gomory (1960), An algorithm for the mixed integer problem,
+//     RM-2597, The RAND Corporation (from memory).
+//   - H. Marchand, A. Martin, R. Weismantel and L. Wolsey (2002), Cutting
+//     planes in integer and mixed integer programming, Discrete Applied
+//     Mathematics 123:397–446 (from memory).
+//   - G. Cornuéjols (2008), Valid inequalities for mixed integer linear
+//     programs, Mathematical Programming 112:3–44 (from memory).
 //   - E. Danna, E. Rothberg and C. Le Pape (2005), Exploring relaxation
 //     induced neighborhoods to improve MIP solutions, Mathematical
 //     Programming 102:71–90 (from memory).
@@ -88,6 +107,17 @@
 //   - B. Luteberget and G. Sartor (2023), Feasibility Jump: an LP-free
 //     Lagrangian MIP heuristic, Mathematical Programming Computation
 //     15:365–388 (volume and pages from memory).
+//
+// # Infinite and large values
+//
+// A bound (column or row) of magnitude lp.Infinity = 1e20 or more is
+// infinite: Solve reads 1e30 as "no bound", as CPLEX, CBC and HiGHS do.
+// Finite bounds, costs and coefficients must be at most lp.MaxFinite =
+// 1e15 in magnitude; Validate and Solve refuse others rather than risk a
+// wrong optimum, and ReadMPS also refuses nonzero coefficients below
+// MinCoef = 1e-15. A maximization read from MPS (OBJSENSE MAX) is solved
+// as the minimization of the negated objective; Problem.Sense turns a
+// result back into the file's own sense.
 //
 // Files in free MPS format are read and written by ReadMPS and WriteMPS;
 // OR-Library set-covering files by ReadORLibSetCover.

@@ -26,6 +26,7 @@ type extResult struct {
 
 var (
 	cbcObjRe   = regexp.MustCompile(`(?m)^Objective value:\s+(\S+)`)
+	cbcLPObjRe = regexp.MustCompile(`(?m)^Optimal - objective value (\S+)`) // an LP: no branch and cut
 	glpkObjRe  = regexp.MustCompile(`(?m)^Objective:\s+\S+ = (\S+)`)
 	glpkStatRe = regexp.MustCompile(`(?m)^Status:\s+(.+)$`)
 )
@@ -50,6 +51,10 @@ func runCBC(t testing.TB, file string, timeout time.Duration) extResult {
 	switch {
 	case strings.Contains(s, "Result - Optimal solution found"):
 		r.status = "optimal"
+	case cbcLPObjRe.MatchString(s) && !strings.Contains(s, "Result - "):
+		r.status = "optimal"
+		r.obj, _ = strconv.ParseFloat(cbcLPObjRe.FindStringSubmatch(s)[1], 64)
+		return r
 	case strings.Contains(s, "infeasible"):
 		r.status = "infeasible"
 	}

@@ -9,6 +9,8 @@ import (
 	"strconv"
 	"strings"
 	"unicode"
+
+	"github.com/rigmix/rigmix/optimizer/lp"
 )
 
 // ReadMPS reads a linear or mixed-integer program in free MPS format, the
@@ -33,9 +35,35 @@ import (
 //   - RANGES R on an E row gives [rhs, rhs+|R|] when R > 0 and [rhs+R, rhs]
 //     when R < 0; on an L row [rhs-|R|, rhs]; on a G row [rhs, rhs+|R|].
 //
+// Numbers, infinities and ranges, as CPLEX, CBC and HiGHS read them:
+//   - a bound, right-hand side or range of magnitude lp.Infinity (1e20) or
+//     more is infinite: UP 1e30 is no upper bound, an L row with RHS 1e30
+//     is free, a range of 1e30 leaves that side of the row open; one that
+//     leaves no feasible value (LO 1e30, an E row with RHS 1e30) is an
+//     error. Finite bounds, right-hand sides and ranges must be at most
+//     lp.MaxFinite (1e15) in magnitude;
+//   - a coefficient (matrix or objective) must be zero or between MinCoef
+//     (1e-15) and lp.MaxFinite (1e15) in magnitude; others are refused
+//     with the row and column named, since the simplex tolerances (about
+//     1e-9) cannot tell such values apart and the optimum would be wrong;
+//   - numbers are MPS numbers only: [sign] digits [. digits] [e|E [sign]
+//     digits], or Inf / Infinity in any case with an optional sign
+//     (read as infinite, like 1e30); hexadecimal, digit separators (1_0)
+//     and NaN are refused.
+//
+// Lexical details: a UTF-8 byte-order mark at the start is skipped;
+// everything after ENDATA is ignored (MIPLIB's IMPORTANCES sections, for
+// instance); a field starting with '$' begins a comment that runs to the
+// end of its line, as in free MPS written by CPLEX or CBC (so names must
+// not start with '$'). Features this engine does not solve are refused
+// by name: SC and SI bounds (semi-continuous, semi-integer), the
+// quadratic sections QUADOBJ, QMATRIX, QSECTION and QCMATRIX, SOS,
+// INDICATORS and CSECTION.
+//
 // The result always minimizes: with OBJSENSE MAX the objective and its
-// constant are negated, so the optimal value read back is the negative of
-// the maximum. Errors name the line number and what is wrong.
+// constant are negated and Problem.Maximize is set, so the optimal value
+// read back is the negative of the maximum and Problem.Sense turns it
+// back. Errors name the line number and what is wrong.
 func ReadMPS(r io.Reader) (*Problem, error) {
 	rd := &mpsReader{
 		rowIndex: map[string]int{},
@@ -95,16 +123,21 @@ func (rd *mpsReader) read(r io.Reader) error {
 	for sc.Scan() {
 		rd.line++
 		raw := sc.Text()
-		if rd.ended {
-			if strings.TrimSpace(raw) != "" {
-				return rd.errf("text after ENDATA")
-			}
-			continue
+		if rd.line == 1 {
+			raw = strings.TrimPrefix(raw, "\uFEFF") // a UTF-8 byte-order mark
 		}
 		if len(raw) == 0 || raw[0] == '*' {
 			continue
 		}
 		fields := strings.Fields(raw)
+		// A field starting with '$' begins a comment that runs to the end
+		// of the line (free MPS as CPLEX and CBC write it).
+		for k, f := range fields {
+			if f[0] == '$' {
+				fields = fields[:k]
+				break
+			}
+		}
 		if len(fields) == 0 {
 			continue
 		}
@@ -112,6 +145,11 @@ func (rd *mpsReader) read(r io.Reader) error {
 			// A section header starts in the first column.
 			if err := rd.header(fields); err != nil {
 				return err
+			}
+			if rd.ended {
+				// Anything after ENDATA (an IMPORTANCES section, notes)
+				// is ignored, as other readers do.
+				break
 			}
 			continue
 		}
@@ -145,7 +183,15 @@ func (rd *mpsReader) header(f []string) error {
 		}
 	case "ENDATA":
 		rd.ended = true
-	case "OBJSENSE:", "SOS", "QUADOBJ", "QMATRIX", "QSECTION", "QCMATRIX", "INDICATORS", "OBJNAME":
+	case "SOS":
+		return rd.errf("section SOS: special ordered sets are not supported (rigmix solves linear MIPs only)")
+	case "QUADOBJ", "QMATRIX", "QSECTION", "QCMATRIX":
+		return rd.errf("section %s: quadratic objectives and constraints are not supported (rigmix solves linear MIPs only)", key)
+	case "INDICATORS":
+		return rd.errf("section INDICATORS: indicator constraints are not supported (rigmix solves linear MIPs only)")
+	case "CSECTION":
+		return rd.errf("section CSECTION: conic constraints are not supported (rigmix solves linear MIPs only)")
+	case "OBJSENSE:", "OBJNAME", "OBJSENCE":
 		return rd.errf("section %s is not supported", key)
 	default:
 		return rd.errf("unknown section header %q (want NAME, OBJSENSE, ROWS, COLUMNS, RHS, RANGES, BOUNDS or ENDATA; data lines must start with a space)", f[0])
@@ -170,12 +216,99 @@ func (rd *mpsReader) sense(s string) error {
 }
 
 func (rd *mpsReader) number(s, what string) (float64, error) {
-	v, err := strconv.ParseFloat(s, 64)
-	if err != nil || math.IsNaN(v) {
-		return 0, rd.errf("%s %q is not a number", what, s)
+	v, ok := parseMPSNumber(s)
+	if !ok {
+		return 0, rd.errf("%s %q is not a number (want digits with an optional sign, decimal point and exponent, such as -1.5e3, or Inf)", what, s)
 	}
 	return v, nil
 }
+
+// parseMPSNumber reads a number as MPS writes them: an optional sign,
+// digits with an optional decimal point (at least one digit), and an
+// optional exponent e or E with an optional sign and digits; or, as
+// CPLEX, CBC and HiGHS also read (from memory), Inf or Infinity in any
+// case with an optional sign. Go's other forms (hexadecimal, digit
+// separators "1_0", NaN) are refused.
+func parseMPSNumber(s string) (float64, bool) {
+	t := s
+	if t != "" && (t[0] == '+' || t[0] == '-') {
+		t = t[1:]
+	}
+	if strings.EqualFold(t, "inf") || strings.EqualFold(t, "infinity") {
+		if s[0] == '-' {
+			return math.Inf(-1), true
+		}
+		return math.Inf(1), true
+	}
+	k, digits := 0, 0
+	for k < len(t) && t[k] >= '0' && t[k] <= '9' {
+		k, digits = k+1, digits+1
+	}
+	if k < len(t) && t[k] == '.' {
+		k++
+		for k < len(t) && t[k] >= '0' && t[k] <= '9' {
+			k, digits = k+1, digits+1
+		}
+	}
+	if digits == 0 {
+		return 0, false
+	}
+	if k < len(t) && (t[k] == 'e' || t[k] == 'E') {
+		k++
+		if k < len(t) && (t[k] == '+' || t[k] == '-') {
+			k++
+		}
+		e := k
+		for k < len(t) && t[k] >= '0' && t[k] <= '9' {
+			k++
+		}
+		if k == e {
+			return 0, false
+		}
+	}
+	if k != len(t) {
+		return 0, false
+	}
+	v, err := strconv.ParseFloat(s, 64)
+	if err != nil && !math.IsInf(v, 0) {
+		return 0, false
+	}
+	// Overflow (1e999) is infinite, as the magnitude says.
+	return v, true
+}
+
+// bound reads a bound, right-hand side or range value: magnitudes of
+// lp.Infinity and beyond are infinite; finite ones must be at most
+// lp.MaxFinite.
+func (rd *mpsReader) bound(s, what string) (float64, error) {
+	v, err := rd.number(s, what)
+	if err != nil {
+		return 0, err
+	}
+	v = lp.NormBound(v)
+	if !math.IsInf(v, 0) && math.Abs(v) > lp.MaxFinite {
+		return 0, rd.errf("%s is %s: finite values must be at most %g in magnitude; write %g or more for no bound, or rescale the model", what, s, lp.MaxFinite, lp.Infinity)
+	}
+	return v, nil
+}
+
+// coefficient reads a matrix or objective coefficient: its magnitude must
+// lie in [MinCoef, lp.MaxFinite] unless it is zero.
+func (rd *mpsReader) coefficient(s, what string) (float64, error) {
+	v, err := rd.number(s, what)
+	if err != nil {
+		return 0, err
+	}
+	if a := math.Abs(v); a > lp.MaxFinite || (a != 0 && a < MinCoef) {
+		return 0, rd.errf("%s is %s: coefficients must be zero or between %g and %g in magnitude; rescale the row or column", what, s, MinCoef, lp.MaxFinite)
+	}
+	return v, nil
+}
+
+// MinCoef is the smallest magnitude of a nonzero coefficient ReadMPS
+// accepts. Below it a coefficient is lost in the solver's tolerances
+// (about 1e-9): rather than drop it silently, the file is refused.
+const MinCoef = 1e-15
 
 func (rd *mpsReader) data(f []string) error {
 	switch rd.section {
@@ -257,12 +390,9 @@ func (rd *mpsReader) columnLine(f []string) error {
 		if !ok {
 			return rd.errf("column %q names row %q, which ROWS does not define", name, f[k])
 		}
-		v, err := rd.number(f[k+1], fmt.Sprintf("coefficient of column %q in row %q", name, f[k]))
+		v, err := rd.coefficient(f[k+1], fmt.Sprintf("coefficient of column %q in row %q", name, f[k]))
 		if err != nil {
 			return err
-		}
-		if math.IsInf(v, 0) {
-			return rd.errf("coefficient of column %q in row %q is infinite", name, f[k])
 		}
 		key := [2]int{j, i}
 		if rd.seen[key] {
@@ -290,12 +420,9 @@ func (rd *mpsReader) pairs(f []string, sec string, set func(row string, v float6
 		return rd.errf("%s line wants [set] row value [row value], got %d fields", sec, len(f))
 	}
 	for k := 0; k+1 < len(f); k += 2 {
-		v, err := rd.number(f[k+1], fmt.Sprintf("%s value for row %q", sec, f[k]))
+		v, err := rd.bound(f[k+1], fmt.Sprintf("%s value for row %q", sec, f[k]))
 		if err != nil {
 			return err
-		}
-		if math.IsInf(v, 0) {
-			return rd.errf("%s value for row %q is infinite", sec, f[k])
 		}
 		if err := set(f[k], v); err != nil {
 			return err
@@ -310,6 +437,9 @@ func (rd *mpsReader) setRHS(row string, v float64) error {
 		return rd.errf("RHS names row %q, which ROWS does not define", row)
 	}
 	if i == -2 {
+		if math.IsInf(v, 0) {
+			return rd.errf("RHS of the objective row %q (the objective constant) is infinite", row)
+		}
 		rd.objRHS = v
 		return nil
 	}
@@ -337,6 +467,10 @@ func (rd *mpsReader) boundLine(f []string) error {
 	case "FR", "MI", "PL", "BV":
 		needValue = false
 	case "UP", "LO", "FX", "LI", "UI":
+	case "SC":
+		return rd.errf("bound type SC: semi-continuous bounds are not supported")
+	case "SI":
+		return rd.errf("bound type SI: semi-integer bounds are not supported")
 	default:
 		return rd.errf("bound type %q; want UP, LO, FX, FR, MI, PL, BV, LI or UI", f[0])
 	}
@@ -370,7 +504,7 @@ func (rd *mpsReader) boundLine(f []string) error {
 	var v float64
 	if needValue {
 		var err error
-		v, err = rd.number(valStr, fmt.Sprintf("%s bound of column %q", t, colName))
+		v, err = rd.bound(valStr, fmt.Sprintf("%s bound of column %q", t, colName))
 		if err != nil {
 			return err
 		}
@@ -401,7 +535,7 @@ func (rd *mpsReader) boundLine(f []string) error {
 		c.lo, c.up, c.loSet, c.upSet, c.integer = 0, 1, true, true, true
 	}
 	if c.lo == math.Inf(1) || c.up == math.Inf(-1) {
-		return rd.errf("BOUNDS %s gives column %q an impossible infinite bound", t, colName)
+		return rd.errf("BOUNDS %s %s gives column %q a lower bound of +∞ or an upper bound of -∞ (±%g and beyond count as infinite), which no value meets", t, valStr, colName, lp.Infinity)
 	}
 	return nil
 }
@@ -447,6 +581,13 @@ func (rd *mpsReader) problem() (*Problem, error) {
 				}
 			}
 		}
+		// Infinite right-hand sides and ranges (±lp.Infinity and
+		// beyond) leave that side of the row free; one that leaves no
+		// value is an error.
+		lo, up = lp.NormBound(lo), lp.NormBound(up)
+		if math.IsNaN(lo) || math.IsNaN(up) || math.IsInf(lo, 1) || math.IsInf(up, -1) {
+			return nil, fmt.Errorf("mip: MPS: row %q (type %c) with right-hand side %g and range %g has no feasible value: an infinite right-hand side (±%g and beyond) is only meaningful as +∞ on an L row or -∞ on a G row", rd.rowNames[i], rd.rowType[i], b, r, lp.Infinity)
+		}
 		q.RowLo[i], q.RowUp[i] = lo, up
 	}
 	// Fold the objective-constant column written by WriteMPS back into
@@ -486,6 +627,7 @@ func (rd *mpsReader) problem() (*Problem, error) {
 			q.Obj[j] = -q.Obj[j]
 		}
 		p.ObjOffset = -p.ObjOffset
+		p.Maximize = true
 	}
 	return p, nil
 }
@@ -691,12 +833,11 @@ func (p *Problem) Validate() error {
 		if q.ColStart[j+1] < q.ColStart[j] {
 			return fmt.Errorf("mip: ColStart decreases at column %d", j)
 		}
-		if c := q.Obj[j]; math.IsNaN(c) || math.IsInf(c, 0) {
-			return fmt.Errorf("mip: objective coefficient of column %d is %g; want a finite number", j, c)
+		if c := q.Obj[j]; math.IsNaN(c) || math.Abs(c) > lp.MaxFinite {
+			return fmt.Errorf("mip: objective coefficient of column %d is %g; want a number of magnitude at most %g", j, c, lp.MaxFinite)
 		}
-		lo, up := q.ColLo[j], q.ColUp[j]
-		if math.IsNaN(lo) || math.IsNaN(up) || lo > up || math.IsInf(lo, 1) || math.IsInf(up, -1) {
-			return fmt.Errorf("mip: column %d has bounds [%g, %g]; want lo ≤ up, lo < +∞, up > -∞", j, lo, up)
+		if err := checkBounds("column", j, q.ColLo[j], q.ColUp[j]); err != nil {
+			return err
 		}
 		for k := q.ColStart[j]; k < q.ColStart[j+1]; k++ {
 			i := q.RowIndex[k]
@@ -707,16 +848,57 @@ func (p *Problem) Validate() error {
 				return fmt.Errorf("mip: column %d has row %d twice", j, i)
 			}
 			mark[i] = j
-			if v := q.Value[k]; math.IsNaN(v) || math.IsInf(v, 0) {
-				return fmt.Errorf("mip: coefficient of column %d in row %d is %g; want a finite number", j, i, v)
+			if v := q.Value[k]; math.IsNaN(v) || math.Abs(v) > lp.MaxFinite {
+				return fmt.Errorf("mip: coefficient of column %d in row %d is %g; want a number of magnitude at most %g", j, i, v, lp.MaxFinite)
 			}
 		}
 	}
 	for i := 0; i < m; i++ {
-		lo, up := q.RowLo[i], q.RowUp[i]
-		if math.IsNaN(lo) || math.IsNaN(up) || lo > up || math.IsInf(lo, 1) || math.IsInf(up, -1) {
-			return fmt.Errorf("mip: row %d has bounds [%g, %g]; want lo ≤ up, lo < +∞, up > -∞", i, lo, up)
+		if err := checkBounds("row", i, q.RowLo[i], q.RowUp[i]); err != nil {
+			return err
 		}
 	}
 	return nil
+}
+
+// checkBounds checks one pair of bounds read through lp.NormBound: each
+// infinite or at most lp.MaxFinite in magnitude, lo < +∞, up > −∞,
+// lo ≤ up.
+func checkBounds(what string, k int, lo, up float64) error {
+	lo, up = lp.NormBound(lo), lp.NormBound(up)
+	switch {
+	case math.IsNaN(lo) || math.IsNaN(up) || lo > up || math.IsInf(lo, 1) || math.IsInf(up, -1):
+		return fmt.Errorf("mip: %s %d has bounds [%g, %g]; want lo ≤ up, lo < +∞, up > -∞ (±%g and beyond count as infinite)", what, k, lo, up, lp.Infinity)
+	case !math.IsInf(lo, 0) && math.Abs(lo) > lp.MaxFinite, !math.IsInf(up, 0) && math.Abs(up) > lp.MaxFinite:
+		return fmt.Errorf("mip: %s %d has bounds [%g, %g]; a finite bound must be at most %g in magnitude (write ±%g or beyond for none)", what, k, lo, up, lp.MaxFinite, lp.Infinity)
+	}
+	return nil
+}
+
+// normalized returns p, or a copy of p whose bounds of magnitude
+// lp.Infinity and beyond are ±Inf.
+func (p *Problem) normalized() *Problem {
+	q := &p.LP
+	need := false
+	for _, v := range [][]float64{q.ColLo, q.ColUp, q.RowLo, q.RowUp} {
+		for _, x := range v {
+			if !math.IsInf(x, 0) && math.Abs(x) >= lp.Infinity {
+				need = true
+			}
+		}
+	}
+	if !need {
+		return p
+	}
+	c := *p
+	norm := func(v []float64) []float64 {
+		out := make([]float64, len(v))
+		for k, x := range v {
+			out[k] = lp.NormBound(x)
+		}
+		return out
+	}
+	c.LP.ColLo, c.LP.ColUp = norm(q.ColLo), norm(q.ColUp)
+	c.LP.RowLo, c.LP.RowUp = norm(q.RowLo), norm(q.RowUp)
+	return &c
 }

@@ -46,6 +46,7 @@ func Solve(ctx context.Context, p *Problem, opt Options) (*Result, error) {
 	if err := p.Validate(); err != nil {
 		return nil, err
 	}
+	p = p.normalized()
 	if ctx == nil {
 		ctx = context.Background()
 	}
@@ -90,6 +91,7 @@ func Solve(ctx context.Context, p *Problem, opt Options) (*Result, error) {
 	res.Status = status
 	res.Nodes = e.nodes
 	res.LPIterations = e.lpIter
+	res.Cuts = e.cutsAdded
 	if e.inc != nil {
 		res.X = ps.postsolve(e.inc)
 		res.Obj = e.incObj + e.offset
@@ -184,39 +186,37 @@ type engine struct {
 	cover  *coverData
 	lr     *lagrangeResult // root Lagrangian multipliers (covering)
 
-	s              *lp.Solver
-	s2             *lp.Solver // second solver for parallel strong branching
-	s2ok           bool       // s2 holds the optimal basis of the current node
-	glo, gup       []float64  // global bounds (root, tightened by fixing)
-	clo, cup       []float64  // bounds currently set in s
-	touched        []int      // columns whose bounds in s differ from global
-	isTouched      []bool
-	gran           float64 // feasible objective values are multiples of gran (0: unknown)
-	rowsOf         [][]int // row lists by column (for feasibility checks)
-	inc            []float64
-	incObj         float64
-	queue          nodeQueue
-	seq            int
-	nodes          int
-	lpIter         int
-	storedBases    int
-	pcSum          [2][]float64 // pseudocost sums per unit change: 0 down, 1 up
-	pcCnt          [2][]int
-	pcAllSum       [2]float64
-	pcAllCnt       [2]int
-	lastBd         float64
-	prunedMin      float64 // least bound of any region pruned by the gap rule
-	curBound       float64 // bound of the node being processed
-	stopStat       Status
-	stopped        bool
-	rootDone       bool
-	diveEvery      int
-	lastDiveNode   int
-	lastRinsNode   int
-	rcFixedGlobal  int
-	rootLPObj      float64
-	rootRC, rootX  []float64
-	rootIntFixDone bool
+	s             *lp.Solver
+	s2            *lp.Solver // second solver for parallel strong branching
+	s2ok          bool       // s2 holds the optimal basis of the current node
+	glo, gup      []float64  // global bounds (root, tightened by fixing)
+	clo, cup      []float64  // bounds currently set in s
+	touched       []int      // columns whose bounds in s differ from global
+	isTouched     []bool
+	gran          float64 // feasible objective values are multiples of gran (0: unknown)
+	inc           []float64
+	incObj        float64
+	queue         nodeQueue
+	seq           int
+	nodes         int
+	lpIter        int
+	cutsAdded     int
+	storedBases   int
+	pcSum         [2][]float64 // pseudocost sums per unit change: 0 down, 1 up
+	pcCnt         [2][]int
+	pcAllSum      [2]float64
+	pcAllCnt      [2]int
+	lastBd        float64
+	prunedMin     float64 // least bound of any region pruned by the gap rule
+	curBound      float64 // bound of the node being processed
+	stopStat      Status
+	stopped       bool
+	rootDone      bool
+	lastDiveNode  int
+	lastRinsNode  int
+	rcFixedGlobal int
+	rootLPObj     float64
+	rootRC, rootX []float64
 }
 
 func (e *engine) globalBound() float64 {
@@ -286,6 +286,10 @@ func (e *engine) checkStop() bool {
 	}
 	if e.opt.NodeLimit > 0 && e.nodes >= e.opt.NodeLimit {
 		e.stopped, e.stopStat = true, NodeLimit
+		return true
+	}
+	if e.opt.WorkLimit > 0 && e.lpIter >= e.opt.WorkLimit {
+		e.stopped, e.stopStat = true, WorkLimit
 		return true
 	}
 	return false
@@ -703,6 +707,11 @@ func (e *engine) search(root *node) (Status, error) {
 		}
 		isRoot := !rootSeen
 		rootSeen = true
+		if isRoot && r.Status == lp.Optimal {
+			if r, err = e.rootCuts(r); err != nil {
+				return 0, err
+			}
+		}
 		switch r.Status {
 		case lp.Infeasible:
 			continue

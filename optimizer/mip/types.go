@@ -26,9 +26,11 @@ const (
 	NodeLimit
 	// Interrupted: the context was cancelled.
 	Interrupted
+	// WorkLimit: Options.WorkLimit simplex iterations were spent.
+	WorkLimit
 )
 
-var statusNames = [...]string{"optimal", "infeasible", "unbounded", "time limit", "node limit", "interrupted"}
+var statusNames = [...]string{"optimal", "infeasible", "unbounded", "time limit", "node limit", "interrupted", "work limit"}
 
 func (s Status) String() string {
 	if s >= 0 && int(s) < len(statusNames) {
@@ -54,6 +56,13 @@ type Options struct {
 	TimeLimit time.Duration
 	// NodeLimit bounds the number of branch-and-bound nodes; 0 means none.
 	NodeLimit int
+	// WorkLimit bounds the work of the search in simplex iterations
+	// (every LP of the tree, strong branching and the heuristics' LPs, as
+	// counted in Result.LPIterations); 0 means none. It is checked
+	// between nodes, so the search stops at the same node on every run
+	// whatever the machine's load: unlike TimeLimit, a solve stopped by
+	// it gives the same Result (Elapsed aside) every time.
+	WorkLimit int
 	// Threads: 0 or 1 runs on one goroutine. 2 (or more) adds a second
 	// LP solver driven in lockstep with the first: it solves every node
 	// LP alongside the first solver and evaluates every other
@@ -74,6 +83,9 @@ type Options struct {
 	// how soon a good plan is known.
 	Start []float64
 
+	// noCuts turns the root cutting planes off (tests).
+	noCuts bool
+
 	// subMIP marks the solve of a sub-problem built by a heuristic, which
 	// runs no sub-MIP heuristic of its own (rensMaxDepth).
 	subDepth int
@@ -88,6 +100,8 @@ type Result struct {
 	// proven lower bound; Gap = (Obj-Bound)/max(1,|Obj|).
 	Obj, Bound, Gap     float64
 	Nodes, LPIterations int
+	// Cuts is the number of cutting planes added to the root LP.
+	Cuts int
 	// PresolvedRows and PresolvedCols give the size of the problem the
 	// search worked on, after presolve.
 	PresolvedRows, PresolvedCols int

@@ -2,7 +2,6 @@ package cli
 
 import (
 	"bytes"
-	"encoding/json"
 	"fmt"
 	"io"
 	"os"
@@ -122,7 +121,8 @@ func newDemosCmd(stdout io.Writer) *cobra.Command {
 }
 
 type solveOptions struct {
-	asJSON bool
+	asJSON    bool
+	workLimit int
 }
 
 func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -130,6 +130,7 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	c := &cobra.Command{
 		Use:   "solve MODEL.mps",
 		Short: "Solve any mixed-integer model in free MPS form with rigmix's engine (for cross-checks)",
+		Long:  solveLong,
 		Args:  cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			cfg, err := g.load(cmd.Flags())
@@ -145,12 +146,15 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 			if err != nil {
 				return usageError{fmt.Errorf("%s: %v", args[0], err)}
 			}
-			opt := mip.Options{GapRel: cfg.Gap, Threads: cfg.Threads}
+			if o.workLimit < 0 {
+				return usageError{fmt.Errorf("--work-limit: must be ≥ 0 simplex iterations, got %d", o.workLimit)}
+			}
+			opt := mip.Options{GapRel: cfg.Gap, Threads: cfg.Threads, WorkLimit: o.workLimit}
 			if cfg.TimeLimit > 0 {
 				opt.TimeLimit = time.Duration(cfg.TimeLimit * float64(time.Second))
 			}
 			if !o.asJSON && isTerminal(stderr) {
-				opt.Progress = progressPrinter(stderr)
+				opt.Progress = senseProgress(p, progressPrinter(stderr))
 			}
 			res, err := mip.Solve(cmd.Context(), p, opt)
 			if opt.Progress != nil {
@@ -159,22 +163,15 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 			if err != nil {
 				return err
 			}
+			sum := summarize(p, res)
 			if o.asJSON {
-				out := map[string]any{
-					"model": p.Name, "status": res.Status.String(), "objective": res.Obj,
-					"bound": res.Bound, "gap": res.Gap, "nodes": res.Nodes,
-					"lp_iterations": res.LPIterations, "seconds": res.Elapsed.Seconds(),
-				}
-				enc := json.NewEncoder(stdout)
-				enc.SetIndent("", "  ")
-				return enc.Encode(out)
+				return sum.writeJSON(stdout)
 			}
-			fmt.Fprintf(stdout, "model      %s (%d rows, %d columns)\nstatus     %s\nobjective  %.10g\nbound      %.10g\ngap        %.6f%%\nnodes      %d\ntime       %s\n",
-				p.Name, p.LP.NumRows, p.LP.NumCols, res.Status, res.Obj, res.Bound, 100*res.Gap, res.Nodes, res.Elapsed.Round(time.Millisecond))
-			return nil
+			return sum.writeText(stdout)
 		},
 	}
 	c.Flags().BoolVar(&o.asJSON, "json", false, "print the result as JSON")
+	c.Flags().IntVar(&o.workLimit, "work-limit", 0, "stop after this many simplex iterations (deterministic: the same result on every run; 0: none)")
 	c.Flags().Float64("gap", 0, "relative optimality gap to stop at")
 	c.Flags().Float64("time-limit", 0, "seconds")
 	c.Flags().Int("threads", 1, "solver threads (1 or 2)")
