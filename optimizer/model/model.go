@@ -90,14 +90,14 @@ type Rig struct {
 
 // Spec is a whole exploration problem as plain data.
 type Spec struct {
-	NumPoints   int
-	PointZone   []int  // zone of each point
-	Required    []bool // point must be explored (nil: none)
-	Options     []Option
-	CoverRows   [][]int // each a set of points of which at least one is explored
+	NumPoints int
+	PointZone []int  // zone of each point
+	Required  []bool // point must be explored (nil: none)
+	Options   []Option
+	CoverRows [][]int // each a set of points of which at least one is explored
 	// Apart are pairs of points of which at most one is explored (closer
 	// than the plan's minimum separation).
-	Apart [][2]int
+	Apart       [][2]int
 	Zones       []Zone
 	Rigs        []Rig
 	HoursPerDay float64
