@@ -81,7 +81,7 @@ func TestBadInput(t *testing.T) {
 		{"missing_rate_book_file", "rate_book", "cannot read", ""},
 		{"rate_book_device", "rate_book", "cannot read /dev/zero", ""},
 		{"hours_per_day", "hours_per_day", "must be ≤ 24 h, got 30", ""},
-		{"missing_yard_miles", "yard_miles", "missing", "RIGMIX_YARD_MILES"},
+		{"missing_yard_miles", "yard_miles", "missing", "yard_miles: 35"},
 		{"duplicate_rig", "rigs[2]", `"tire-drill" listed twice`, ""},
 		{"no_rigs", "rigs", "missing", ""},
 		{"zones_not_list", "zones", "must be a list", ""},

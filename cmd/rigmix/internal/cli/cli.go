@@ -11,9 +11,14 @@ import (
 	"os"
 	"os/signal"
 	"strings"
+	"sync"
+	"syscall"
+	"time"
 
 	plugin "github.com/hashicorp/go-plugin"
 	"github.com/spf13/cobra"
+
+	"github.com/rigmix/rigmix/plugins/host"
 )
 
 // Exit codes.
@@ -37,23 +42,76 @@ func (usageError) BadInput() bool { return true }
 // Version is the rigmix version printed in reports.
 var Version = "0.1.0-dev"
 
-// Main runs rigmix with args and returns the exit code.
-func Main(args []string, stdout, stderr io.Writer) int {
-	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
-	defer stop()
-	go func() {
-		// After the first Ctrl-C the run winds down; a second one ends
-		// the program at once (rig processes die with it).
-		<-ctx.Done()
-		stop()
-	}()
-	defer plugin.CleanupClients()
+// errInterrupted is the error of a run stopped by a signal before its
+// outputs were put in place.
+var errInterrupted = interruptedError{errors.New("interrupted; no output file was written or changed")}
 
+// interruptGrace is how long a run may take to wind down after SIGINT or
+// SIGTERM (a solve prints its best solution so far, rigs are stopped)
+// before Main stops it where it is.
+const interruptGrace = 3 * time.Second
+
+// Main runs rigmix with args and returns the exit code. SIGINT and SIGTERM
+// stop the run: it exits 1 with "interrupted" on stderr, writes no output
+// file and leaves no rig process behind; a second signal stops it at once.
+func Main(args []string, stdout, stderr io.Writer) int {
+	sigs := make(chan os.Signal, 2)
+	signal.Notify(sigs, os.Interrupt, syscall.SIGTERM)
+	defer signal.Stop(sigs)
+	return mainWith(args, stdout, stderr, sigs, interruptGrace)
+}
+
+// mainWith runs the command in a goroutine so that a signal is answered
+// at every stage, also one (such as loading a file) that does not watch
+// the context.
+func mainWith(args []string, stdout, stderr io.Writer, sigs <-chan os.Signal, grace time.Duration) int {
+	ctx, cancel := context.WithCancel(context.Background())
+	defer cancel()
+	done := make(chan int, 1)
+	go func() { done <- run(ctx, args, stdout, stderr) }()
+	defer closeFleets()
+	select {
+	case code := <-done:
+		return code
+	case <-sigs:
+	}
+	cancel()
+	timer := time.NewTimer(grace)
+	defer timer.Stop()
+	select {
+	case code := <-done:
+		return code
+	case <-sigs:
+	case <-timer.C:
+	}
+	// The run did not wind down in time, or a second signal came: stop
+	// here, but not in the middle of putting outputs in place.
+	for i := 0; !commitMu.TryLock(); i++ {
+		if i == 100 { // 1 s: a write to a pipe nobody reads
+			break
+		}
+		time.Sleep(10 * time.Millisecond)
+	}
+	fmt.Fprintln(stderr, "rigmix: interrupted; no output file was written or changed")
+	return ExitFailure
+}
+
+// run executes one command line.
+func run(ctx context.Context, args []string, stdout, stderr io.Writer) int {
 	root := newRoot(stdout, stderr)
 	root.SetArgs(args)
 	err := root.ExecuteContext(ctx)
 	if err == nil {
 		return ExitOK
+	}
+	if ctx.Err() != nil {
+		// Whatever failed after the signal failed because of it.
+		var ie interruptedError
+		if !errors.As(err, &ie) {
+			err = errInterrupted
+		}
+		fmt.Fprintf(stderr, "rigmix: %v\n", err)
+		return ExitFailure
 	}
 	fmt.Fprintf(stderr, "rigmix: %v\n", err)
 	var bi badInput
@@ -63,10 +121,40 @@ func Main(args []string, stdout, stderr io.Writer) int {
 	if isFlagError(err) {
 		return ExitBadInput
 	}
-	if ctx.Err() != nil {
-		return ExitFailure
-	}
 	return ExitFailure
+}
+
+// fleets are the rig fleets opened by this run, closed when Main returns
+// however the run ended.
+var (
+	fleetsMu sync.Mutex
+	fleets   []*host.Fleet
+)
+
+func keepFleet(f *host.Fleet) {
+	fleetsMu.Lock()
+	fleets = append(fleets, f)
+	fleetsMu.Unlock()
+}
+
+// closeFleets stops every rig process this run started.
+func closeFleets() {
+	fleetsMu.Lock()
+	fs := fleets
+	fleets = nil
+	fleetsMu.Unlock()
+	for _, f := range fs {
+		f.Close()
+	}
+	done := make(chan struct{})
+	go func() {
+		plugin.CleanupClients()
+		close(done)
+	}()
+	select {
+	case <-done:
+	case <-time.After(2 * time.Second):
+	}
 }
 
 // isFlagError recognises cobra's messages for command-line mistakes.

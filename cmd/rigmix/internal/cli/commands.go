@@ -2,7 +2,9 @@ package cli
 
 import (
 	"bytes"
+	"context"
 	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
 	"os"
@@ -136,9 +138,9 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 			if err != nil {
 				return err
 			}
-			f, err := os.Open(args[0])
+			f, err := openRegular(args[0], maxModelBytes)
 			if err != nil {
-				return usageError{fmt.Errorf("%s: %v", args[0], err)}
+				return err
 			}
 			defer f.Close()
 			p, err := mip.ReadMPS(f)
@@ -167,11 +169,14 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 				}
 				enc := json.NewEncoder(stdout)
 				enc.SetIndent("", "  ")
-				return enc.Encode(out)
+				if err := enc.Encode(out); err != nil {
+					return err
+				}
+				return solveInterrupted(cmd.Context())
 			}
 			fmt.Fprintf(stdout, "model      %s (%d rows, %d columns)\nstatus     %s\nobjective  %.10g\nbound      %.10g\ngap        %.6f%%\nnodes      %d\ntime       %s\n",
 				p.Name, p.LP.NumRows, p.LP.NumCols, res.Status, res.Obj, res.Bound, 100*res.Gap, res.Nodes, res.Elapsed.Round(time.Millisecond))
-			return nil
+			return solveInterrupted(cmd.Context())
 		},
 	}
 	c.Flags().BoolVar(&o.asJSON, "json", false, "print the result as JSON")
@@ -180,6 +185,54 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	c.Flags().Int("threads", 1, "solver threads (1 or 2)")
 	return c
 }
+
+// solveInterrupted: after SIGINT or SIGTERM, solve prints the best
+// solution found so far, then exits 1.
+func solveInterrupted(ctx context.Context) error {
+	if ctx.Err() != nil {
+		return interruptedError{errors.New("interrupted; the best solution so far is printed above")}
+	}
+	return nil
+}
+
+// maxModelBytes bounds the MPS file solve reads.
+const maxModelBytes = 1 << 30
+
+// openRegular opens an input that must be a regular file of at most
+// maxBytes, checking before it opens (opening a pipe waits for a writer);
+// the file read is limited to maxBytes+1.
+func openRegular(path string, maxBytes int64) (io.ReadCloser, error) {
+	bad := func(what string) error { return usageError{fmt.Errorf("%s: %s", path, what)} }
+	st, err := os.Stat(path)
+	if err != nil {
+		return nil, bad(unwrapPathErr(err).Error())
+	}
+	if !st.Mode().IsRegular() {
+		return nil, bad("not a regular file; give a file")
+	}
+	if st.Size() > maxBytes {
+		return nil, bad(fmt.Sprintf("is larger than %d MB", maxBytes>>20))
+	}
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, bad(unwrapPathErr(err).Error())
+	}
+	if fst, err := f.Stat(); err != nil || !os.SameFile(st, fst) {
+		f.Close()
+		return nil, bad("changed while it was opened")
+	}
+	return struct {
+		io.Reader
+		io.Closer
+	}{io.LimitReader(f, maxBytes+1), f}, nil
+}
+
+// Caps on gen-site's sizes: the largest scale runs are 1,000 acres and a
+// 20-mile corridor.
+const (
+	maxGenAcres = 10_000
+	maxGenMiles = 200
+)
 
 func newGenSiteCmd(stdout io.Writer) *cobra.Command {
 	var acres, miles float64
@@ -191,8 +244,12 @@ func newGenSiteCmd(stdout io.Writer) *cobra.Command {
 		Args:   cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			switch {
-			case acres > 0 && miles > 0, acres <= 0 && miles <= 0:
+			case acres > 0 && miles > 0, !(acres > 0) && !(miles > 0):
 				return usageError{fmt.Errorf("give one of --acres or --miles, a positive number")}
+			case acres > maxGenAcres:
+				return usageError{fmt.Errorf("--acres: at most %d, got %g", maxGenAcres, acres)}
+			case miles > maxGenMiles:
+				return usageError{fmt.Errorf("--miles: at most %d, got %g", maxGenMiles, miles)}
 			case acres > 0:
 				_, err := stdout.Write(sitegen.Site(acres, seed))
 				return err

@@ -65,15 +65,18 @@ func newPlanCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	return c
 }
 
-// loadInputs reads the scenario and its rate book.
-func loadInputs(cfg Config, demo string, args []string) (*scenarios.Scenario, *ratebooks.RateBook, error) {
+// loadInputs reads the scenario and its rate book, and lists every file
+// read (the configuration file too), so that no output replaces one.
+func loadInputs(cfg Config, demo string, args []string) (*scenarios.Scenario, *ratebooks.RateBook, []string, error) {
 	var sc *scenarios.Scenario
 	var err error
+	inputs := []string{cfg.File}
 	switch {
 	case len(args) == 1 && demo != "":
-		return nil, nil, usageError{fmt.Errorf("give either a scenario file or --demo, not both")}
+		return nil, nil, nil, usageError{fmt.Errorf("give either a scenario file or --demo, not both")}
 	case len(args) == 1:
 		sc, err = scenarios.Load(args[0], nil)
+		inputs = append(inputs, args[0])
 	default:
 		if demo == "" {
 			demo = scenarios.DefaultDemo
@@ -81,36 +84,44 @@ func loadInputs(cfg Config, demo string, args []string) (*scenarios.Scenario, *r
 		sc, err = scenarios.LoadDemo(demo, nil)
 	}
 	if err != nil {
-		return nil, nil, err
+		return nil, nil, nil, err
 	}
+	inputs = append(inputs, sc.Files...)
+	// The scenario's rate_book is already resolved against its folder.
 	name := sc.RateBook
-	base := ""
-	if len(args) == 1 {
-		base = filepath.Dir(args[0])
-	}
 	var own *ratebooks.RateBook
 	if cfg.RateBook != "" {
-		if own, err = loadRateBook(name, base); err != nil {
-			return nil, nil, err
+		if own, err = loadRateBook(name, ""); err != nil {
+			return nil, nil, nil, err
 		}
-		name, base = cfg.RateBook, "."
+		name = cfg.RateBook
 	}
-	rb, err := loadRateBook(name, base)
+	rb, err := loadRateBook(name, "")
 	if err != nil {
-		return nil, nil, err
+		return nil, nil, nil, err
+	}
+	if !isDemoRateBook(name) {
+		inputs = append(inputs, name)
 	}
 	if own != nil && own.Currency != rb.Currency {
-		return nil, nil, usageError{fmt.Errorf("%s: rate_book: %s prices in %s, but --rate-book %s prices in %s; compare plans in one currency", sc.Source, own.Name, own.Currency, rb.Name, rb.Currency)}
+		return nil, nil, nil, usageError{fmt.Errorf("%s: rate_book: %s prices in %s, but --rate-book %s prices in %s; compare plans in one currency", sc.Source, own.Name, own.Currency, rb.Name, rb.Currency)}
 	}
-	return sc, rb, nil
+	return sc, rb, inputs, nil
+}
+
+func isDemoRateBook(name string) bool {
+	for _, d := range ratebooks.Demos() {
+		if d == name {
+			return true
+		}
+	}
+	return false
 }
 
 // loadRateBook takes a demo name, or a file path relative to base.
 func loadRateBook(name, base string) (*ratebooks.RateBook, error) {
-	for _, d := range ratebooks.Demos() {
-		if d == name {
-			return ratebooks.LoadDemo(name)
-		}
+	if isDemoRateBook(name) {
+		return ratebooks.LoadDemo(name)
 	}
 	p := name
 	if !filepath.IsAbs(p) && base != "" {
@@ -142,6 +153,7 @@ func openFleet(ctx context.Context, cfg Config, want []string) (*host.Fleet, err
 	if err != nil {
 		return nil, err
 	}
+	keepFleet(fleet)
 	return fleet, nil
 }
 
@@ -198,8 +210,16 @@ func checkRigsOffered(sc *scenarios.Scenario, fleet *host.Fleet, cfg Config) err
 
 func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, stdout, stderr io.Writer) error {
 	t0 := time.Now()
-	sc, rb, err := loadInputs(cfg, o.demo, args)
+	sc, rb, inputs, err := loadInputs(cfg, o.demo, args)
 	if err != nil {
+		return err
+	}
+	outs := &outputs{stdout: stdout}
+	jsonF := outs.add("--json", o.jsonOut)
+	csvF := outs.add("--points-csv", o.csvOut)
+	geoF := outs.add("--points-geojson", o.geojsonOut)
+	mpsF := outs.add("--model-mps", o.mpsOut)
+	if err := outs.check(inputs); err != nil {
 		return err
 	}
 	tLoad := time.Since(t0)
@@ -219,24 +239,29 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 	if err != nil {
 		return err
 	}
-	if o.mpsOut != "" {
+	if mpsF != nil {
 		// The model is complete before the solve, so it is written even if
 		// the solve then fails: that is when a cross-check is wanted most.
 		var b bytes.Buffer
 		if err := mip.WriteMPS(&b, pr.Model.Problem); err != nil {
 			return err
 		}
-		if err := writeAtomic(o.mpsOut, b.Bytes()); err != nil {
+		mpsF.setData(b.Bytes())
+		if err := outs.commit(ctx); err != nil {
 			return err
 		}
+		mpsF.set = false
 	}
-	outs := outputs{}
 	res, err := pr.Solve(ctx, popt)
 	if popt.Progress != nil {
 		fmt.Fprintln(stderr)
 	}
 	if err != nil {
 		return err
+	}
+	if res.Status == mip.Interrupted && ctx.Err() != nil {
+		// Ctrl-C: keep the previous files; the run did not finish.
+		return interruptedError{fmt.Errorf("interrupted; the best plan so far (within %.2f%% of optimal) was not written, and earlier output files are unchanged", 100*res.Gap)}
 	}
 	t0 = time.Now()
 	p, err := pr.Assemble(res)
@@ -253,29 +278,26 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 			pr.Model.Problem.LP.NumRows, pr.Model.Problem.LP.NumCols, res.PresolvedRows, res.PresolvedCols, res.PresolveTime.Round(time.Millisecond), res.Status, 100*res.Gap, res.Nodes)
 	}
 	for _, w := range []struct {
-		path   string
+		out    *output
 		render func(io.Writer, *plan.Plan) error
-	}{{o.jsonOut, report.JSON}, {o.csvOut, report.PointsCSV}, {o.geojsonOut, report.GeoJSON}} {
-		if w.path == "" {
+	}{{jsonF, report.JSON}, {csvF, report.PointsCSV}, {geoF, report.GeoJSON}} {
+		if w.out == nil {
 			continue
 		}
 		var b bytes.Buffer
 		if err := w.render(&b, p); err != nil {
 			return usageError{err}
 		}
-		outs.add(w.path, b.Bytes())
+		w.out.setData(b.Bytes())
 	}
-	if res.Status == mip.Interrupted && ctx.Err() != nil {
-		// Ctrl-C: keep the previous files; the run did not finish.
-		return interruptedError{fmt.Errorf("interrupted; the best plan so far (within %.2f%% of optimal) was not written, and earlier output files are unchanged", 100*res.Gap)}
+	if !o.quiet && !outs.toStdout() {
+		var b bytes.Buffer
+		if err := report.Text(&b, p); err != nil {
+			return err
+		}
+		outs.summary = b.Bytes()
 	}
-	if err := outs.write(); err != nil {
-		return err
-	}
-	if o.quiet {
-		return nil
-	}
-	return report.Text(stdout, p)
+	return outs.commit(ctx)
 }
 
 // progressPrinter shows incumbent, bound and gap on one terminal line.

@@ -52,8 +52,13 @@ func newReportCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 }
 
 func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string, stdout, stderr io.Writer) error {
-	sc, rb, err := loadInputs(cfg, o.demo, args)
+	sc, rb, inputs, err := loadInputs(cfg, o.demo, args)
 	if err != nil {
+		return err
+	}
+	outs := &outputs{stdout: stdout}
+	out := outs.add("--out", o.out)
+	if err := outs.check(inputs); err != nil {
 		return err
 	}
 	now := time.Now()
@@ -75,6 +80,9 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 	res, err := pr.Solve(ctx, popt)
 	if err != nil {
 		return err
+	}
+	if ctx.Err() != nil {
+		return errInterrupted
 	}
 	p, err := pr.Assemble(res)
 	if err != nil {
@@ -103,14 +111,26 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 			return err
 		}
 	}
+	if ctx.Err() != nil {
+		// The trade-offs stop early on a signal with what they have.
+		return errInterrupted
+	}
 	var b bytes.Buffer
 	if err := report.HTML(&b, hin); err != nil {
 		return err
 	}
-	if err := writeAtomic(o.out, b.Bytes()); err != nil {
+	out.setData(b.Bytes())
+	status := fmt.Sprintf("wrote %s: %d points, %s %.2f, %d field days in the plan; schedule %s to %s\n",
+		o.out, len(p.Points), p.RateBook.Currency, p.Total, p.Finish, s.Start.Format("2006-01-02"), s.Finish.Format("2006-01-02"))
+	if outs.toStdout() || !out.regular() {
+		// The report itself goes to standard output (or a device): the
+		// status line must not follow </html> there.
+		if err := outs.commit(ctx); err != nil {
+			return err
+		}
+		_, err := io.WriteString(stderr, status)
 		return err
 	}
-	fmt.Fprintf(stdout, "wrote %s: %d points, %s %.2f, %d field days in the plan; schedule %s to %s\n",
-		o.out, len(p.Points), p.RateBook.Currency, p.Total, p.Finish, s.Start.Format("2006-01-02"), s.Finish.Format("2006-01-02"))
-	return nil
+	outs.summary = []byte(status)
+	return outs.commit(ctx)
 }

@@ -6,7 +6,6 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
-	"os"
 	"strconv"
 	"strings"
 	"time"
@@ -19,6 +18,7 @@ import (
 	"github.com/rigmix/rigmix/plugins/sdk"
 	"github.com/rigmix/rigmix/ratebooks"
 	"github.com/rigmix/rigmix/scenarios"
+	"github.com/rigmix/rigmix/scenarios/fielderr"
 )
 
 type scheduleOptions struct {
@@ -128,72 +128,85 @@ func (o *scheduleOptions) calendar(hoursPerDay float64, today time.Time) (schedu
 	return cal, nil
 }
 
+// maxPlanBytes bounds a plan file read by --plan; the plan of a
+// 1,000-acre site is a few megabytes.
+const maxPlanBytes = 256 << 20
+
 func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []string, stdout, stderr io.Writer) error {
-	sc, rb, err := loadInputs(cfg, o.demo, args)
+	sc, rb, inputs, err := loadInputs(cfg, o.demo, args)
 	if err != nil {
+		return err
+	}
+	outs := &outputs{stdout: stdout}
+	files := []*output{
+		outs.add("--csv", o.csvOut), outs.add("--gantt-svg", o.ganttOut),
+		outs.add("--stakeout-csv", o.stakeCSV), outs.add("--stakeout-geojson", o.stakeGeoJSON),
+	}
+	if err := outs.check(append(inputs, o.planFile)); err != nil {
 		return err
 	}
 	cal, err := o.calendar(sc.HoursDay, time.Now())
 	if err != nil {
 		return err
 	}
+	var p *plan.Plan
+	if o.planFile != "" {
+		b, err := fielderr.ReadRegular(o.planFile, maxPlanBytes)
+		if err != nil {
+			return usageError{fmt.Errorf("--plan %s: cannot read: %v", o.planFile, unwrapPathErr(err))}
+		}
+		p = &plan.Plan{}
+		if err := json.Unmarshal(b, p); err != nil || p.Schema != plan.SchemaVersion {
+			return usageError{fmt.Errorf("--plan %s: not a rigmix plan file (want schema %s)", o.planFile, plan.SchemaVersion)}
+		}
+	}
 	fleet, rigs, err := startRigs(ctx, cfg, sc)
 	if err != nil {
 		return err
 	}
 	defer fleet.Close()
-	var p *plan.Plan
-	if o.planFile != "" {
-		b, err := os.ReadFile(o.planFile)
-		if err != nil {
-			return usageError{fmt.Errorf("%s: %v", o.planFile, err)}
-		}
-		p = &plan.Plan{}
-		if err := json.Unmarshal(b, p); err != nil || p.Schema != plan.SchemaVersion {
-			return usageError{fmt.Errorf("%s: not a rigmix plan file (want schema %s)", o.planFile, plan.SchemaVersion)}
-		}
-	} else {
+	if p == nil {
 		p, err = plan.Run(ctx, plan.Input{Scenario: sc, RateBook: rb, Rigs: rigs}, plan.Options{GapRel: cfg.Gap, TimeLimit: cfg.TimeLimit, Threads: cfg.Threads})
 		if err != nil {
 			return err
+		}
+		if ctx.Err() != nil {
+			return errInterrupted
 		}
 	}
 	s, risk, err := o.build(ctx, p, sc, rb, rigs, cal)
 	if err != nil {
 		return err
 	}
-	outs := outputs{}
-	for _, w := range []struct {
-		path   string
-		render func(io.Writer, *schedule.Schedule) error
-	}{{o.csvOut, schedule.WriteCSV}, {o.ganttOut, schedule.WriteGanttSVG}, {o.stakeCSV, schedule.WriteStakeoutCSV}, {o.stakeGeoJSON, schedule.WriteStakeoutGeoJSON}} {
-		if w.path == "" {
+	for i, render := range []func(io.Writer, *schedule.Schedule) error{
+		schedule.WriteCSV, schedule.WriteGanttSVG, schedule.WriteStakeoutCSV, schedule.WriteStakeoutGeoJSON,
+	} {
+		if files[i] == nil {
 			continue
 		}
 		var b bytes.Buffer
-		if err := w.render(&b, s); err != nil {
+		if err := render(&b, s); err != nil {
 			return err
 		}
-		outs.add(w.path, b.Bytes())
+		files[i].setData(b.Bytes())
 	}
-	if err := outs.write(); err != nil {
-		return err
+	if !outs.toStdout() {
+		var b bytes.Buffer
+		fmt.Fprintf(&b, "rigmix schedule — %s (%s)%s\n\n", sc.Title, sc.Source, map[bool]string{true: " — invented demo data", false: ""}[sc.Demo])
+		if err := schedule.WriteText(&b, s); err != nil {
+			return err
+		}
+		b.WriteString("\n")
+		if err := schedule.WriteRiskText(&b, risk); err != nil {
+			return err
+		}
+		b.WriteString("\nCautions\n")
+		for _, c := range plan.Cautions {
+			fmt.Fprintf(&b, "  * %s\n", c)
+		}
+		outs.summary = b.Bytes()
 	}
-	var b bytes.Buffer
-	fmt.Fprintf(&b, "rigmix schedule — %s (%s)%s\n\n", sc.Title, sc.Source, map[bool]string{true: " — invented demo data", false: ""}[sc.Demo])
-	if err := schedule.WriteText(&b, s); err != nil {
-		return err
-	}
-	b.WriteString("\n")
-	if err := schedule.WriteRiskText(&b, risk); err != nil {
-		return err
-	}
-	b.WriteString("\nCautions\n")
-	for _, c := range plan.Cautions {
-		fmt.Fprintf(&b, "  * %s\n", c)
-	}
-	_, err = stdout.Write(b.Bytes())
-	return err
+	return outs.commit(ctx)
 }
 
 // build schedules a plan and runs the weather and production risk.

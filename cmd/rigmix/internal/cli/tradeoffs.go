@@ -6,6 +6,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"math"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -66,14 +67,18 @@ func newTradeoffsCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command 
 }
 
 func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []string, stdout io.Writer) error {
-	sc, rb, err := loadInputs(cfg, o.demo, args)
+	if err := o.validate(); err != nil {
+		return err
+	}
+	sc, rb, inputs, err := loadInputs(cfg, o.demo, args)
 	if err != nil {
 		return err
 	}
 	var extra []*ratebooks.RateBook
 	if o.rateBooks != "" {
 		for _, name := range strings.Split(o.rateBooks, ",") {
-			b, err := loadRateBook(strings.TrimSpace(name), ".")
+			name = strings.TrimSpace(name)
+			b, err := loadRateBook(name, ".")
 			if err != nil {
 				return err
 			}
@@ -81,14 +86,42 @@ func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []st
 				return usageError{fmt.Errorf("--compare-rate-books: %s prices in %s, %s in %s; compare rate books in one currency", b.Name, b.Currency, rb.Name, rb.Currency)}
 			}
 			extra = append(extra, b)
+			if !isDemoRateBook(name) {
+				inputs = append(inputs, name)
+			}
 		}
+	}
+	outs := &outputs{stdout: stdout}
+	type render func(w io.Writer) error
+	var an *tradeoff.Analysis
+	files := []struct {
+		out    *output
+		render render
+	}{
+		{outs.add("--alternatives-csv", o.altCSV), func(w io.Writer) error { return tradeoff.WriteAlternativesCSV(w, an.Alternatives) }},
+		{outs.add("--frontier-csv", o.frontCSV), func(w io.Writer) error { return tradeoff.WriteFrontierCSV(w, an.Frontier) }},
+		{outs.add("--frontier-svg", o.frontSVG), func(w io.Writer) error { return tradeoff.WriteFrontierSVG(w, an.Frontier) }},
+		{outs.add("--budget-csv", o.budgetCSV), func(w io.Writer) error { return tradeoff.WriteBudgetCSV(w, an.Budget) }},
+		{outs.add("--budget-svg", o.budgetSVG), func(w io.Writer) error { return tradeoff.WriteBudgetSVG(w, an.Budget) }},
+		{outs.add("--rule-costs-csv", o.ruleCSV), func(w io.Writer) error { return tradeoff.WriteRuleCostsCSV(w, an.RuleCosts) }},
+		{outs.add("--json", o.jsonOut), func(w io.Writer) error {
+			b, err := json.MarshalIndent(an, "", "  ")
+			if err != nil {
+				return err
+			}
+			_, err = w.Write(append(b, '\n'))
+			return err
+		}},
+	}
+	if err := outs.check(inputs); err != nil {
+		return err
 	}
 	fleet, rigs, err := startRigs(ctx, cfg, sc)
 	if err != nil {
 		return err
 	}
 	defer fleet.Close()
-	an, err := tradeoff.Analyze(ctx, tradeoff.Config{
+	an, err = tradeoff.Analyze(ctx, tradeoff.Config{
 		Input:       plan.Input{Scenario: sc, RateBook: rb, Rigs: rigs},
 		PlanOptions: plan.Options{Threads: cfg.Threads},
 		RateBooks:   extra, Budget: o.budget, FeatureDiameterFt: o.featureFt,
@@ -98,49 +131,55 @@ func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []st
 	if err != nil {
 		return err
 	}
-	outs := outputs{}
-	for _, w := range []struct {
-		path   string
-		render func(io.Writer) error
-	}{
-		{o.altCSV, func(w io.Writer) error { return tradeoff.WriteAlternativesCSV(w, an.Alternatives) }},
-		{o.frontCSV, func(w io.Writer) error { return tradeoff.WriteFrontierCSV(w, an.Frontier) }},
-		{o.frontSVG, func(w io.Writer) error { return tradeoff.WriteFrontierSVG(w, an.Frontier) }},
-		{o.budgetCSV, func(w io.Writer) error { return tradeoff.WriteBudgetCSV(w, an.Budget) }},
-		{o.budgetSVG, func(w io.Writer) error { return tradeoff.WriteBudgetSVG(w, an.Budget) }},
-		{o.ruleCSV, func(w io.Writer) error { return tradeoff.WriteRuleCostsCSV(w, an.RuleCosts) }},
-		{o.jsonOut, func(w io.Writer) error {
-			b, err := json.MarshalIndent(an, "", "  ")
-			if err != nil {
-				return err
-			}
-			_, err = w.Write(append(b, '\n'))
-			return err
-		}},
-	} {
-		if w.path == "" {
+	if ctx.Err() != nil {
+		// The analysis stops early on a signal with what it has; those
+		// are not the numbers asked for.
+		return errInterrupted
+	}
+	for _, f := range files {
+		if f.out == nil {
 			continue
 		}
 		var b bytes.Buffer
-		if err := w.render(&b); err != nil {
+		if err := f.render(&b); err != nil {
 			return err
 		}
-		outs.add(w.path, b.Bytes())
+		f.out.setData(b.Bytes())
 	}
-	if err := outs.write(); err != nil {
-		return err
+	if !outs.toStdout() {
+		var b bytes.Buffer
+		fmt.Fprintf(&b, "rigmix tradeoffs — %s (%s)%s\n\n", sc.Title, sc.Source, map[bool]string{true: " — invented demo data", false: ""}[sc.Demo])
+		if err := an.WriteText(&b); err != nil {
+			return err
+		}
+		b.WriteString("\nCautions\n")
+		for _, c := range plan.Cautions {
+			fmt.Fprintf(&b, "  * %s\n", c)
+		}
+		outs.summary = b.Bytes()
 	}
-	var b bytes.Buffer
-	fmt.Fprintf(&b, "rigmix tradeoffs — %s (%s)%s\n\n", sc.Title, sc.Source, map[bool]string{true: " — invented demo data", false: ""}[sc.Demo])
-	if err := an.WriteText(&b); err != nil {
-		return err
+	return outs.commit(ctx)
+}
+
+// Caps on the count flags: each frontier point and each budget is a solve.
+const (
+	maxFrontierPoints = 100
+	maxBudgetPoints   = 100
+)
+
+// validate refuses flag values that are out of range or not finite.
+func (o *tradeoffOptions) validate() error {
+	switch {
+	case math.IsNaN(o.budget) || math.IsInf(o.budget, 0) || o.budget < 0:
+		return usageError{fmt.Errorf("--budget: must be a finite amount ≥ 0 (0: 75%% of the cheapest plan), got %g", o.budget)}
+	case math.IsNaN(o.featureFt) || math.IsInf(o.featureFt, 0) || o.featureFt < 0:
+		return usageError{fmt.Errorf("--feature-diameter: must be a finite number of feet ≥ 0 (0: the default, 20), got %g", o.featureFt)}
+	case o.frontierN < 0 || o.frontierN > maxFrontierPoints:
+		return usageError{fmt.Errorf("--frontier-points: must be 0 (the default) to %d, got %d", maxFrontierPoints, o.frontierN)}
+	case o.budgetN < 0 || o.budgetN > maxBudgetPoints:
+		return usageError{fmt.Errorf("--budget-points: must be 0 (the default) to %d, got %d", maxBudgetPoints, o.budgetN)}
 	}
-	b.WriteString("\nCautions\n")
-	for _, c := range plan.Cautions {
-		fmt.Fprintf(&b, "  * %s\n", c)
-	}
-	_, err = stdout.Write(b.Bytes())
-	return err
+	return nil
 }
 
 // addTradeoffs fills the report's alternatives table, frontier and budget
