@@ -3,8 +3,10 @@ package cli
 import (
 	"bytes"
 	"context"
+	"errors"
 	"fmt"
 	"io"
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
@@ -261,6 +263,9 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 	}
 	if res.Status == mip.Interrupted && ctx.Err() != nil {
 		// Ctrl-C: keep the previous files; the run did not finish.
+		if math.IsInf(res.Gap, 0) || math.IsNaN(res.Gap) {
+			return interruptedError{errors.New("interrupted before a plan was found; earlier output files are unchanged")}
+		}
 		return interruptedError{fmt.Errorf("interrupted; the best plan so far (within %.2f%% of optimal) was not written, and earlier output files are unchanged", 100*res.Gap)}
 	}
 	t0 = time.Now()
