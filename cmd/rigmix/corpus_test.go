@@ -143,6 +143,8 @@ var badCases = []badCase{
 	{file: "config_negative_timeout.yaml", config: true, path: "call_timeout", what: []string{"> 0", "-5"}},
 	{file: "config_threads_text.yaml", config: true, path: "threads", what: []string{`"two"`}},
 	{file: "config_missing_plugin_dir.yaml", config: true, path: "plugin_dir", what: []string{"./rigs-not-here", "no such"}},
+	{file: "config_gap_nan.yaml", config: true, path: "gap", what: []string{"finite number", `"NaN"`}},
+	{file: "config_timeout_inf.yaml", config: true, path: "call_timeout", what: []string{"finite number", `"+Inf"`}},
 }
 
 // TestBadInputCorpus plans every file of the bad-input corpus in process

@@ -10,10 +10,12 @@ import (
 	"io"
 	"os"
 	"os/signal"
+	"strconv"
 	"strings"
 	"sync"
 	"syscall"
 	"time"
+	"unicode"
 
 	plugin "github.com/hashicorp/go-plugin"
 	"github.com/spf13/cobra"
@@ -110,10 +112,10 @@ func run(ctx context.Context, args []string, stdout, stderr io.Writer) int {
 		if !errors.As(err, &ie) {
 			err = errInterrupted
 		}
-		fmt.Fprintf(stderr, "rigmix: %v\n", err)
+		fmt.Fprintf(stderr, "rigmix: %s\n", printable(err.Error()))
 		return ExitFailure
 	}
-	fmt.Fprintf(stderr, "rigmix: %v\n", err)
+	fmt.Fprintf(stderr, "rigmix: %s\n", printable(err.Error()))
 	var bi badInput
 	if errors.As(err, &bi) && bi.BadInput() {
 		return ExitBadInput
@@ -155,6 +157,25 @@ func closeFleets() {
 	case <-done:
 	case <-time.After(2 * time.Second):
 	}
+}
+
+// printable escapes control characters (but line breaks and tabs) in a
+// message, so that nothing quoted from a file or a plugin can drive the
+// terminal.
+func printable(msg string) string {
+	var b strings.Builder
+	for _, r := range msg {
+		switch {
+		case r == '\n' || r == '\t':
+			b.WriteRune(r)
+		case unicode.IsControl(r):
+			q := strconv.QuoteRune(r)
+			b.WriteString(q[1 : len(q)-1])
+		default:
+			b.WriteRune(r)
+		}
+	}
+	return b.String()
 }
 
 // isFlagError recognises cobra's messages for command-line mistakes.
