@@ -479,8 +479,8 @@ func interruptSite(t *testing.T, dir string) string {
 // (written just before the solve starts) appears, it sends SIGINT to the
 // whole group, as Ctrl-C in a terminal does. rigmix must exit promptly
 // with a one-line message, leave the earlier plan file as it was, and
-// leave no rig process behind. (When the solve has already found a plan,
-// rigmix at present writes it instead: a known gap, logged.)
+// leave no rig process behind. (TestInterruptEveryCommand does the same
+// for every command and both signals.)
 func TestInterruptKeepsOutput(t *testing.T) {
 	if testing.Short() {
 		t.Skip("plans a large site")

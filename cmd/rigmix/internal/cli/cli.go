@@ -204,9 +204,9 @@ func newRoot(stdout, stderr io.Writer) *cobra.Command {
 		fmt.Fprintln(stderr, c.UsageString())
 		return usageError{err}
 	})
-	root.PersistentFlags().StringVar(&g.configFile, "config", "", "configuration file (YAML); default ./rigmix.yaml if present")
-	root.PersistentFlags().String("plugin-dir", "", "folder of external rig plugin executables")
-	root.PersistentFlags().Float64("call-timeout", 0, "seconds a rig plugin may take to answer one call")
+	root.PersistentFlags().StringVar(&g.configFile, "config", "", "configuration `FILE` (YAML); default ./rigmix.yaml if present")
+	root.PersistentFlags().String("plugin-dir", "", "`FOLDER` of external rig plugin executables")
+	root.PersistentFlags().Float64("call-timeout", 0, "`SECONDS` a rig plugin may take to start or to answer one call (default 30)")
 	g.flags = root.PersistentFlags()
 
 	root.AddCommand(newPlanCmd(g, stdout, stderr))
@@ -218,5 +218,6 @@ func newRoot(stdout, stderr io.Writer) *cobra.Command {
 	root.AddCommand(newTradeoffsCmd(g, stdout, stderr))
 	root.AddCommand(newRigServeCmd())
 	root.AddCommand(newGenSiteCmd(stdout))
+	addExamples(root)
 	return root
 }

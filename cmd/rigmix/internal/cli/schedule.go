@@ -36,6 +36,7 @@ type scheduleOptions struct {
 	ganttOut     string
 	stakeCSV     string
 	stakeGeoJSON string
+	quiet        bool
 }
 
 func newScheduleCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -56,16 +57,17 @@ func newScheduleCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 		},
 	}
 	f := c.Flags()
-	f.StringVar(&o.demo, "demo", "", "schedule an embedded demo scenario by name")
-	f.StringVar(&o.planFile, "plan", "", "schedule this plan file (from `rigmix plan --json`) instead of planning again")
-	f.String("rate-book", "", "price standby with this rate book (demo name or file)")
-	f.Float64("gap", 0, "optimality gap for planning on the fly")
-	f.Float64("time-limit", 0, "seconds for planning on the fly")
+	f.StringVar(&o.demo, "demo", "", "schedule the embedded demo scenario `NAME`")
+	f.StringVar(&o.planFile, "plan", "", "schedule this plan `FILE` (written by rigmix plan --json) instead of planning again")
+	f.String("rate-book", "", "price standby with this rate `BOOK` (demo name or file)")
+	f.Float64("gap", 0, "optimality `GAP` for planning on the fly")
+	f.Float64("time-limit", 0, "`SECONDS` for planning on the fly")
 	o.addCalendarFlags(f)
-	f.StringVar(&o.csvOut, "csv", "", "write the day-by-day table as CSV to this file")
-	f.StringVar(&o.ganttOut, "gantt-svg", "", "write a Gantt chart as SVG to this file")
-	f.StringVar(&o.stakeCSV, "stakeout-csv", "", "write the stakeout list as CSV to this file")
-	f.StringVar(&o.stakeGeoJSON, "stakeout-geojson", "", "write the stakeout list as GeoJSON to this file")
+	f.StringVar(&o.csvOut, "csv", "", "write the day-by-day table as CSV to `FILE` (- for standard output)")
+	f.StringVar(&o.ganttOut, "gantt-svg", "", "write a Gantt chart as SVG to `FILE` (- for standard output)")
+	f.StringVar(&o.stakeCSV, "stakeout-csv", "", "write the stakeout list as CSV to `FILE` (- for standard output)")
+	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
+	f.StringVar(&o.stakeGeoJSON, "stakeout-geojson", "", "write the stakeout list as GeoJSON to `FILE` (- for standard output)")
 	return c
 }
 
@@ -133,6 +135,9 @@ func (o *scheduleOptions) calendar(hoursPerDay float64, today time.Time) (schedu
 const maxPlanBytes = 256 << 20
 
 func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []string, stdout, stderr io.Writer) error {
+	prog := startProgress(stderr, "schedule", !o.quiet && isTerminal(stderr), time.Second)
+	defer prog.end()
+	prog.set("loading")
 	sc, rb, inputs, err := loadInputs(cfg, o.demo, args)
 	if err != nil {
 		return err
@@ -160,12 +165,14 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 			return usageError{fmt.Errorf("--plan %s: not a rigmix plan file (want schema %s)", o.planFile, plan.SchemaVersion)}
 		}
 	}
+	prog.set("starting the rigs")
 	fleet, rigs, err := startRigs(ctx, cfg, sc)
 	if err != nil {
 		return err
 	}
 	defer fleet.Close()
 	if p == nil {
+		prog.set("planning")
 		p, err = plan.Run(ctx, plan.Input{Scenario: sc, RateBook: rb, Rigs: rigs}, plan.Options{GapRel: cfg.Gap, TimeLimit: cfg.TimeLimit, Threads: cfg.Threads})
 		if err != nil {
 			return err
@@ -174,6 +181,7 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 			return errInterrupted
 		}
 	}
+	prog.set("scheduling and weather risk")
 	s, risk, err := o.build(ctx, p, sc, rb, rigs, cal)
 	if err != nil {
 		return err
@@ -190,7 +198,8 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 		}
 		files[i].setData(b.Bytes())
 	}
-	if !outs.toStdout() {
+	prog.end()
+	if !o.quiet && !outs.toStdout() {
 		var b bytes.Buffer
 		fmt.Fprintf(&b, "rigmix schedule — %s (%s)%s\n\n", sc.Title, sc.Source, map[bool]string{true: " — invented demo data", false: ""}[sc.Demo])
 		if err := schedule.WriteText(&b, s); err != nil {
@@ -229,12 +238,12 @@ func (o *scheduleOptions) build(ctx context.Context, p *plan.Plan, sc *scenarios
 // addCalendarFlags binds the calendar and risk flags shared by schedule and
 // report.
 func (o *scheduleOptions) addCalendarFlags(f *pflag.FlagSet) {
-	f.StringVar(&o.start, "start", "", "first field day, YYYY-MM-DD (default: the next Monday after today)")
-	f.StringVar(&o.workStart, "work-start", "07:00", "start of the working day, HH:MM")
-	f.StringVar(&o.workDays, "work-days", "mon-fri", "days worked: mon-fri, mon-sat or all")
-	f.StringVar(&o.wetDates, "wet-dates", "", "comma-separated dates (YYYY-MM-DD) known or assumed wet")
-	f.StringVar(&o.wetProb, "wet-prob", "", "probability a day is wet, one value for every month or twelve comma-separated values from January")
-	f.Uint64Var(&o.seed, "seed", 1, "seed of the weather and production Monte Carlo")
-	f.IntVar(&o.runs, "runs", 1000, "Monte Carlo runs")
-	f.Float64Var(&o.cv, "production-cv", 0.2, "coefficient of variation of hours on points")
+	f.StringVar(&o.start, "start", "", "first field day, `YYYY-MM-DD` (default: the next Monday after today)")
+	f.StringVar(&o.workStart, "work-start", "07:00", "start of the working day, `HH:MM`")
+	f.StringVar(&o.workDays, "work-days", "mon-fri", "`DAYS` worked: mon-fri, mon-sat or all")
+	f.StringVar(&o.wetDates, "wet-dates", "", "comma-separated `DATES` (YYYY-MM-DD) known or assumed wet")
+	f.StringVar(&o.wetProb, "wet-prob", "", "`P`robability a day is wet, one value for every month or twelve comma-separated values from January")
+	f.Uint64Var(&o.seed, "seed", 1, "`SEED` of the weather and production Monte Carlo")
+	f.IntVar(&o.runs, "runs", 1000, "Monte Carlo runs, `N` (at most 1,000,000)")
+	f.Float64Var(&o.cv, "production-cv", 0.2, "coefficient of variation (`CV`) of hours on points")
 }

@@ -8,6 +8,7 @@ import (
 	"io"
 	"math"
 	"strings"
+	"time"
 
 	"github.com/spf13/cobra"
 
@@ -31,6 +32,7 @@ type tradeoffOptions struct {
 	ruleCSV   string
 	frontierN int
 	budgetN   int
+	quiet     bool
 }
 
 func newTradeoffsCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -44,32 +46,36 @@ func newTradeoffsCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command 
 			if err != nil {
 				return err
 			}
-			return runTradeoffs(cmd.Context(), cfg, o, args, stdout)
+			return runTradeoffs(cmd.Context(), cfg, o, args, stdout, stderr)
 		},
 	}
 	f := c.Flags()
-	f.StringVar(&o.demo, "demo", "", "analyse an embedded demo scenario by name")
-	f.String("rate-book", "", "price with this rate book (demo name or file) instead of the scenario's")
-	f.StringVar(&o.rateBooks, "compare-rate-books", "", "comma-separated further rate books (demo names or files) to price the cheapest plan under")
-	f.Float64Var(&o.budget, "budget", 0, "budget for the most-coverage alternative (default: 75% of the cheapest plan)")
-	f.Float64Var(&o.featureFt, "feature-diameter", 0, "plan diameter in ft of the buried feature whose chance of a miss is shown (default 20)")
-	f.IntVar(&o.frontierN, "frontier-points", 0, "most points on the cost–days frontier")
-	f.IntVar(&o.budgetN, "budget-points", 0, "budgets on the budget–coverage curve")
-	f.Float64("gap", 0, "relative gap every solve stops at (default 0.005)")
-	f.StringVar(&o.jsonOut, "json", "", "write the whole analysis as JSON to this file")
-	f.StringVar(&o.altCSV, "alternatives-csv", "", "write the alternatives table as CSV")
-	f.StringVar(&o.frontCSV, "frontier-csv", "", "write the cost–days frontier as CSV")
-	f.StringVar(&o.frontSVG, "frontier-svg", "", "write the cost–days frontier chart as SVG")
-	f.StringVar(&o.budgetCSV, "budget-csv", "", "write the budget–coverage curve as CSV")
-	f.StringVar(&o.budgetSVG, "budget-svg", "", "write the budget–coverage chart as SVG")
-	f.StringVar(&o.ruleCSV, "rule-costs-csv", "", "write what each rule costs as CSV")
+	f.StringVar(&o.demo, "demo", "", "analyse the embedded demo scenario `NAME`")
+	f.String("rate-book", "", "price with this rate `BOOK` (demo name or file) instead of the scenario's")
+	f.StringVar(&o.rateBooks, "compare-rate-books", "", "comma-separated further rate `BOOKS` (demo names or files) to price the cheapest plan under")
+	f.Float64Var(&o.budget, "budget", 0, "`AMOUNT` for the most-coverage alternative (default: 75% of the cheapest plan)")
+	f.Float64Var(&o.featureFt, "feature-diameter", 0, "plan diameter in `FT` of the buried feature whose chance of a miss is shown (default 20)")
+	f.IntVar(&o.frontierN, "frontier-points", 0, "most points on the cost–days frontier, `N` (at most 100; default 12)")
+	f.IntVar(&o.budgetN, "budget-points", 0, "budgets on the budget–coverage curve, `N` (at most 100; default 8)")
+	f.Float64("gap", 0, "relative `GAP` every solve stops at (default 0.005)")
+	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
+	f.StringVar(&o.jsonOut, "json", "", "write the whole analysis as JSON to `FILE` (- for standard output)")
+	f.StringVar(&o.altCSV, "alternatives-csv", "", "write the alternatives table as CSV to `FILE`")
+	f.StringVar(&o.frontCSV, "frontier-csv", "", "write the cost–days frontier as CSV to `FILE`")
+	f.StringVar(&o.frontSVG, "frontier-svg", "", "write the cost–days frontier chart as SVG to `FILE`")
+	f.StringVar(&o.budgetCSV, "budget-csv", "", "write the budget–coverage curve as CSV to `FILE`")
+	f.StringVar(&o.budgetSVG, "budget-svg", "", "write the budget–coverage chart as SVG to `FILE`")
+	f.StringVar(&o.ruleCSV, "rule-costs-csv", "", "write what each rule costs as CSV to `FILE`")
 	return c
 }
 
-func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []string, stdout io.Writer) error {
+func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []string, stdout, stderr io.Writer) error {
 	if err := o.validate(); err != nil {
 		return err
 	}
+	prog := startProgress(stderr, "tradeoffs", !o.quiet && isTerminal(stderr), time.Second)
+	defer prog.end()
+	prog.set("loading")
 	sc, rb, inputs, err := loadInputs(cfg, o.demo, args)
 	if err != nil {
 		return err
@@ -116,11 +122,13 @@ func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []st
 	if err := outs.check(inputs); err != nil {
 		return err
 	}
+	prog.set("starting the rigs")
 	fleet, rigs, err := startRigs(ctx, cfg, sc)
 	if err != nil {
 		return err
 	}
 	defer fleet.Close()
+	prog.set("planning the alternatives, the frontier, the budget curve and the rule costs")
 	an, err = tradeoff.Analyze(ctx, tradeoff.Config{
 		Input:       plan.Input{Scenario: sc, RateBook: rb, Rigs: rigs},
 		PlanOptions: plan.Options{Threads: cfg.Threads},
@@ -146,7 +154,8 @@ func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []st
 		}
 		f.out.setData(b.Bytes())
 	}
-	if !outs.toStdout() {
+	prog.end()
+	if !o.quiet && !outs.toStdout() {
 		var b bytes.Buffer
 		fmt.Fprintf(&b, "rigmix tradeoffs — %s (%s)%s\n\n", sc.Title, sc.Source, map[bool]string{true: " — invented demo data", false: ""}[sc.Demo])
 		if err := an.WriteText(&b); err != nil {
