@@ -8,7 +8,8 @@ var examples = map[string]string{
   rigmix plan --demo hillside
   rigmix plan site.yaml --json plan.json --points-csv points.csv
   rigmix plan site.yaml --gap 0.01 --time-limit 60 --quiet --json -   # the plan as JSON on stdout
-  rigmix demos midrise > site.yaml              # a scenario to start your own from`,
+  rigmix demos midrise > site.yaml              # a scenario to start your own from
+  rigmix plan - < site.yaml                     # the scenario from standard input`,
 	"schedule": `  rigmix schedule --start 2027-03-01 --wet-prob 0.2
   rigmix schedule site.yaml --plan plan.json --gantt-svg gantt.svg --stakeout-csv stakes.csv
   rigmix schedule site.yaml --work-days mon-sat --wet-dates 2027-03-02,2027-03-09 --csv days.csv`,

@@ -67,6 +67,13 @@ func newPlanCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	return c
 }
 
+// stdinPath names standard input as the scenario.
+const stdinPath = "-"
+
+// maxStdinBytes bounds a scenario read from standard input, as the loader
+// bounds a scenario file.
+const maxStdinBytes = 8 << 20
+
 // loadInputs reads the scenario and its rate book, and lists every file
 // read (the configuration file too), so that no output replaces one.
 func loadInputs(cfg Config, demo string, args []string) (*scenarios.Scenario, *ratebooks.RateBook, []string, error) {
@@ -76,6 +83,17 @@ func loadInputs(cfg Config, demo string, args []string) (*scenarios.Scenario, *r
 	switch {
 	case len(args) == 1 && demo != "":
 		return nil, nil, nil, usageError{fmt.Errorf("give either a scenario file or --demo, not both")}
+	case len(args) == 1 && args[0] == stdinPath:
+		// "-": the scenario from standard input; its relative paths
+		// (GeoJSON, a rate-book file) resolve against the working folder.
+		data, rerr := io.ReadAll(io.LimitReader(os.Stdin, maxStdinBytes+1))
+		switch {
+		case rerr != nil:
+			return nil, nil, nil, usageError{fmt.Errorf("standard input: cannot read: %v", rerr)}
+		case len(data) > maxStdinBytes:
+			return nil, nil, nil, usageError{fmt.Errorf("standard input: larger than %d MB; a scenario is at most that", maxStdinBytes>>20)}
+		}
+		sc, err = scenarios.Parse(data, "stdin", nil)
 	case len(args) == 1:
 		sc, err = scenarios.Load(args[0], nil)
 		inputs = append(inputs, args[0])
