@@ -93,6 +93,7 @@ func TestInterruptEveryCommand(t *testing.T) {
 		sig     syscall.Signal
 		loading bool          // signal while loading (no rig started yet)
 		after   time.Duration // wait after the rigs started (default 1.5 s)
+		twice   bool          // a second signal right after the first ends the run at once
 		stdout  string
 	}
 	cases := []tc{
@@ -105,6 +106,7 @@ func TestInterruptEveryCommand(t *testing.T) {
 		{name: "tradeoffs TERM", args: []string{"tradeoffs", site}, outs: []string{"--json", "--frontier-svg"}, sig: syscall.SIGTERM},
 		{name: "tradeoffs INT mid-analysis", args: []string{"tradeoffs", small}, outs: []string{"--json", "--budget-csv"}, sig: syscall.SIGINT, after: 5 * time.Second},
 		{name: "report TERM mid-analysis", args: []string{"report", small, "--start", "2027-03-01"}, outs: []string{"--out"}, sig: syscall.SIGTERM, after: 5 * time.Second},
+		{name: "plan INT twice while loading", args: []string{"plan", slow}, outs: []string{"--json"}, sig: syscall.SIGINT, loading: true, twice: true},
 		{name: "tradeoffs INT while loading", args: []string{"tradeoffs", slow}, outs: []string{"--json"}, sig: syscall.SIGINT, loading: true},
 		{name: "report INT", args: []string{"report", site, "--start", "2027-03-01"}, outs: []string{"--out"}, sig: syscall.SIGINT},
 		{name: "report TERM", args: []string{"report", site, "--start", "2027-03-01"}, outs: []string{"--out"}, sig: syscall.SIGTERM},
@@ -173,10 +175,20 @@ func TestInterruptEveryCommand(t *testing.T) {
 			if err := syscall.Kill(target, c.sig); err != nil {
 				t.Fatal(err)
 			}
+			if c.twice {
+				time.Sleep(100 * time.Millisecond)
+				if err := syscall.Kill(target, c.sig); err != nil {
+					t.Fatal(err)
+				}
+			}
 			select {
 			case <-done:
 			case <-time.After(20 * time.Second):
 				t.Fatalf("still running 20 s after %v\n%s", c.sig, stderr.String())
+			}
+			took := time.Since(sent)
+			if c.twice && took > 2*time.Second {
+				t.Errorf("took %s after a second signal; want at once", took)
 			}
 			code := cmd.ProcessState.ExitCode()
 			msg := stderr.String()

@@ -57,6 +57,11 @@ const interruptGrace = 3 * time.Second
 // stop the run: it exits 1 with "interrupted" on stderr, writes no output
 // file and leaves no rig process behind; a second signal stops it at once.
 func Main(args []string, stdout, stderr io.Writer) int {
+	if len(args) > 0 && args[0] == "rig-serve" {
+		// A built-in rig serving its host: go-plugin's server handles
+		// signals itself, and the host ends it.
+		return run(context.Background(), args, stdout, stderr)
+	}
 	sigs := make(chan os.Signal, 2)
 	signal.Notify(sigs, os.Interrupt, syscall.SIGTERM)
 	defer signal.Stop(sigs)
