@@ -148,6 +148,22 @@ func (f *output) resolve() error {
 	if f.path == stdoutPath {
 		return nil
 	}
+	if st, err := os.Stat(f.path); err == nil && !st.Mode().IsRegular() && !st.IsDir() {
+		// A device or a pipe (also through a link such as /dev/stdout,
+		// whose target may be no path at all, "pipe:[1234]") is written
+		// in place through the path given.
+		f.st, f.target = st, f.path
+		if st.Mode()&fs.ModeNamedPipe != 0 {
+			// Opening a pipe now would wait for a reader.
+			return nil
+		}
+		w, err := os.OpenFile(f.path, os.O_WRONLY, 0)
+		if err != nil {
+			return usageError{fmt.Errorf("%s %s: cannot write: %v", f.flag, f.path, unwrapPathErr(err))}
+		}
+		w.Close()
+		return nil
+	}
 	p := f.path
 	for n := 0; ; n++ {
 		if n > maxLinks {
@@ -185,18 +201,9 @@ func (f *output) resolve() error {
 	case f.st == nil:
 	case f.st.IsDir():
 		return usageError{fmt.Errorf("%s %s: is a folder; give a file name", f.flag, f.path)}
-	case f.st.Mode()&fs.ModeNamedPipe != 0:
-		// A pipe is written in place; opening it now would wait for a
-		// reader.
-		return nil
 	case !f.st.Mode().IsRegular():
-		// A device is written in place; check it opens.
-		w, err := os.OpenFile(f.target, os.O_WRONLY, 0)
-		if err != nil {
-			return usageError{fmt.Errorf("%s %s: cannot write: %v", f.flag, f.path, unwrapPathErr(err))}
-		}
-		w.Close()
-		return nil
+		// Not a folder, not a regular file, yet os.Stat did not say so.
+		return usageError{fmt.Errorf("%s %s: not a file that can be written", f.flag, f.path)}
 	}
 	// The temporary file is made beside the target: check that works now,
 	// before the run, rather than after it.

@@ -4,6 +4,8 @@ import (
 	"bytes"
 	"context"
 	"errors"
+	"fmt"
+	"io"
 	"os"
 	"path/filepath"
 	"strings"
@@ -133,6 +135,35 @@ func TestOutputsCommit(t *testing.T) {
 			commitOne(t, "plan.json", "new\n")
 			assertFile(t, "plan.json", "new\n", mode)
 		}
+	})
+	t.Run("a link to a pipe with no path, as /dev/stdout is", func(t *testing.T) {
+		if _, err := os.Stat("/proc/self/fd"); err != nil {
+			t.Skip("no /proc/self/fd")
+		}
+		t.Chdir(t.TempDir())
+		r, w, err := os.Pipe()
+		if err != nil {
+			t.Fatal(err)
+		}
+		defer r.Close()
+		defer w.Close()
+		// /proc/self/fd/N of a pipe links to "pipe:[inode]", no path.
+		link(t, fmt.Sprintf("/proc/self/fd/%d", w.Fd()), "stdout-link")
+		got := make(chan string, 1)
+		go func() {
+			b, _ := io.ReadAll(r)
+			got <- string(b)
+		}()
+		commitOne(t, "stdout-link", "through the pipe\n")
+		w.Close()
+		if s := <-got; s != "through the pipe\n" {
+			t.Errorf("the pipe read %q", s)
+		}
+		st, err := os.Lstat("stdout-link")
+		if err != nil || st.Mode()&os.ModeSymlink == 0 {
+			t.Errorf("the link was replaced: %v %v", st.Mode(), err)
+		}
+		assertNoTemps(t, ".")
 	})
 	t.Run("standard output, then the summary", func(t *testing.T) {
 		t.Chdir(t.TempDir())
