@@ -33,6 +33,9 @@ type Config struct {
 	PluginPins map[string]string `mapstructure:"plugin_pins"`
 	// File is the configuration file read ("" for none).
 	File string `mapstructure:"-"`
+	// RateBookFrom names where RateBook was set: the flag, the variable
+	// or the file and key.
+	RateBookFrom string `mapstructure:"-"`
 }
 
 // defaults is the bottom layer.
@@ -145,6 +148,9 @@ func (g *globalOptions) load(fs *pflag.FlagSet) (Config, error) {
 	}
 	c.PluginDir = v.GetString("plugin_dir")
 	c.RateBook = v.GetString("rate_book")
+	if c.RateBook != "" {
+		c.RateBookFrom = where("rate_book")
+	}
 	if v.IsSet("plugin_pins") {
 		pins := v.GetStringMapString("plugin_pins")
 		c.PluginPins = pins

@@ -161,6 +161,8 @@ func TestSettingsNameTheirSource(t *testing.T) {
 		{name: "RIGMIX_THREADS=many", args: []string{"plan"}, env: map[string]string{"RIGMIX_THREADS": "many"}, want: []string{"environment variable RIGMIX_THREADS", `"many"`}},
 		{name: "RIGMIX_CALL_TIMEOUT=0", args: []string{"rigs"}, env: map[string]string{"RIGMIX_CALL_TIMEOUT": "0"}, want: []string{"environment variable RIGMIX_CALL_TIMEOUT", "> 0"}},
 		{name: "RIGMIX_PLUGIN_DIR missing", args: []string{"rigs"}, env: map[string]string{"RIGMIX_PLUGIN_DIR": "no-such-dir"}, want: []string{"environment variable RIGMIX_PLUGIN_DIR", "no-such-dir", "no such folder"}},
+		{name: "RIGMIX_RATE_BOOK missing", args: []string{"plan"}, env: map[string]string{"RIGMIX_RATE_BOOK": "no-such-rates.yaml"}, want: []string{"environment variable RIGMIX_RATE_BOOK: no-such-rates.yaml: no such file"}},
+		{name: "--rate-book missing", args: []string{"plan", "--rate-book", "no-such-rates.yaml"}, want: []string{"--rate-book: no-such-rates.yaml: no such file"}},
 		{name: "flag over a good variable", args: []string{"plan", "--gap", "2"}, env: map[string]string{"RIGMIX_GAP": "0.1"}, want: []string{"--gap: must be in [0, 1), got 2"}, notWant: []string{"RIGMIX_GAP"}},
 		{name: "variable over a good file", args: []string{"plan", "--config", "ok.yaml"}, env: map[string]string{"RIGMIX_GAP": "1.5"}, want: []string{"environment variable RIGMIX_GAP"}, notWant: []string{"ok.yaml"}},
 		{name: "file", args: []string{"plan", "--config", "nan.yaml"}, want: []string{"nan.yaml: gap: must be a finite number"}},

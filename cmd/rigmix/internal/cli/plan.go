@@ -118,6 +118,10 @@ func loadInputs(cfg Config, demo string, args []string) (*scenarios.Scenario, *r
 	}
 	rb, err := loadRateBook(name, "")
 	if err != nil {
+		if own != nil {
+			// Name the flag, variable or file that gave the rate book.
+			return nil, nil, nil, usageError{fmt.Errorf("%s: %w", cfg.RateBookFrom, err)}
+		}
 		return nil, nil, nil, err
 	}
 	if !isDemoRateBook(name) {
