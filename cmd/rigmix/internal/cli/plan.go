@@ -234,6 +234,10 @@ func checkRigsOffered(sc *scenarios.Scenario, fleet *host.Fleet, cfg Config) err
 
 func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, stdout, stderr io.Writer) error {
 	t0 := time.Now()
+	// Stages before the solve; the solve shows its own progress line.
+	prog := startProgress(stderr, "plan", !o.quiet && isTerminal(stderr), time.Second)
+	defer prog.end()
+	prog.set("loading")
 	sc, rb, inputs, err := loadInputs(cfg, o.demo, args)
 	if err != nil {
 		return err
@@ -248,6 +252,7 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 	}
 	tLoad := time.Since(t0)
 	t0 = time.Now()
+	prog.set("starting the rigs")
 	fleet, rigs, err := startRigs(ctx, cfg, sc)
 	if err != nil {
 		return err
@@ -259,7 +264,9 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 	if !o.quiet && isTerminal(stderr) {
 		popt.Progress = progressPrinter(stderr)
 	}
+	prog.set("candidates, rig calls and the model")
 	pr, err := plan.Prepare(ctx, in, popt)
+	prog.end()
 	if err != nil {
 		return err
 	}
