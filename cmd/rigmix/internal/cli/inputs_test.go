@@ -139,6 +139,11 @@ func TestInputsRefused(t *testing.T) {
 		{name: "solve --gap -Inf", args: []string{"solve", "x.mps", "--gap", "-Inf"}, want: []string{"--gap", "finite"}},
 		{name: "--budget -5", args: []string{"tradeoffs", "--budget", "-5"}, want: []string{"--budget", "≥ 0", "got -5"}},
 		{name: "--budget NaN", args: []string{"tradeoffs", "--budget", "NaN"}, want: []string{"--budget", "finite"}},
+		{name: "schedule --runs 1e8", args: []string{"schedule", "--runs", "100000000"}, want: []string{"--runs", "1 to 1000000", "got 100000000"}},
+		{name: "report --runs -5", args: []string{"report", "--out", "r.html", "--runs", "-5"}, want: []string{"--runs", "got -5"}},
+		{name: "--production-cv NaN", args: []string{"schedule", "--production-cv", "NaN"}, want: []string{"--production-cv", "got NaN"}},
+		{name: "--production-cv -1", args: []string{"schedule", "--production-cv", "-1"}, want: []string{"--production-cv", "got -1"}},
+		{name: "--wet-prob NaN", args: []string{"schedule", "--wet-prob", "NaN"}, want: []string{"--wet-prob", `"NaN"`, "between 0 and 1"}},
 		{name: "--feature-diameter Inf", args: []string{"tradeoffs", "--feature-diameter", "Inf"}, want: []string{"--feature-diameter", "finite"}},
 	})
 }

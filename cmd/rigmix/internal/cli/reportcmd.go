@@ -54,6 +54,9 @@ func newReportCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 }
 
 func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string, stdout, stderr io.Writer) error {
+	if err := o.sched.validate(); err != nil {
+		return err
+	}
 	prog := startProgress(stderr, "report", !o.quiet && isTerminal(stderr), time.Second)
 	defer prog.end()
 	prog.set("loading")

@@ -6,6 +6,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"math"
 	"strconv"
 	"strings"
 	"time"
@@ -121,7 +122,7 @@ func (o *scheduleOptions) calendar(hoursPerDay float64, today time.Time) (schedu
 				s = parts[m]
 			}
 			v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
-			if err != nil || v < 0 || v > 1 {
+			if err != nil || math.IsNaN(v) || v < 0 || v > 1 {
 				return cal, usageError{fmt.Errorf("--wet-prob: %q is not a probability between 0 and 1", s)}
 			}
 			cal.WetProbByMonth[m] = v
@@ -130,11 +131,30 @@ func (o *scheduleOptions) calendar(hoursPerDay float64, today time.Time) (schedu
 	return cal, nil
 }
 
+// validate refuses the risk flags out of range before any work, naming
+// the flag (the schedule would refuse them too, but only after planning).
+func (o *scheduleOptions) validate() error {
+	switch {
+	case o.runs < 0 || o.runs > schedule.MaxRuns:
+		return usageError{fmt.Errorf("--runs: give 1 to %d runs (0: %d), got %d", schedule.MaxRuns, schedule.DefaultRuns, o.runs)}
+	case math.IsNaN(o.cv) || o.cv < 0 || o.cv > maxProductionCV:
+		return usageError{fmt.Errorf("--production-cv: give a coefficient of variation from 0 to %g, e.g. 0.2, got %g", float64(maxProductionCV), o.cv)}
+	}
+	return nil
+}
+
+// maxProductionCV is the largest --production-cv the schedule's Monte
+// Carlo accepts.
+const maxProductionCV = 2
+
 // maxPlanBytes bounds a plan file read by --plan; the plan of a
 // 1,000-acre site is a few megabytes.
 const maxPlanBytes = 256 << 20
 
 func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []string, stdout, stderr io.Writer) error {
+	if err := o.validate(); err != nil {
+		return err
+	}
 	prog := startProgress(stderr, "schedule", !o.quiet && isTerminal(stderr), time.Second)
 	defer prog.end()
 	prog.set("loading")
