@@ -10,6 +10,7 @@ import (
 	"io"
 	"os"
 	"os/signal"
+	"runtime/debug"
 	"strconv"
 	"strings"
 	"sync"
@@ -43,6 +44,33 @@ func (usageError) BadInput() bool { return true }
 
 // Version is the rigmix version printed in reports.
 var Version = "0.1.0-dev"
+
+// versionLine is Version with the commit the binary was built from, when
+// the build recorded it (go build in a git checkout, without
+// -buildvcs=false).
+func versionLine() string {
+	rev, modified := "", false
+	if bi, ok := debug.ReadBuildInfo(); ok {
+		for _, s := range bi.Settings {
+			switch s.Key {
+			case "vcs.revision":
+				rev = s.Value
+			case "vcs.modified":
+				modified = s.Value == "true"
+			}
+		}
+	}
+	if rev == "" {
+		return Version + " (commit unknown: built without version-control information)"
+	}
+	if len(rev) > 12 {
+		rev = rev[:12]
+	}
+	if modified {
+		rev += ", with uncommitted changes"
+	}
+	return Version + " (commit " + rev + ")"
+}
 
 // errInterrupted is the error of a run stopped by a signal before its
 // outputs were put in place.
@@ -201,7 +229,7 @@ func newRoot(stdout, stderr io.Writer) *cobra.Command {
 		Short:         "Plan geotechnical exploration programs: where to explore, with which rig, at what cost and in how many field days",
 		SilenceErrors: true,
 		SilenceUsage:  true,
-		Version:       Version,
+		Version:       versionLine(),
 	}
 	root.SetOut(stdout)
 	root.SetErr(stderr)
