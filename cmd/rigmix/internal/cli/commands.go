@@ -50,8 +50,26 @@ func newRigServeCmd() *cobra.Command {
 	}
 }
 
+// rigJSON is one rig in rigs --json.
+type rigJSON struct {
+	Name          string          `json:"name"`
+	Title         string          `json:"title"`
+	Methods       []rigMethodJSON `json:"methods"`
+	Surfaces      []string        `json:"surfaces"`
+	MaxSlopePct   float64         `json:"max_slope_pct"`
+	MinOverheadFt float64         `json:"min_overhead_ft"`
+	Basis         string          `json:"basis"`
+	PluginFile    string          `json:"plugin_file,omitempty"` // "" for a built-in rig
+}
+
+type rigMethodJSON struct {
+	Method     string  `json:"method"`
+	MaxDepthFt float64 `json:"max_depth_ft"`
+}
+
 func newRigsCmd(g *globalOptions, stdout io.Writer) *cobra.Command {
-	return &cobra.Command{
+	var asJSON bool
+	c := &cobra.Command{
 		Use:   "rigs",
 		Short: "List every rig that can be offered: built-in ones and plugins in the plugin folder",
 		Args:  cobra.NoArgs,
@@ -66,6 +84,27 @@ func newRigsCmd(g *globalOptions, stdout io.Writer) *cobra.Command {
 			}
 			defer fleet.Close()
 			var b bytes.Buffer
+			if asJSON {
+				list := []rigJSON{}
+				for _, r := range fleet.Rigs() {
+					in := r.Info
+					j := rigJSON{Name: in.Name, Title: in.Title, Methods: []rigMethodJSON{}, Surfaces: []string{},
+						MaxSlopePct: in.Access.MaxSlopePct, MinOverheadFt: in.Access.MinOverheadFt, Basis: in.Basis, PluginFile: r.Path}
+					for _, m := range in.Methods {
+						j.Methods = append(j.Methods, rigMethodJSON{string(m.Method), m.MaxDepthFt})
+					}
+					for _, s := range in.Access.Surfaces {
+						j.Surfaces = append(j.Surfaces, string(s))
+					}
+					list = append(list, j)
+				}
+				out, err := json.MarshalIndent(list, "", "  ")
+				if err != nil {
+					return err
+				}
+				_, err = stdout.Write(append(out, '\n'))
+				return err
+			}
 			tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
 			fmt.Fprintln(tw, "rig\tdescription\tmethods (deepest)\tground\tmax slope\tneeds overhead")
 			for _, r := range fleet.Rigs() {
@@ -89,15 +128,31 @@ func newRigsCmd(g *globalOptions, stdout io.Writer) *cobra.Command {
 			return err
 		},
 	}
+	c.Flags().BoolVar(&asJSON, "json", false, "print the rigs as JSON")
+	return c
+}
+
+// demoJSON is one demo scenario in demos --json.
+type demoJSON struct {
+	Name  string   `json:"name"`
+	Title string   `json:"title"`
+	Zones int      `json:"zones"`
+	Rigs  []string `json:"rigs"`
+	// Invented says the demo's site and numbers are invented data.
+	Invented bool `json:"invented"`
 }
 
 func newDemosCmd(stdout io.Writer) *cobra.Command {
-	return &cobra.Command{
+	var asJSON bool
+	c := &cobra.Command{
 		Use:   "demos [NAME]",
 		Short: "List the embedded demo scenarios, or print one as YAML to start your own from",
 		Args:  cobra.MaximumNArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			if len(args) == 1 {
+				if asJSON {
+					return usageError{fmt.Errorf("--json lists the demos; a demo itself prints as YAML (rigmix demos %s)", args[0])}
+				}
 				b, err := scenarios.DemoFile(args[0])
 				if err != nil {
 					return usageError{err}
@@ -106,6 +161,7 @@ func newDemosCmd(stdout io.Writer) *cobra.Command {
 				return err
 			}
 			var b bytes.Buffer
+			list := []demoJSON{}
 			tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
 			fmt.Fprintln(tw, "demo\ttitle\tzones\trigs offered")
 			for _, n := range scenarios.Demos() {
@@ -113,7 +169,16 @@ func newDemosCmd(stdout io.Writer) *cobra.Command {
 				if err != nil {
 					return err
 				}
+				list = append(list, demoJSON{n, sc.Title, len(sc.Zones), sc.Rigs, sc.Demo})
 				fmt.Fprintf(tw, "%s\t%s\t%d\t%s\n", n, sc.Title, len(sc.Zones), strings.Join(sc.Rigs, ", "))
+			}
+			if asJSON {
+				out, err := json.MarshalIndent(list, "", "  ")
+				if err != nil {
+					return err
+				}
+				_, err = stdout.Write(append(out, '\n'))
+				return err
 			}
 			tw.Flush()
 			b.WriteString("\nAll demo scenarios and rate books are invented data.\n")
@@ -121,6 +186,8 @@ func newDemosCmd(stdout io.Writer) *cobra.Command {
 			return err
 		},
 	}
+	c.Flags().BoolVar(&asJSON, "json", false, "list the demos as JSON (all are invented data)")
+	return c
 }
 
 type solveOptions struct {
