@@ -190,8 +190,11 @@ func (f *output) resolve() error {
 		p = to
 	}
 	dir, err := filepath.EvalSymlinks(filepath.Dir(p))
-	if err != nil {
+	switch {
+	case errors.Is(err, fs.ErrNotExist):
 		return usageError{fmt.Errorf("%s %s: the folder %s is not there; create it first or give another path", f.flag, f.path, filepath.Dir(p))}
+	case err != nil:
+		return usageError{fmt.Errorf("%s %s: the folder %s: %v", f.flag, f.path, filepath.Dir(p), unwrapPathErr(err))}
 	}
 	if abs, err := filepath.Abs(dir); err == nil {
 		dir = abs
