@@ -21,6 +21,7 @@ type reportOptions struct {
 	tradeoffs bool
 	runDate   string
 	quiet     bool
+	jsonOut   string
 }
 
 func newReportCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -42,6 +43,7 @@ func newReportCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	}
 	f := c.Flags()
 	f.StringVar(&o.demo, "demo", "", "report on the embedded demo scenario `NAME`")
+	f.StringVar(&o.jsonOut, "json", "", "also write the summary line (points, total, days, dates) as JSON to `FILE` (- for standard output)")
 	f.StringVar(&o.out, "out", "", "the HTML `FILE` to write (- for standard output)")
 	f.String("rate-book", "", "price with this rate `BOOK` (demo name or file)")
 	f.Float64("gap", 0, "optimality `GAP` of the plan")
@@ -66,6 +68,7 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 	}
 	outs := &outputs{stdout: stdout}
 	out := outs.add("--out", o.out)
+	jsonF := outs.add("--json", o.jsonOut)
 	if err := outs.check(inputs); err != nil {
 		return err
 	}
@@ -132,6 +135,13 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 		return err
 	}
 	out.setData(b.Bytes())
+	if jsonF != nil {
+		j, err := reportSummary(o.out, p, sc, s)
+		if err != nil {
+			return err
+		}
+		jsonF.setData(j)
+	}
 	prog.end()
 	status := fmt.Sprintf("wrote %s: %d points, %s %.2f, %d field days in the plan; schedule %s to %s\n",
 		o.out, len(p.Points), p.RateBook.Currency, p.Total, p.Finish, s.Start.Format("2006-01-02"), s.Finish.Format("2006-01-02"))

@@ -38,6 +38,7 @@ type scheduleOptions struct {
 	stakeCSV     string
 	stakeGeoJSON string
 	quiet        bool
+	jsonOut      string
 }
 
 func newScheduleCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -64,6 +65,7 @@ func newScheduleCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	f.Float64("gap", 0, "optimality `GAP` for planning on the fly")
 	f.Float64("time-limit", 0, "`SECONDS` for planning on the fly")
 	o.addCalendarFlags(f)
+	f.StringVar(&o.jsonOut, "json", "", "write a summary (dates, days, standby, each rig, risk) as JSON to `FILE` (- for standard output)")
 	f.StringVar(&o.csvOut, "csv", "", "write the day-by-day table as CSV to `FILE` (- for standard output)")
 	f.StringVar(&o.ganttOut, "gantt-svg", "", "write a Gantt chart as SVG to `FILE` (- for standard output)")
 	f.StringVar(&o.stakeCSV, "stakeout-csv", "", "write the stakeout list as CSV to `FILE` (- for standard output)")
@@ -167,6 +169,7 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 		outs.add("--csv", o.csvOut), outs.add("--gantt-svg", o.ganttOut),
 		outs.add("--stakeout-csv", o.stakeCSV), outs.add("--stakeout-geojson", o.stakeGeoJSON),
 	}
+	jsonF := outs.add("--json", o.jsonOut)
 	if err := outs.check(append(inputs, o.planFile)); err != nil {
 		return err
 	}
@@ -217,6 +220,13 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 			return err
 		}
 		files[i].setData(b.Bytes())
+	}
+	if jsonF != nil {
+		b, err := scheduleSummaryJSON(p, sc, s, risk)
+		if err != nil {
+			return err
+		}
+		jsonF.setData(b)
 	}
 	prog.end()
 	if !o.quiet && !outs.toStdout() {
