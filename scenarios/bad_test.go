@@ -66,7 +66,7 @@ func TestBadInput(t *testing.T) {
 		{"fractional_stories", "zones[0].structure.stories", "must be a whole number, got 2.5", ""},
 		{"demo_without_note", "note", "missing (demo: true)", "invented"},
 		{"geojson_no_origin", "zones[1].geojson", "GeoJSON needs the scenario's origin", "origin:"},
-		{"geojson_no_feature", "zones[1].geojson", `no feature with id = "Q9"`, "B, far, holed"},
+		{"geojson_no_feature", "zones[1].geojson", `no feature with id = "Q9"`, `"B", "far", "holed"`},
 		{"geojson_missing_file", "zones[1].geojson.file", "cannot read", ""},
 		{"geojson_and_polygon", "zones[1].geojson", "either polygon or geojson", ""},
 		{"geojson_holed", "zones[1].geojson", `feature "holed" has a hole`, "no-go area"},

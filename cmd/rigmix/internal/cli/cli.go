@@ -192,14 +192,33 @@ func closeFleets() {
 	}
 }
 
+// maxLineRunes bounds each line of a message: the loaders quote short
+// excerpts, and this is the last guard against a message that carries a
+// file's contents (an unusual token of a file that is not what it should
+// be).
+const maxLineRunes = 500
+
 // printable escapes control characters (but line breaks and tabs) in a
 // message, so that nothing quoted from a file or a plugin can drive the
-// terminal.
+// terminal, and cuts a line past maxLineRunes.
 func printable(msg string) string {
 	var b strings.Builder
+	n := 0
 	for _, r := range msg {
+		if r == '\n' {
+			b.WriteRune(r)
+			n = 0
+			continue
+		}
+		if n == maxLineRunes {
+			b.WriteString("… (cut)")
+		}
+		n++
+		if n > maxLineRunes {
+			continue
+		}
 		switch {
-		case r == '\n' || r == '\t':
+		case r == '\t':
 			b.WriteRune(r)
 		case unicode.IsControl(r):
 			q := strconv.QuoteRune(r)

@@ -184,6 +184,9 @@ func TestMessagesQuoteLittle(t *testing.T) {
 	if err := os.WriteFile("passwd", []byte(pw), 0o644); err != nil {
 		t.Fatal(err)
 	}
+	if err := os.WriteFile("long.mps", []byte(strings.Repeat("x", 10000)+"\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
 	if err := os.WriteFile("esc.yaml", []byte(`units: "\e[2J\e[31mft"`+"\n"), 0o644); err != nil {
 		t.Fatal(err)
 	}
@@ -195,6 +198,10 @@ func TestMessagesQuoteLittle(t *testing.T) {
 			want: []string{"passwd", `"root:x:0:0:root:/root:/bin/bash daemon:x"…`}, notWant: []string{"nologin", "secret-second-line"}},
 		{name: "a system file as the configuration", args: []string{"plan", "--config", "passwd"},
 			want: []string{"passwd", "not a YAML configuration file"}, notWant: []string{"nologin", "secret-second-line"}},
+		{name: "a system file as the scenario", args: []string{"plan", "passwd"},
+			want: []string{"passwd", `"root:x:0:0:root:/root:/bin/bash daemon:x"…`}, notWant: []string{"nologin", "secret-second-line"}},
+		{name: "a one-line file of 10,000 characters as the model", args: []string{"solve", "long.mps"},
+			want: []string{"long.mps", "… (cut)"}},
 		{name: "escape sequences in a scenario value", args: []string{"plan", "esc.yaml"},
 			want: []string{"esc.yaml", "units"}, notWant: []string{"\x1b"}},
 		{name: "escape sequences in a configuration value", args: []string{"plan", "--config", "esc-config.yaml"},
@@ -219,6 +226,8 @@ func TestPrintable(t *testing.T) {
 		{"two\nlines\tand a tab", "two\nlines\tand a tab"},
 		{"bad utf-8 \xff here", "bad utf-8 \ufffd here"},
 		{"unicode ≥ ± µ stays", "unicode ≥ ± µ stays"},
+		{strings.Repeat("a", 600) + "\nshort", strings.Repeat("a", 500) + "… (cut)\nshort"},
+		{strings.Repeat("µ", 500), strings.Repeat("µ", 500)},
 	} {
 		if got := printable(c.in); got != c.want {
 			t.Errorf("printable(%q) = %q, want %q", c.in, got, c.want)
