@@ -120,8 +120,13 @@ func mainWith(args []string, stdout, stderr io.Writer, sigs <-chan os.Signal, gr
 	case <-timer.C:
 	}
 	// The run did not wind down in time, or a second signal came: stop
-	// here, but not in the middle of putting outputs in place.
-	for i := 0; !commitMu.TryLock(); i++ {
+	// here, but not in the middle of putting outputs in place. A commit
+	// that starts later finds the run's context ended and writes nothing.
+	for i := 0; ; i++ {
+		if commitMu.TryLock() {
+			commitMu.Unlock()
+			break
+		}
 		if i == 100 { // 1 s: a write to a pipe nobody reads
 			break
 		}
