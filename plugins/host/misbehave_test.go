@@ -509,6 +509,7 @@ func TestPluginChildHoldsStdio(t *testing.T) {
 			opt.Builtins = nil
 			pidFile := filepath.Join(t.TempDir(), "helper.pid")
 			t.Setenv("MISBEHAVE_PID_FILE", pidFile)
+			t.Cleanup(func() { killHelper(pidFile) }) // also when the test fails early
 			before := childPIDs(t)
 			var openErr error
 			took := bounded(t, 20*time.Second, func(ctx context.Context) {
@@ -558,6 +559,7 @@ func TestPluginStartInterrupted(t *testing.T) {
 	opt, _ := misbehaving(t, "child-then-hang", 30*time.Second)
 	pidFile := filepath.Join(t.TempDir(), "helper.pid")
 	t.Setenv("MISBEHAVE_PID_FILE", pidFile)
+	t.Cleanup(func() { killHelper(pidFile) })
 	before := childPIDs(t)
 	ctx, cancel := context.WithCancel(context.Background())
 	time.AfterFunc(time.Second, cancel)
@@ -586,6 +588,18 @@ func TestPluginStartInterrupted(t *testing.T) {
 		time.Sleep(50 * time.Millisecond)
 	}
 	assertNoNewChildren(t, before)
+}
+
+// killHelper kills the helper process recorded in pidFile, if it is still
+// there: a failing test must not leave it running.
+func killHelper(pidFile string) {
+	b, err := os.ReadFile(pidFile)
+	if err != nil {
+		return
+	}
+	if pid, _ := strconv.Atoi(strings.TrimSpace(string(b))); pid > 0 && alive(pid) {
+		_ = syscall.Kill(pid, syscall.SIGKILL)
+	}
 }
 
 func newChildren(t *testing.T, before map[int]bool) []int {
