@@ -169,9 +169,21 @@ func describe(n *yaml.Node) string {
 		if n.Tag == "!!null" {
 			return "nothing"
 		}
-		return strconv.Quote(n.Value)
+		return excerpt(n.Value)
 	}
 	return "something else"
+}
+
+// excerptRunes bounds how much of a file a message quotes.
+const excerptRunes = 40
+
+// excerpt quotes the start of a value, escaped: a message names what it
+// found without echoing a file that is not a rate book.
+func excerpt(s string) string {
+	if r := []rune(s); len(r) > excerptRunes {
+		return strconv.Quote(string(r[:excerptRunes])) + "…"
+	}
+	return strconv.Quote(s)
 }
 
 // fields checks a mapping's keys against the known ones (document order)

@@ -694,7 +694,7 @@ func (d *decoder) decode(m map[string]any) (*Scenario, error) {
 		return nil, err
 	}
 	if !ok {
-		return nil, d.errf("yard_miles", "give the one-way road miles from the rig yard to the site, e.g. yard_miles: 35, or set "+EnvVar("yard_miles"), "missing")
+		return nil, d.errf("yard_miles", "give the one-way road miles from the rig yard to the site, e.g. yard_miles: 35", "missing")
 	}
 	s.YardMiles = yard
 

@@ -123,8 +123,15 @@ func featureRing(data []byte, property, want string, fail func(problem, hint str
 	switch len(match) {
 	case 0:
 		sort.Strings(ids)
-		if len(ids) > 12 {
-			ids = append(ids[:12], "...")
+		more := len(ids) > 12
+		if more {
+			ids = ids[:12]
+		}
+		for i, id := range ids {
+			ids[i] = excerpt(id)
+		}
+		if more {
+			ids = append(ids, "...")
 		}
 		hint := fmt.Sprintf("no feature has property %q", property)
 		if len(ids) > 0 {

@@ -62,8 +62,7 @@ func LoadDemo(name string, overrides map[string]any) (*Scenario, error) {
 }
 
 // Load reads, merges and validates a scenario file. Settings are taken, in
-// rising precedence, from defaults, the file, RIGMIX_* environment
-// variables and overrides (keys such as "solver.gap" or "yard_miles"; see
+// rising precedence, from defaults, the file and overrides (keys such as "solver.gap" or "yard_miles"; see
 // SettingKeys).
 func Load(path string, overrides map[string]any) (*Scenario, error) {
 	data, err := fielderr.ReadRegular(path, maxFileBytes)
@@ -85,6 +84,7 @@ func Load(path string, overrides map[string]any) (*Scenario, error) {
 func Parse(data []byte, source string, overrides map[string]any) (*Scenario, error) {
 	d := &decoder{file: source}
 	demo := strings.HasPrefix(source, "demo:")
+	var files []string
 	d.readFile = func(rel string) ([]byte, string, error) {
 		if demo {
 			p := path.Clean("demos/" + rel)
@@ -99,6 +99,9 @@ func Parse(data []byte, source string, overrides map[string]any) (*Scenario, err
 			p = filepath.Join(filepath.Dir(source), rel)
 		}
 		b, err := fielderr.ReadRegular(p, maxFileBytes)
+		if err == nil {
+			files = append(files, p)
+		}
 		return b, p, err
 	}
 
@@ -122,12 +125,8 @@ func Parse(data []byte, source string, overrides map[string]any) (*Scenario, err
 	if err := v.ReadConfig(bytes.NewReader(data)); err != nil {
 		return nil, &FieldError{File: source, Problem: "is not valid YAML: " + err.Error()}
 	}
-	v.SetEnvPrefix("RIGMIX")
-	v.SetEnvKeyReplacer(strings.NewReplacer(".", "_"))
-	v.AutomaticEnv()
-	for _, k := range settingKeys {
-		_ = v.BindEnv(k) // never fails for a non-empty key
-	}
+	// The environment is never read here: a scenario means what its file
+	// says (and the caller's overrides), whatever the shell holds.
 	okeys := make([]string, 0, len(overrides))
 	for k := range overrides {
 		okeys = append(okeys, k)
@@ -153,6 +152,7 @@ func Parse(data []byte, source string, overrides map[string]any) (*Scenario, err
 		return nil, err
 	}
 	s.Source = source
+	s.Files = files
 	return s, nil
 }
 

@@ -8,8 +8,8 @@
 // The file format is documented key by key in REFERENCE.md beside this
 // file. Keys are checked strictly (a misspelt key is an error naming the
 // nearest known key); settings are merged through viper, in rising
-// precedence: defaults, the file, RIGMIX_* environment variables, and the
-// overrides map the command line passes. Every problem with the input is a
+// precedence: defaults, the file, and the overrides map the command line
+// passes; the environment is never read. Every problem with the input is a
 // *FieldError naming the file, the field path, what is wrong and what
 // would be right.
 package scenarios
@@ -54,6 +54,10 @@ type Scenario struct {
 	// the program of its purposes (lab.ForPurposes(zone.Purposes)). A
 	// file's "lab: none" gives lab.None().
 	Lab *lab.Program
+
+	// Files are the other files read: GeoJSON outlines, a rate-book file
+	// (paths as opened).
+	Files []string `json:"-"`
 }
 
 // LonLat is a WGS 84 position in degrees.

@@ -236,39 +236,36 @@ func TestOverridesAndEnvironment(t *testing.T) {
 		t.Errorf("zone defaults: lattice %q priority %g name %q", s.Zones[0].Rules.Lattice, s.Zones[0].Priority, s.Zones[0].Name)
 	}
 
-	t.Setenv("RIGMIX_YARD_MILES", "12.5")
-	t.Setenv("RIGMIX_SOLVER_GAP", "0.02")
-	t.Setenv("RIGMIX_RIGS", "track-drill,excavator")
-	t.Setenv("RIGMIX_HOURS_PER_DAY", "8")
-	s, err = Load(path, nil)
-	if err != nil {
-		t.Fatal(err)
+	// The environment never changes a scenario: tool settings (gap, time
+	// limit, threads, plugin folder, rate book) come from the environment
+	// through the command line, never through the loader.
+	for _, k := range settingKeys {
+		t.Setenv(EnvVar(k), "12.5")
 	}
-	if s.YardMiles != 12.5 || s.GapRel != 0.02 || s.HoursDay != 8 || !reflect.DeepEqual(s.Rigs, []string{"track-drill", "excavator"}) {
-		t.Errorf("environment: yard %g gap %g hours %g rigs %v", s.YardMiles, s.GapRel, s.HoursDay, s.Rigs)
+	t.Setenv("RIGMIX_RIGS", "track-drill,excavator")
+	t.Setenv("RIGMIX_UNITS", "m")
+	env, err := Load(path, nil)
+	if err != nil {
+		t.Fatalf("a scenario loaded with RIGMIX_* variables set: %v", err)
+	}
+	if !reflect.DeepEqual(env, s) {
+		t.Errorf("RIGMIX_* variables changed the scenario:\nwithout %+v\nwith    %+v", s, env)
 	}
 
 	s, err = Load(path, map[string]any{"yard_miles": 80, "solver.time_limit_s": 5.0, "rate_book": "coastal-2026"})
 	if err != nil {
 		t.Fatal(err)
 	}
-	if s.YardMiles != 80 || s.TimeLimitS != 5 || s.RateBook != "coastal-2026" || s.GapRel != 0.02 {
-		t.Errorf("overrides over environment: yard %g limit %g book %q gap %g", s.YardMiles, s.TimeLimitS, s.RateBook, s.GapRel)
+	if s.YardMiles != 80 || s.TimeLimitS != 5 || s.RateBook != "coastal-2026" || s.GapRel != DefaultGap {
+		t.Errorf("overrides: yard %g limit %g book %q gap %g", s.YardMiles, s.TimeLimitS, s.RateBook, s.GapRel)
 	}
 
-	// A setting missing from the file can come from the environment.
+	// A setting missing from the file is missing, whatever the environment.
 	data := strings.Replace(mustRead(t, path), "yard_miles: 20\n", "", 1)
-	s, err = Parse([]byte(data), "no-yard.yaml", nil)
-	if err != nil || s.YardMiles != 12.5 {
-		t.Errorf("yard_miles from environment alone: %v, %+v", err, s)
-	}
-
-	// Values from the environment are checked like values in the file.
-	t.Setenv("RIGMIX_HOURS_PER_DAY", "lots")
-	_, err = Load(path, nil)
+	_, err = Parse([]byte(data), "no-yard.yaml", nil)
 	var fe *FieldError
-	if !errors.As(err, &fe) || fe.Field != "hours_per_day" || !strings.Contains(fe.Problem, `must be a number, got "lots"`) {
-		t.Errorf("bad environment value: %v", err)
+	if !errors.As(err, &fe) || fe.Field != "yard_miles" || !strings.Contains(fe.Problem, "missing") {
+		t.Errorf("yard_miles missing from the file, set in the environment: %v", err)
 	}
 }
 

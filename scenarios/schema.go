@@ -3,6 +3,7 @@ package scenarios
 import (
 	"fmt"
 	"sort"
+	"strconv"
 	"strings"
 
 	"gopkg.in/yaml.v3"
@@ -285,7 +286,19 @@ func kindName(n *yaml.Node) string {
 		if n.Tag == "!!null" {
 			return "nothing"
 		}
-		return fmt.Sprintf("%q", n.Value)
+		return excerpt(n.Value)
 	}
 	return "something else"
+}
+
+// excerptRunes bounds how much of a value a message quotes.
+const excerptRunes = 40
+
+// excerpt quotes the start of a value, escaped, so a message names what it
+// found without echoing a file that is not a scenario.
+func excerpt(s string) string {
+	if r := []rune(s); len(r) > excerptRunes {
+		return strconv.Quote(string(r[:excerptRunes])) + "…"
+	}
+	return strconv.Quote(s)
 }

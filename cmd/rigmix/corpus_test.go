@@ -143,6 +143,8 @@ var badCases = []badCase{
 	{file: "config_negative_timeout.yaml", config: true, path: "call_timeout", what: []string{"> 0", "-5"}},
 	{file: "config_threads_text.yaml", config: true, path: "threads", what: []string{`"two"`}},
 	{file: "config_missing_plugin_dir.yaml", config: true, path: "plugin_dir", what: []string{"./rigs-not-here", "no such"}},
+	{file: "config_gap_nan.yaml", config: true, path: "gap", what: []string{"finite number", `"NaN"`}},
+	{file: "config_timeout_inf.yaml", config: true, path: "call_timeout", what: []string{"finite number", `"+Inf"`}},
 }
 
 // TestBadInputCorpus plans every file of the bad-input corpus in process
@@ -477,8 +479,8 @@ func interruptSite(t *testing.T, dir string) string {
 // (written just before the solve starts) appears, it sends SIGINT to the
 // whole group, as Ctrl-C in a terminal does. rigmix must exit promptly
 // with a one-line message, leave the earlier plan file as it was, and
-// leave no rig process behind. (When the solve has already found a plan,
-// rigmix at present writes it instead: a known gap, logged.)
+// leave no rig process behind. (TestInterruptEveryCommand does the same
+// for every command and both signals.)
 func TestInterruptKeepsOutput(t *testing.T) {
 	if testing.Short() {
 		t.Skip("plans a large site")

@@ -5,9 +5,13 @@
 // itself once, refuses two rigs of one name, applies a per-call timeout,
 // names the rig in every error, and kills every child on Close.
 //
-// Each plugin runs in a process group of its own; Close kills the group, so
-// a process a plugin started does not outlive the run, and on Linux a rig
-// process is killed when rigmix dies without closing (PR_SET_PDEATHSIG).
+// Each plugin runs in a process group of its own; Close kills the group
+// first, so a process a plugin started does not outlive the run nor keep
+// the plugin's stdout or stderr open (go-plugin's own clean-up, which waits
+// for them to end, is then waited for at most two seconds). Starting a
+// plugin is bounded by the call timeout and ends at once when the context
+// does. On Linux a rig process is killed when rigmix dies without closing
+// (PR_SET_PDEATHSIG).
 // A plugin that crashes, hangs, speaks another protocol version, prints on
 // stdout where the handshake belongs, or answers out of contract gets a
 // one-line error naming its file or its rig (see misbehave_test.go and
@@ -242,11 +246,42 @@ func start(ctx context.Context, l launch, opt Options, logger hclog.Logger) (*Ri
 	})
 	pid := 0
 	fail := func(format string, args ...any) (*Rig, error) {
-		client.Kill()
-		killGroup(pid)
+		stop(client, pid)
 		return nil, fmt.Errorf("%s: "+format, append([]any{l.label}, args...)...)
 	}
-	rpc, err := client.Client()
+	// Starting is bounded by the call timeout (go-plugin's StartTimeout)
+	// and by ctx: a signal ends the wait at once; the plugin is stopped
+	// when its start returns.
+	type started struct {
+		rpc plugin.ClientProtocol
+		err error
+	}
+	ch := make(chan started, 1)
+	go func() {
+		rpc, err := client.Client()
+		ch <- started{rpc, err}
+	}()
+	var rpc plugin.ClientProtocol
+	var err error
+	select {
+	case st := <-ch:
+		rpc, err = st.rpc, st.err
+	case <-ctx.Done():
+		// Kill what has started now (go-plugin's start then returns
+		// early), and the rest once its start returns.
+		if grouped {
+			killGroup(startedChild(l.cmd))
+		}
+		go func() {
+			<-ch
+			p := 0
+			if grouped && l.cmd.Process != nil {
+				p = l.cmd.Process.Pid
+			}
+			stop(client, p)
+		}()
+		return nil, fmt.Errorf("%s: not started: %w", l.label, ctx.Err())
+	}
 	if grouped && l.cmd.Process != nil {
 		pid = l.cmd.Process.Pid
 	}
@@ -440,12 +475,32 @@ func (f *Fleet) Close() {
 			wg.Add(1)
 			go func() {
 				defer wg.Done()
-				r.client.Kill()
-				killGroup(r.pid)
+				stop(r.client, r.pid)
 			}()
 		}
 		wg.Wait()
 	})
+}
+
+// killWait bounds how long stop waits for go-plugin to notice a killed
+// plugin: its Kill waits for the plugin's stdout and stderr to end, which
+// a process that escaped the group can hold open for ever.
+const killWait = 2 * time.Second
+
+// stop ends a plugin: first its whole process group, at once, so no
+// process it started keeps its stdout or stderr open; then go-plugin's
+// own clean-up, waited for at most killWait.
+func stop(client *plugin.Client, pid int) {
+	killGroup(pid)
+	done := make(chan struct{})
+	go func() {
+		client.Kill()
+		close(done)
+	}()
+	select {
+	case <-done:
+	case <-time.After(killWait):
+	}
 }
 
 // Describe returns the description the rig gave at launch.

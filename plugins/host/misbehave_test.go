@@ -10,6 +10,7 @@ import (
 	"strconv"
 	"strings"
 	"sync"
+	"syscall"
 	"testing"
 	"time"
 
@@ -469,4 +470,144 @@ func TestSetupMistakesAreBadInput(t *testing.T) {
 		t.Fatalf("the right pin (in capitals): %v", err)
 	}
 	f.Close()
+}
+
+// TestPluginChildHoldsStdio: plugins whose helper process keeps the
+// plugin's stdout and stderr open, so that reading them never ends: a
+// well-behaved one (Close must not wait for the end of its output), one
+// that then sleeps before the handshake (Open must give up within the call
+// timeout), and a shell script that sleeps in a child (the case of a
+// wrapper script that never serves). Each returns promptly and leaves no
+// process behind, the helper included.
+func TestPluginChildHoldsStdio(t *testing.T) {
+	cases := []struct {
+		mode    string
+		script  string // a shell-script plugin instead of the misbehave binary
+		openErr string // "" when Open succeeds
+	}{
+		{mode: "child-holds-stdio"},
+		{mode: "child-then-hang", openErr: "no handshake within 2s"},
+		{mode: "sleeping-script", script: "#!/bin/sh\nsleep 3600 &\necho $! > \"$MISBEHAVE_PID_FILE\"\nwait\n", openErr: "no handshake within 2s"},
+	}
+	for _, c := range cases {
+		t.Run(c.mode, func(t *testing.T) {
+			var opt Options
+			if c.script != "" {
+				if _, err := exec.LookPath("sh"); err != nil {
+					t.Skip("no sh")
+				}
+				dir := t.TempDir()
+				if err := os.WriteFile(filepath.Join(dir, c.mode), []byte(c.script), 0o755); err != nil {
+					t.Fatal(err)
+				}
+				opt = testOptions()
+				opt.PluginDir = dir
+				opt.CallTimeout = 2 * time.Second
+			} else {
+				opt, _ = misbehaving(t, c.mode, 2*time.Second)
+			}
+			opt.Builtins = nil
+			pidFile := filepath.Join(t.TempDir(), "helper.pid")
+			t.Setenv("MISBEHAVE_PID_FILE", pidFile)
+			t.Cleanup(func() { killHelper(pidFile) }) // also when the test fails early
+			before := childPIDs(t)
+			var openErr error
+			took := bounded(t, 20*time.Second, func(ctx context.Context) {
+				f, err := Open(ctx, opt)
+				openErr = err
+				if err != nil {
+					return
+				}
+				r := f.Rigs()[0]
+				if _, err := r.Assess(ctx, testSites); err != nil {
+					t.Errorf("Assess: %v", err)
+				}
+				f.Close()
+			})
+			t.Logf("%s: %s, Open: %v", c.mode, took.Round(time.Millisecond), openErr)
+			switch {
+			case c.openErr == "" && openErr != nil:
+				t.Fatalf("Open: %v", openErr)
+			case c.openErr != "" && (openErr == nil || !strings.Contains(openErr.Error(), c.openErr)):
+				t.Errorf("Open: %v; want an error saying %q", openErr, c.openErr)
+			}
+			if took > opt.CallTimeout+3*time.Second {
+				t.Errorf("took %s with a call timeout of %s", took, opt.CallTimeout)
+			}
+			b, err := os.ReadFile(pidFile)
+			helper, _ := strconv.Atoi(strings.TrimSpace(string(b)))
+			if err != nil || helper == 0 {
+				t.Fatalf("the plugin did not record its helper process: %q %v", b, err)
+			}
+			deadline := time.Now().Add(3 * time.Second)
+			for alive(helper) && time.Now().Before(deadline) {
+				time.Sleep(50 * time.Millisecond)
+			}
+			if alive(helper) {
+				_ = syscall.Kill(helper, syscall.SIGKILL)
+				t.Errorf("the plugin's helper process %d outlived the fleet", helper)
+			}
+			assertNoNewChildren(t, before)
+		})
+	}
+}
+
+// TestPluginStartInterrupted: a signal (the context ending) while a plugin
+// is starting ends Open at once, not after the call timeout, and leaves no
+// process behind.
+func TestPluginStartInterrupted(t *testing.T) {
+	opt, _ := misbehaving(t, "child-then-hang", 30*time.Second)
+	pidFile := filepath.Join(t.TempDir(), "helper.pid")
+	t.Setenv("MISBEHAVE_PID_FILE", pidFile)
+	t.Cleanup(func() { killHelper(pidFile) })
+	before := childPIDs(t)
+	ctx, cancel := context.WithCancel(context.Background())
+	time.AfterFunc(time.Second, cancel)
+	start := time.Now()
+	_, err := Open(ctx, opt)
+	took := time.Since(start)
+	if err == nil || !errors.Is(err, context.Canceled) {
+		t.Errorf("Open: %v; want the context's cancellation", err)
+	}
+	if took > 5*time.Second {
+		t.Errorf("Open took %s after its context ended at 1 s (call timeout 30 s)", took)
+	}
+	b, _ := os.ReadFile(pidFile)
+	if helper, _ := strconv.Atoi(strings.TrimSpace(string(b))); helper > 0 {
+		deadline := time.Now().Add(5 * time.Second)
+		for alive(helper) && time.Now().Before(deadline) {
+			time.Sleep(50 * time.Millisecond)
+		}
+		if alive(helper) {
+			_ = syscall.Kill(helper, syscall.SIGKILL)
+			t.Errorf("the plugin's helper process %d outlived Open", helper)
+		}
+	}
+	deadline := time.Now().Add(5 * time.Second)
+	for len(newChildren(t, before)) > 0 && time.Now().Before(deadline) {
+		time.Sleep(50 * time.Millisecond)
+	}
+	assertNoNewChildren(t, before)
+}
+
+// killHelper kills the helper process recorded in pidFile, if it is still
+// there: a failing test must not leave it running.
+func killHelper(pidFile string) {
+	b, err := os.ReadFile(pidFile)
+	if err != nil {
+		return
+	}
+	if pid, _ := strconv.Atoi(strings.TrimSpace(string(b))); pid > 0 && alive(pid) {
+		_ = syscall.Kill(pid, syscall.SIGKILL)
+	}
+}
+
+func newChildren(t *testing.T, before map[int]bool) []int {
+	var out []int
+	for pid := range childPIDs(t) {
+		if !before[pid] {
+			out = append(out, pid)
+		}
+	}
+	return out
 }

@@ -1,7 +1,12 @@
 package host
 
 import (
+	"bytes"
+	"os"
 	"os/exec"
+	"path/filepath"
+	"strconv"
+	"strings"
 	"syscall"
 )
 
@@ -27,4 +32,37 @@ func killGroup(pid int) {
 	if pid > 0 {
 		_ = syscall.Kill(-pid, syscall.SIGKILL)
 	}
+}
+
+// startedChild finds, from /proc, the child process of rigmix that runs
+// cmd's arguments and leads a process group of its own: the plugin being
+// started, whose id go-plugin gives only once its start returns. 0 when
+// there is none (yet).
+func startedChild(cmd *exec.Cmd) int {
+	entries, err := os.ReadDir("/proc")
+	if err != nil {
+		return 0
+	}
+	me := strconv.Itoa(os.Getpid())
+	want := []byte(strings.Join(cmd.Args, "\x00") + "\x00")
+	for _, e := range entries {
+		pid, err := strconv.Atoi(e.Name())
+		if err != nil {
+			continue
+		}
+		b, err := os.ReadFile(filepath.Join("/proc", e.Name(), "stat"))
+		if err != nil {
+			continue
+		}
+		s := string(b)
+		f := strings.Fields(s[strings.LastIndexByte(s, ')')+1:])
+		// state ppid pgrp ...
+		if len(f) < 3 || f[1] != me || f[2] != e.Name() {
+			continue
+		}
+		if line, err := os.ReadFile(filepath.Join("/proc", e.Name(), "cmdline")); err == nil && bytes.Equal(line, want) {
+			return pid
+		}
+	}
+	return 0
 }

@@ -11,6 +11,12 @@ import (
 // device, a pipe or a huge file cannot stall or swamp a loader. The error
 // says what is wrong without the path; the loader adds the file name.
 func ReadRegular(path string, maxBytes int64) ([]byte, error) {
+	// Checked before opening too: opening a pipe waits for a writer.
+	if st, err := os.Stat(path); err != nil {
+		return nil, err
+	} else if !st.Mode().IsRegular() {
+		return nil, errors.New("not a regular file")
+	}
 	f, err := os.Open(path)
 	if err != nil {
 		return nil, err

@@ -24,6 +24,8 @@
 //	no-methods          describes itself with no methods
 //	error-in-assess     returns an error from Assess
 //	grandchild          starts a long-lived child process of its own, then answers well
+//	child-holds-stdio   starts a long-lived child that keeps this plugin's stdout and stderr open, then answers well
+//	child-then-hang     starts such a child, then sleeps before the handshake
 //
 // Any other file name serves a well-behaved rig.
 package main
@@ -61,6 +63,18 @@ func main() {
 			GRPCServer:      sdk.GRPCServer,
 		})
 		return
+	case "child-holds-stdio", "child-then-hang":
+		// The helper inherits stdout and stderr: the host's readers of
+		// this plugin's output see no end of file until it dies too.
+		cmd := exec.Command("sleep", "3600")
+		cmd.Stdout, cmd.Stderr = os.Stdout, os.Stderr
+		if err := cmd.Start(); err == nil {
+			fmt.Fprintf(os.Stderr, "misbehave: started helper process %d\n", cmd.Process.Pid)
+			writePID(cmd.Process.Pid)
+		}
+		if mode == "child-then-hang" {
+			time.Sleep(time.Hour)
+		}
 	case "grandchild":
 		// A helper that outlives a kill of this process unless the host
 		// ends the whole process group.
@@ -70,6 +84,14 @@ func main() {
 		}
 	}
 	sdk.Serve(rig{mode})
+}
+
+// writePID records a helper's process id in the file named by
+// MISBEHAVE_PID_FILE, for tests that cannot read the plugin's stderr.
+func writePID(pid int) {
+	if f := os.Getenv("MISBEHAVE_PID_FILE"); f != "" {
+		_ = os.WriteFile(f, []byte(fmt.Sprint(pid)), 0o644)
+	}
 }
 
 // rig answers like a small drill rig, except where its mode says otherwise.

@@ -2,6 +2,9 @@ package cli
 
 import (
 	"bytes"
+	"context"
+	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
 	"os"
@@ -47,8 +50,26 @@ func newRigServeCmd() *cobra.Command {
 	}
 }
 
+// rigJSON is one rig in rigs --json.
+type rigJSON struct {
+	Name          string          `json:"name"`
+	Title         string          `json:"title"`
+	Methods       []rigMethodJSON `json:"methods"`
+	Surfaces      []string        `json:"surfaces"`
+	MaxSlopePct   float64         `json:"max_slope_pct"`
+	MinOverheadFt float64         `json:"min_overhead_ft"`
+	Basis         string          `json:"basis"`
+	PluginFile    string          `json:"plugin_file,omitempty"` // "" for a built-in rig
+}
+
+type rigMethodJSON struct {
+	Method     string  `json:"method"`
+	MaxDepthFt float64 `json:"max_depth_ft"`
+}
+
 func newRigsCmd(g *globalOptions, stdout io.Writer) *cobra.Command {
-	return &cobra.Command{
+	var asJSON bool
+	c := &cobra.Command{
 		Use:   "rigs",
 		Short: "List every rig that can be offered: built-in ones and plugins in the plugin folder",
 		Args:  cobra.NoArgs,
@@ -63,6 +84,27 @@ func newRigsCmd(g *globalOptions, stdout io.Writer) *cobra.Command {
 			}
 			defer fleet.Close()
 			var b bytes.Buffer
+			if asJSON {
+				list := []rigJSON{}
+				for _, r := range fleet.Rigs() {
+					in := r.Info
+					j := rigJSON{Name: in.Name, Title: in.Title, Methods: []rigMethodJSON{}, Surfaces: []string{},
+						MaxSlopePct: in.Access.MaxSlopePct, MinOverheadFt: in.Access.MinOverheadFt, Basis: in.Basis, PluginFile: r.Path}
+					for _, m := range in.Methods {
+						j.Methods = append(j.Methods, rigMethodJSON{string(m.Method), m.MaxDepthFt})
+					}
+					for _, s := range in.Access.Surfaces {
+						j.Surfaces = append(j.Surfaces, string(s))
+					}
+					list = append(list, j)
+				}
+				out, err := json.MarshalIndent(list, "", "  ")
+				if err != nil {
+					return err
+				}
+				_, err = stdout.Write(append(out, '\n'))
+				return err
+			}
 			tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
 			fmt.Fprintln(tw, "rig\tdescription\tmethods (deepest)\tground\tmax slope\tneeds overhead")
 			for _, r := range fleet.Rigs() {
@@ -86,15 +128,31 @@ func newRigsCmd(g *globalOptions, stdout io.Writer) *cobra.Command {
 			return err
 		},
 	}
+	c.Flags().BoolVar(&asJSON, "json", false, "print the rigs as JSON")
+	return c
+}
+
+// demoJSON is one demo scenario in demos --json.
+type demoJSON struct {
+	Name  string   `json:"name"`
+	Title string   `json:"title"`
+	Zones int      `json:"zones"`
+	Rigs  []string `json:"rigs"`
+	// Invented says the demo's site and numbers are invented data.
+	Invented bool `json:"invented"`
 }
 
 func newDemosCmd(stdout io.Writer) *cobra.Command {
-	return &cobra.Command{
+	var asJSON bool
+	c := &cobra.Command{
 		Use:   "demos [NAME]",
 		Short: "List the embedded demo scenarios, or print one as YAML to start your own from",
 		Args:  cobra.MaximumNArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			if len(args) == 1 {
+				if asJSON {
+					return usageError{fmt.Errorf("--json lists the demos; a demo itself prints as YAML (rigmix demos %s)", args[0])}
+				}
 				b, err := scenarios.DemoFile(args[0])
 				if err != nil {
 					return usageError{err}
@@ -103,6 +161,7 @@ func newDemosCmd(stdout io.Writer) *cobra.Command {
 				return err
 			}
 			var b bytes.Buffer
+			list := []demoJSON{}
 			tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
 			fmt.Fprintln(tw, "demo\ttitle\tzones\trigs offered")
 			for _, n := range scenarios.Demos() {
@@ -110,7 +169,16 @@ func newDemosCmd(stdout io.Writer) *cobra.Command {
 				if err != nil {
 					return err
 				}
+				list = append(list, demoJSON{n, sc.Title, len(sc.Zones), sc.Rigs, sc.Demo})
 				fmt.Fprintf(tw, "%s\t%s\t%d\t%s\n", n, sc.Title, len(sc.Zones), strings.Join(sc.Rigs, ", "))
+			}
+			if asJSON {
+				out, err := json.MarshalIndent(list, "", "  ")
+				if err != nil {
+					return err
+				}
+				_, err = stdout.Write(append(out, '\n'))
+				return err
 			}
 			tw.Flush()
 			b.WriteString("\nAll demo scenarios and rate books are invented data.\n")
@@ -118,6 +186,8 @@ func newDemosCmd(stdout io.Writer) *cobra.Command {
 			return err
 		},
 	}
+	c.Flags().BoolVar(&asJSON, "json", false, "list the demos as JSON (all are invented data)")
+	return c
 }
 
 type solveOptions struct {
@@ -137,9 +207,9 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 			if err != nil {
 				return err
 			}
-			f, err := os.Open(args[0])
+			f, err := openRegular(args[0], maxModelBytes)
 			if err != nil {
-				return usageError{fmt.Errorf("%s: %v", args[0], err)}
+				return err
 			}
 			defer f.Close()
 			p, err := mip.ReadMPS(f)
@@ -165,9 +235,15 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 			}
 			sum := summarize(p, res)
 			if o.asJSON {
-				return sum.writeJSON(stdout)
+				if err := sum.writeJSON(stdout); err != nil {
+					return err
+				}
+				return solveInterrupted(cmd.Context())
 			}
-			return sum.writeText(stdout)
+			if err := sum.writeText(stdout); err != nil {
+				return err
+			}
+			return solveInterrupted(cmd.Context())
 		},
 	}
 	c.Flags().BoolVar(&o.asJSON, "json", false, "print the result as JSON")
@@ -177,6 +253,54 @@ func newSolveCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	c.Flags().Int("threads", 1, "solver threads (1 or 2)")
 	return c
 }
+
+// solveInterrupted: after SIGINT or SIGTERM, solve prints the best
+// solution found so far, then exits 1.
+func solveInterrupted(ctx context.Context) error {
+	if ctx.Err() != nil {
+		return interruptedError{errors.New("interrupted; the best solution so far is printed above")}
+	}
+	return nil
+}
+
+// maxModelBytes bounds the MPS file solve reads.
+const maxModelBytes = 1 << 30
+
+// openRegular opens an input that must be a regular file of at most
+// maxBytes, checking before it opens (opening a pipe waits for a writer);
+// the file read is limited to maxBytes+1.
+func openRegular(path string, maxBytes int64) (io.ReadCloser, error) {
+	bad := func(what string) error { return usageError{fmt.Errorf("%s: %s", path, what)} }
+	st, err := os.Stat(path)
+	if err != nil {
+		return nil, bad(unwrapPathErr(err).Error())
+	}
+	if !st.Mode().IsRegular() {
+		return nil, bad("not a regular file; give a file")
+	}
+	if st.Size() > maxBytes {
+		return nil, bad(fmt.Sprintf("is larger than %d MB", maxBytes>>20))
+	}
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, bad(unwrapPathErr(err).Error())
+	}
+	if fst, err := f.Stat(); err != nil || !os.SameFile(st, fst) {
+		f.Close()
+		return nil, bad("changed while it was opened")
+	}
+	return struct {
+		io.Reader
+		io.Closer
+	}{io.LimitReader(f, maxBytes+1), f}, nil
+}
+
+// Caps on gen-site's sizes: the largest scale runs are 1,000 acres and a
+// 20-mile corridor.
+const (
+	maxGenAcres = 10_000
+	maxGenMiles = 200
+)
 
 func newGenSiteCmd(stdout io.Writer) *cobra.Command {
 	var acres, miles float64
@@ -188,8 +312,12 @@ func newGenSiteCmd(stdout io.Writer) *cobra.Command {
 		Args:   cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			switch {
-			case acres > 0 && miles > 0, acres <= 0 && miles <= 0:
+			case acres > 0 && miles > 0, !(acres > 0) && !(miles > 0):
 				return usageError{fmt.Errorf("give one of --acres or --miles, a positive number")}
+			case acres > maxGenAcres:
+				return usageError{fmt.Errorf("--acres: at most %d, got %g", maxGenAcres, acres)}
+			case miles > maxGenMiles:
+				return usageError{fmt.Errorf("--miles: at most %d, got %g", maxGenMiles, miles)}
 			case acres > 0:
 				_, err := stdout.Write(sitegen.Site(acres, seed))
 				return err

@@ -1,14 +1,20 @@
 package cli
 
 import (
+	"bytes"
 	"errors"
 	"fmt"
+	"io/fs"
+	"math"
 	"os"
 	"strconv"
 	"strings"
+	"unicode/utf8"
 
 	"github.com/spf13/pflag"
 	"github.com/spf13/viper"
+
+	"github.com/rigmix/rigmix/scenarios/fielderr"
 )
 
 // Config holds the settings that may come from a flag, the environment
@@ -25,6 +31,11 @@ type Config struct {
 	// the plugin folder → hex digest. A pinned plugin whose file does not
 	// match is refused. Set in the configuration file only.
 	PluginPins map[string]string `mapstructure:"plugin_pins"`
+	// File is the configuration file read ("" for none).
+	File string `mapstructure:"-"`
+	// RateBookFrom names where RateBook was set: the flag, the variable
+	// or the file and key.
+	RateBookFrom string `mapstructure:"-"`
 }
 
 // defaults is the bottom layer.
@@ -66,14 +77,13 @@ func (g *globalOptions) load(fs *pflag.FlagSet) (Config, error) {
 		}
 	}
 	if file != "" {
-		v.SetConfigFile(file)
+		data, err := readConfigFile(file)
+		if err != nil {
+			return Config{}, err
+		}
 		v.SetConfigType("yaml")
-		if err := v.ReadInConfig(); err != nil {
-			var nf viper.ConfigFileNotFoundError
-			if errors.As(err, &nf) || os.IsNotExist(err) {
-				return Config{}, usageError{fmt.Errorf("%s: configuration file not found", file)}
-			}
-			return Config{}, usageError{fmt.Errorf("%s: cannot read configuration: %v", file, err)}
+		if err := v.ReadConfig(bytes.NewReader(data)); err != nil {
+			return Config{}, usageError{fmt.Errorf("%s: is not a YAML configuration file (%s)", file, excerpt(err.Error(), 200))}
 		}
 		known := map[string]bool{}
 		for _, k := range flagKeys {
@@ -84,7 +94,7 @@ func (g *globalOptions) load(fs *pflag.FlagSet) (Config, error) {
 				continue
 			}
 			if !known[k] && v.InConfig(k) {
-				return Config{}, usageError{fmt.Errorf("%s: %s: unknown setting (known: call_timeout, gap, plugin_dir, plugin_pins, rate_book, threads, time_limit)", file, k)}
+				return Config{}, usageError{fmt.Errorf("%s: %s: unknown setting (known: call_timeout, gap, plugin_dir, plugin_pins, rate_book, threads, time_limit)", file, excerpt(k, 60))}
 			}
 		}
 	}
@@ -98,22 +108,52 @@ func (g *globalOptions) load(fs *pflag.FlagSet) (Config, error) {
 			}
 		})
 	}
-	// where names the layer a bad value came from, so the message points
-	// at the file when the file set it.
+	// where names the layer a value came from: the flag, the environment
+	// variable or the configuration file.
 	where := func(key string) string {
-		if file != "" && v.InConfig(key) && (fs == nil || !changed(fs, key)) && os.Getenv("RIGMIX_"+strings.ToUpper(key)) == "" {
+		for _, set := range []*pflag.FlagSet{fs, g.flags} {
+			if set != nil && changed(set, key) {
+				return "--" + flagOf(key)
+			}
+		}
+		if env := "RIGMIX_" + strings.ToUpper(key); os.Getenv(env) != "" {
+			return "environment variable " + env
+		}
+		if file != "" && v.InConfig(key) {
 			return file + ": " + key
 		}
 		return key
 	}
-	if t := v.GetString("threads"); t != "" {
-		if _, err := strconv.Atoi(t); err != nil {
-			return Config{}, usageError{fmt.Errorf("%s: must be a whole number, 1 or 2, got %q", where("threads"), t)}
+	var c Config
+	for _, key := range []string{"gap", "time_limit", "call_timeout"} {
+		t := strings.TrimSpace(v.GetString(key))
+		x, err := strconv.ParseFloat(t, 64)
+		if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
+			return Config{}, usageError{fmt.Errorf("%s: must be a finite number, got %s", where(key), quoteExcerpt(t))}
+		}
+		switch key {
+		case "gap":
+			c.Gap = x
+		case "time_limit":
+			c.TimeLimit = x
+		default:
+			c.CallTimeout = x
 		}
 	}
-	var c Config
-	if err := v.Unmarshal(&c); err != nil {
-		return Config{}, usageError{fmt.Errorf("%s: %v", firstNonEmpty(file, "configuration"), strings.ReplaceAll(err.Error(), "\n", " "))}
+	t := strings.TrimSpace(v.GetString("threads"))
+	if n, err := strconv.Atoi(t); err != nil {
+		return Config{}, usageError{fmt.Errorf("%s: must be a whole number, 1 or 2, got %s", where("threads"), quoteExcerpt(t))}
+	} else {
+		c.Threads = n
+	}
+	c.PluginDir = v.GetString("plugin_dir")
+	c.RateBook = v.GetString("rate_book")
+	if c.RateBook != "" {
+		c.RateBookFrom = where("rate_book")
+	}
+	if v.IsSet("plugin_pins") {
+		pins := v.GetStringMapString("plugin_pins")
+		c.PluginPins = pins
 	}
 	if c.Gap < 0 || c.Gap >= 1 {
 		return Config{}, usageError{fmt.Errorf("%s: must be in [0, 1), got %g", where("gap"), c.Gap)}
@@ -121,17 +161,18 @@ func (g *globalOptions) load(fs *pflag.FlagSet) (Config, error) {
 	if c.TimeLimit < 0 {
 		return Config{}, usageError{fmt.Errorf("%s: must be ≥ 0 seconds, got %g", where("time_limit"), c.TimeLimit)}
 	}
-	if c.CallTimeout <= 0 {
-		return Config{}, usageError{fmt.Errorf("%s: must be > 0 seconds, got %g", where("call_timeout"), c.CallTimeout)}
+	if c.CallTimeout <= 0 || c.CallTimeout > maxCallTimeout {
+		return Config{}, usageError{fmt.Errorf("%s: must be > 0 and at most %d seconds, got %g", where("call_timeout"), maxCallTimeout, c.CallTimeout)}
 	}
 	if c.Threads < 1 || c.Threads > 2 {
 		return Config{}, usageError{fmt.Errorf("%s: must be 1 or 2, got %d", where("threads"), c.Threads)}
 	}
 	if c.PluginDir != "" {
 		if st, err := os.Stat(c.PluginDir); err != nil || !st.IsDir() {
-			return Config{}, usageError{fmt.Errorf("%s: %s: no such folder; give the folder that holds the rig plugin executables", where("plugin_dir"), c.PluginDir)}
+			return Config{}, usageError{fmt.Errorf("%s: %s: no such folder; give the folder that holds the rig plugin executables", where("plugin_dir"), quoteExcerpt(c.PluginDir))}
 		}
 	}
+	c.File = file
 	return c, nil
 }
 
@@ -147,9 +188,49 @@ func changed(fs *pflag.FlagSet, key string) bool {
 	return false
 }
 
-func firstNonEmpty(a, b string) string {
-	if a != "" {
-		return a
+// flagOf is the flag bound to a configuration key.
+func flagOf(key string) string {
+	for flag, k := range flagKeys {
+		if k == key {
+			return flag
+		}
 	}
-	return b
+	return key
 }
+
+// maxCallTimeout bounds --call-timeout (seconds): one day.
+const maxCallTimeout = 86400
+
+// maxConfigBytes bounds the configuration file; real ones are a few lines.
+const maxConfigBytes = 1 << 20
+
+// readConfigFile reads the configuration file, a regular file of at most
+// maxConfigBytes.
+func readConfigFile(file string) ([]byte, error) {
+	data, err := fielderr.ReadRegular(file, maxConfigBytes)
+	switch {
+	case errors.Is(err, fs.ErrNotExist):
+		return nil, usageError{fmt.Errorf("%s: configuration file not found", file)}
+	case err != nil:
+		return nil, usageError{fmt.Errorf("%s: cannot read configuration: %v", file, unwrapPathErr(err))}
+	}
+	return data, nil
+}
+
+// excerpt shortens s to at most n bytes (at a rune boundary) and escapes
+// what is not printable, so a message never carries much of a file.
+func excerpt(s string, n int) string {
+	q := strconv.Quote(s)
+	q = q[1 : len(q)-1]
+	if len(q) > n {
+		cut := n
+		for cut > 0 && !utf8.RuneStart(q[cut]) {
+			cut--
+		}
+		q = q[:cut] + "…"
+	}
+	return q
+}
+
+// quoteExcerpt is excerpt in double quotes.
+func quoteExcerpt(s string) string { return `"` + excerpt(s, 60) + `"` }

@@ -3,8 +3,10 @@ package cli
 import (
 	"bytes"
 	"context"
+	"errors"
 	"fmt"
 	"io"
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
@@ -51,29 +53,50 @@ func newPlanCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 		},
 	}
 	f := c.Flags()
-	f.StringVar(&o.demo, "demo", "", "plan an embedded demo scenario by name (see `rigmix demos`)")
-	f.String("rate-book", "", "price with this rate book (demo name or file) instead of the scenario's")
-	f.Float64("gap", 0, "stop when the plan is proven within this relative gap of the optimum (e.g. 0.01)")
-	f.Float64("time-limit", 0, "stop the solve after this many seconds with the best plan so far")
-	f.Int("threads", 1, "solver threads (1 or 2)")
-	f.StringVar(&o.jsonOut, "json", "", "write the plan as JSON to this file")
-	f.StringVar(&o.csvOut, "points-csv", "", "write the points as CSV to this file")
-	f.StringVar(&o.geojsonOut, "points-geojson", "", "write the points as GeoJSON (RFC 7946) to this file")
-	f.StringVar(&o.mpsOut, "model-mps", "", "write the optimization model as free MPS to this file")
+	f.StringVar(&o.demo, "demo", "", "plan the embedded demo scenario `NAME` (list them with: rigmix demos)")
+	f.String("rate-book", "", "price with this rate `BOOK` (demo name or file) instead of the scenario's")
+	f.Float64("gap", 0, "stop when the plan is proven within this relative `GAP` of the optimum (e.g. 0.01)")
+	f.Float64("time-limit", 0, "stop the solve after this many `SECONDS` with the best plan so far")
+	f.Int("threads", 1, "solver threads, `N` = 1 or 2")
+	f.StringVar(&o.jsonOut, "json", "", "write the plan as JSON to `FILE` (- for standard output)")
+	f.StringVar(&o.csvOut, "points-csv", "", "write the points as CSV to `FILE` (- for standard output)")
+	f.StringVar(&o.geojsonOut, "points-geojson", "", "write the points as GeoJSON (RFC 7946) to `FILE` (- for standard output)")
+	f.StringVar(&o.mpsOut, "model-mps", "", "write the optimization model as free MPS to `FILE` (- for standard output)")
 	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
 	f.BoolVar(&o.timings, "timings", false, "print how long each stage took to stderr")
 	return c
 }
 
-// loadInputs reads the scenario and its rate book.
-func loadInputs(cfg Config, demo string, args []string) (*scenarios.Scenario, *ratebooks.RateBook, error) {
+// stdinPath names standard input as the scenario.
+const stdinPath = "-"
+
+// maxStdinBytes bounds a scenario read from standard input, as the loader
+// bounds a scenario file.
+const maxStdinBytes = 8 << 20
+
+// loadInputs reads the scenario and its rate book, and lists every file
+// read (the configuration file too), so that no output replaces one.
+func loadInputs(cfg Config, demo string, args []string) (*scenarios.Scenario, *ratebooks.RateBook, []string, error) {
 	var sc *scenarios.Scenario
 	var err error
+	inputs := []string{cfg.File}
 	switch {
 	case len(args) == 1 && demo != "":
-		return nil, nil, usageError{fmt.Errorf("give either a scenario file or --demo, not both")}
+		return nil, nil, nil, usageError{fmt.Errorf("give either a scenario file or --demo, not both")}
+	case len(args) == 1 && args[0] == stdinPath:
+		// "-": the scenario from standard input; its relative paths
+		// (GeoJSON, a rate-book file) resolve against the working folder.
+		data, rerr := io.ReadAll(io.LimitReader(os.Stdin, maxStdinBytes+1))
+		switch {
+		case rerr != nil:
+			return nil, nil, nil, usageError{fmt.Errorf("standard input: cannot read: %v", rerr)}
+		case len(data) > maxStdinBytes:
+			return nil, nil, nil, usageError{fmt.Errorf("standard input: larger than %d MB; a scenario is at most that", maxStdinBytes>>20)}
+		}
+		sc, err = scenarios.Parse(data, "stdin", nil)
 	case len(args) == 1:
 		sc, err = scenarios.Load(args[0], nil)
+		inputs = append(inputs, args[0])
 	default:
 		if demo == "" {
 			demo = scenarios.DefaultDemo
@@ -81,36 +104,48 @@ func loadInputs(cfg Config, demo string, args []string) (*scenarios.Scenario, *r
 		sc, err = scenarios.LoadDemo(demo, nil)
 	}
 	if err != nil {
-		return nil, nil, err
+		return nil, nil, nil, err
 	}
+	inputs = append(inputs, sc.Files...)
+	// The scenario's rate_book is already resolved against its folder.
 	name := sc.RateBook
-	base := ""
-	if len(args) == 1 {
-		base = filepath.Dir(args[0])
-	}
 	var own *ratebooks.RateBook
 	if cfg.RateBook != "" {
-		if own, err = loadRateBook(name, base); err != nil {
-			return nil, nil, err
+		if own, err = loadRateBook(name, ""); err != nil {
+			return nil, nil, nil, err
 		}
-		name, base = cfg.RateBook, "."
+		name = cfg.RateBook
 	}
-	rb, err := loadRateBook(name, base)
+	rb, err := loadRateBook(name, "")
 	if err != nil {
-		return nil, nil, err
+		if own != nil {
+			// Name the flag, variable or file that gave the rate book.
+			return nil, nil, nil, usageError{fmt.Errorf("%s: %w", cfg.RateBookFrom, err)}
+		}
+		return nil, nil, nil, err
+	}
+	if !isDemoRateBook(name) {
+		inputs = append(inputs, name)
 	}
 	if own != nil && own.Currency != rb.Currency {
-		return nil, nil, usageError{fmt.Errorf("%s: rate_book: %s prices in %s, but --rate-book %s prices in %s; compare plans in one currency", sc.Source, own.Name, own.Currency, rb.Name, rb.Currency)}
+		return nil, nil, nil, usageError{fmt.Errorf("%s: rate_book: %s prices in %s, but --rate-book %s prices in %s; compare plans in one currency", sc.Source, own.Name, own.Currency, rb.Name, rb.Currency)}
 	}
-	return sc, rb, nil
+	return sc, rb, inputs, nil
+}
+
+func isDemoRateBook(name string) bool {
+	for _, d := range ratebooks.Demos() {
+		if d == name {
+			return true
+		}
+	}
+	return false
 }
 
 // loadRateBook takes a demo name, or a file path relative to base.
 func loadRateBook(name, base string) (*ratebooks.RateBook, error) {
-	for _, d := range ratebooks.Demos() {
-		if d == name {
-			return ratebooks.LoadDemo(name)
-		}
+	if isDemoRateBook(name) {
+		return ratebooks.LoadDemo(name)
 	}
 	p := name
 	if !filepath.IsAbs(p) && base != "" {
@@ -142,6 +177,7 @@ func openFleet(ctx context.Context, cfg Config, want []string) (*host.Fleet, err
 	if err != nil {
 		return nil, err
 	}
+	keepFleet(fleet)
 	return fleet, nil
 }
 
@@ -247,12 +283,25 @@ func checkRigsOffered(sc *scenarios.Scenario, fleet *host.Fleet, cfg Config) err
 
 func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, stdout, stderr io.Writer) error {
 	t0 := time.Now()
-	sc, rb, err := loadInputs(cfg, o.demo, args)
+	// Stages before the solve; the solve shows its own progress line.
+	prog := startProgress(stderr, "plan", !o.quiet && isTerminal(stderr), time.Second)
+	defer prog.end()
+	prog.set("loading")
+	sc, rb, inputs, err := loadInputs(cfg, o.demo, args)
 	if err != nil {
+		return err
+	}
+	outs := &outputs{stdout: stdout}
+	jsonF := outs.add("--json", o.jsonOut)
+	csvF := outs.add("--points-csv", o.csvOut)
+	geoF := outs.add("--points-geojson", o.geojsonOut)
+	mpsF := outs.add("--model-mps", o.mpsOut)
+	if err := outs.check(inputs); err != nil {
 		return err
 	}
 	tLoad := time.Since(t0)
 	t0 = time.Now()
+	prog.set("starting the rigs")
 	fleet, rigs, err := startRigs(ctx, cfg, sc)
 	if err != nil {
 		return err
@@ -264,28 +313,38 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 	if !o.quiet && isTerminal(stderr) {
 		popt.Progress = progressPrinter(stderr)
 	}
+	prog.set("candidates, rig calls and the model")
 	pr, err := plan.Prepare(ctx, in, popt)
+	prog.end()
 	if err != nil {
 		return err
 	}
-	if o.mpsOut != "" {
+	if mpsF != nil {
 		// The model is complete before the solve, so it is written even if
 		// the solve then fails: that is when a cross-check is wanted most.
 		var b bytes.Buffer
 		if err := mip.WriteMPS(&b, pr.Model.Problem); err != nil {
 			return err
 		}
-		if err := writeAtomic(o.mpsOut, b.Bytes()); err != nil {
+		mpsF.setData(b.Bytes())
+		if err := outs.commit(ctx); err != nil {
 			return err
 		}
+		mpsF.set = false
 	}
-	outs := outputs{}
 	res, err := pr.Solve(ctx, popt)
 	if popt.Progress != nil {
 		fmt.Fprintln(stderr)
 	}
 	if err != nil {
 		return err
+	}
+	if res.Status == mip.Interrupted && ctx.Err() != nil {
+		// Ctrl-C: keep the previous files; the run did not finish.
+		if math.IsInf(res.Gap, 0) || math.IsNaN(res.Gap) {
+			return interruptedError{errors.New("interrupted before a plan was found; earlier output files are unchanged")}
+		}
+		return interruptedError{fmt.Errorf("interrupted; the best plan so far (within %.2f%% of optimal) was not written, and earlier output files are unchanged", 100*res.Gap)}
 	}
 	t0 = time.Now()
 	p, err := pr.Assemble(res)
@@ -302,29 +361,26 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 			pr.Model.Problem.LP.NumRows, pr.Model.Problem.LP.NumCols, res.PresolvedRows, res.PresolvedCols, res.PresolveTime.Round(time.Millisecond), res.Status, 100*res.Gap, res.Nodes)
 	}
 	for _, w := range []struct {
-		path   string
+		out    *output
 		render func(io.Writer, *plan.Plan) error
-	}{{o.jsonOut, report.JSON}, {o.csvOut, report.PointsCSV}, {o.geojsonOut, report.GeoJSON}} {
-		if w.path == "" {
+	}{{jsonF, report.JSON}, {csvF, report.PointsCSV}, {geoF, report.GeoJSON}} {
+		if w.out == nil {
 			continue
 		}
 		var b bytes.Buffer
 		if err := w.render(&b, p); err != nil {
 			return usageError{err}
 		}
-		outs.add(w.path, b.Bytes())
+		w.out.setData(b.Bytes())
 	}
-	if res.Status == mip.Interrupted && ctx.Err() != nil {
-		// Ctrl-C: keep the previous files; the run did not finish.
-		return interruptedError{fmt.Errorf("interrupted; the best plan so far (within %.2f%% of optimal) was not written, and earlier output files are unchanged", 100*res.Gap)}
+	if !o.quiet && !outs.toStdout() {
+		var b bytes.Buffer
+		if err := report.Text(&b, p); err != nil {
+			return err
+		}
+		outs.summary = b.Bytes()
 	}
-	if err := outs.write(); err != nil {
-		return err
-	}
-	if o.quiet {
-		return nil
-	}
-	return report.Text(stdout, p)
+	return outs.commit(ctx)
 }
 
 // progressPrinter shows incumbent, bound and gap on one terminal line.

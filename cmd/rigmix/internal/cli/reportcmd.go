@@ -20,6 +20,8 @@ type reportOptions struct {
 	sched     scheduleOptions
 	tradeoffs bool
 	runDate   string
+	quiet     bool
+	jsonOut   string
 }
 
 func newReportCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -40,20 +42,34 @@ func newReportCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 		},
 	}
 	f := c.Flags()
-	f.StringVar(&o.demo, "demo", "", "report on an embedded demo scenario by name")
-	f.StringVar(&o.out, "out", "", "the HTML file to write")
-	f.String("rate-book", "", "price with this rate book (demo name or file)")
-	f.Float64("gap", 0, "optimality gap of the plan")
-	f.Float64("time-limit", 0, "seconds for the plan's solve")
+	f.StringVar(&o.demo, "demo", "", "report on the embedded demo scenario `NAME`")
+	f.StringVar(&o.jsonOut, "json", "", "also write the summary line (points, total, days, dates) as JSON to `FILE` (- for standard output)")
+	f.StringVar(&o.out, "out", "", "the HTML `FILE` to write (- for standard output)")
+	f.String("rate-book", "", "price with this rate `BOOK` (demo name or file)")
+	f.Float64("gap", 0, "optimality `GAP` of the plan")
+	f.Float64("time-limit", 0, "`SECONDS` for the plan's solve")
 	f.BoolVar(&o.tradeoffs, "tradeoffs", true, "include the alternatives table, the cost–days frontier and the budget–coverage curve")
-	f.StringVar(&o.runDate, "run-date", "", "date shown as the date of the run (default: today)")
+	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
+	f.StringVar(&o.runDate, "run-date", "", "`DATE` shown as the date of the run (default: today)")
 	o.sched.addCalendarFlags(f)
 	return c
 }
 
 func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string, stdout, stderr io.Writer) error {
-	sc, rb, err := loadInputs(cfg, o.demo, args)
+	if err := o.sched.validate(); err != nil {
+		return err
+	}
+	prog := startProgress(stderr, "report", !o.quiet && isTerminal(stderr), time.Second)
+	defer prog.end()
+	prog.set("loading")
+	sc, rb, inputs, err := loadInputs(cfg, o.demo, args)
 	if err != nil {
+		return err
+	}
+	outs := &outputs{stdout: stdout}
+	out := outs.add("--out", o.out)
+	jsonF := outs.add("--json", o.jsonOut)
+	if err := outs.check(inputs); err != nil {
 		return err
 	}
 	now := time.Now()
@@ -61,11 +77,13 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 	if err != nil {
 		return err
 	}
+	prog.set("starting the rigs")
 	fleet, rigs, err := startRigs(ctx, cfg, sc)
 	if err != nil {
 		return err
 	}
 	defer fleet.Close()
+	prog.set("planning")
 	in := plan.Input{Scenario: sc, RateBook: rb, Rigs: rigs}
 	popt := plan.Options{GapRel: cfg.Gap, TimeLimit: cfg.TimeLimit, Threads: cfg.Threads}
 	pr, err := plan.Prepare(ctx, in, popt)
@@ -76,10 +94,14 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 	if err != nil {
 		return err
 	}
+	if ctx.Err() != nil {
+		return errInterrupted
+	}
 	p, err := pr.Assemble(res)
 	if err != nil {
 		return err
 	}
+	prog.set("scheduling")
 	s, risk, err := o.sched.build(ctx, p, sc, rb, rigs, cal)
 	if err != nil {
 		return err
@@ -99,18 +121,42 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 		hin.RunDate = now.Format("2006-01-02")
 	}
 	if o.tradeoffs {
+		prog.set("trade-offs")
 		if err := addTradeoffs(ctx, &hin, pr, in, popt); err != nil {
 			return err
 		}
+	}
+	if ctx.Err() != nil {
+		// The trade-offs stop early on a signal with what they have.
+		return errInterrupted
 	}
 	var b bytes.Buffer
 	if err := report.HTML(&b, hin); err != nil {
 		return err
 	}
-	if err := writeAtomic(o.out, b.Bytes()); err != nil {
+	out.setData(b.Bytes())
+	if jsonF != nil {
+		j, err := reportSummary(o.out, p, sc, s)
+		if err != nil {
+			return err
+		}
+		jsonF.setData(j)
+	}
+	prog.end()
+	status := fmt.Sprintf("wrote %s: %d points, %s %.2f, %d field days in the plan; schedule %s to %s\n",
+		o.out, len(p.Points), p.RateBook.Currency, p.Total, p.Finish, s.Start.Format("2006-01-02"), s.Finish.Format("2006-01-02"))
+	if o.quiet {
+		return outs.commit(ctx)
+	}
+	if outs.toStdout() || !out.regular() {
+		// The report itself goes to standard output (or a device): the
+		// status line must not follow </html> there.
+		if err := outs.commit(ctx); err != nil {
+			return err
+		}
+		_, err := io.WriteString(stderr, status)
 		return err
 	}
-	fmt.Fprintf(stdout, "wrote %s: %d points, %s %.2f, %d field days in the plan; schedule %s to %s\n",
-		o.out, len(p.Points), p.RateBook.Currency, p.Total, p.Finish, s.Start.Format("2006-01-02"), s.Finish.Format("2006-01-02"))
-	return nil
+	outs.summary = []byte(status)
+	return outs.commit(ctx)
 }

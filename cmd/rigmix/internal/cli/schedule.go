@@ -6,7 +6,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
-	"os"
+	"math"
 	"strconv"
 	"strings"
 	"time"
@@ -19,6 +19,7 @@ import (
 	"github.com/rigmix/rigmix/plugins/sdk"
 	"github.com/rigmix/rigmix/ratebooks"
 	"github.com/rigmix/rigmix/scenarios"
+	"github.com/rigmix/rigmix/scenarios/fielderr"
 )
 
 type scheduleOptions struct {
@@ -36,6 +37,8 @@ type scheduleOptions struct {
 	ganttOut     string
 	stakeCSV     string
 	stakeGeoJSON string
+	quiet        bool
+	jsonOut      string
 }
 
 func newScheduleCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -56,16 +59,18 @@ func newScheduleCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 		},
 	}
 	f := c.Flags()
-	f.StringVar(&o.demo, "demo", "", "schedule an embedded demo scenario by name")
-	f.StringVar(&o.planFile, "plan", "", "schedule this plan file (from `rigmix plan --json`) instead of planning again")
-	f.String("rate-book", "", "price standby with this rate book (demo name or file)")
-	f.Float64("gap", 0, "optimality gap for planning on the fly")
-	f.Float64("time-limit", 0, "seconds for planning on the fly")
+	f.StringVar(&o.demo, "demo", "", "schedule the embedded demo scenario `NAME`")
+	f.StringVar(&o.planFile, "plan", "", "schedule this plan `FILE` (written by rigmix plan --json) instead of planning again")
+	f.String("rate-book", "", "price standby with this rate `BOOK` (demo name or file)")
+	f.Float64("gap", 0, "optimality `GAP` for planning on the fly")
+	f.Float64("time-limit", 0, "`SECONDS` for planning on the fly")
 	o.addCalendarFlags(f)
-	f.StringVar(&o.csvOut, "csv", "", "write the day-by-day table as CSV to this file")
-	f.StringVar(&o.ganttOut, "gantt-svg", "", "write a Gantt chart as SVG to this file")
-	f.StringVar(&o.stakeCSV, "stakeout-csv", "", "write the stakeout list as CSV to this file")
-	f.StringVar(&o.stakeGeoJSON, "stakeout-geojson", "", "write the stakeout list as GeoJSON to this file")
+	f.StringVar(&o.jsonOut, "json", "", "write a summary (dates, days, standby, each rig, risk) as JSON to `FILE` (- for standard output)")
+	f.StringVar(&o.csvOut, "csv", "", "write the day-by-day table as CSV to `FILE` (- for standard output)")
+	f.StringVar(&o.ganttOut, "gantt-svg", "", "write a Gantt chart as SVG to `FILE` (- for standard output)")
+	f.StringVar(&o.stakeCSV, "stakeout-csv", "", "write the stakeout list as CSV to `FILE` (- for standard output)")
+	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
+	f.StringVar(&o.stakeGeoJSON, "stakeout-geojson", "", "write the stakeout list as GeoJSON to `FILE` (- for standard output)")
 	return c
 }
 
@@ -119,7 +124,7 @@ func (o *scheduleOptions) calendar(hoursPerDay float64, today time.Time) (schedu
 				s = parts[m]
 			}
 			v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
-			if err != nil || v < 0 || v > 1 {
+			if err != nil || math.IsNaN(v) || v < 0 || v > 1 {
 				return cal, usageError{fmt.Errorf("--wet-prob: %q is not a probability between 0 and 1", s)}
 			}
 			cal.WetProbByMonth[m] = v
@@ -128,72 +133,119 @@ func (o *scheduleOptions) calendar(hoursPerDay float64, today time.Time) (schedu
 	return cal, nil
 }
 
+// validate refuses the risk flags out of range before any work, naming
+// the flag (the schedule would refuse them too, but only after planning).
+func (o *scheduleOptions) validate() error {
+	switch {
+	case o.runs < 0 || o.runs > schedule.MaxRuns:
+		return usageError{fmt.Errorf("--runs: give 1 to %d runs (0: %d), got %d", schedule.MaxRuns, schedule.DefaultRuns, o.runs)}
+	case math.IsNaN(o.cv) || o.cv < 0 || o.cv > maxProductionCV:
+		return usageError{fmt.Errorf("--production-cv: give a coefficient of variation from 0 to %g, e.g. 0.2, got %g", float64(maxProductionCV), o.cv)}
+	}
+	return nil
+}
+
+// maxProductionCV is the largest --production-cv the schedule's Monte
+// Carlo accepts.
+const maxProductionCV = 2
+
+// maxPlanBytes bounds a plan file read by --plan; the plan of a
+// 1,000-acre site is a few megabytes.
+const maxPlanBytes = 256 << 20
+
 func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []string, stdout, stderr io.Writer) error {
-	sc, rb, err := loadInputs(cfg, o.demo, args)
+	if err := o.validate(); err != nil {
+		return err
+	}
+	prog := startProgress(stderr, "schedule", !o.quiet && isTerminal(stderr), time.Second)
+	defer prog.end()
+	prog.set("loading")
+	sc, rb, inputs, err := loadInputs(cfg, o.demo, args)
 	if err != nil {
+		return err
+	}
+	outs := &outputs{stdout: stdout}
+	files := []*output{
+		outs.add("--csv", o.csvOut), outs.add("--gantt-svg", o.ganttOut),
+		outs.add("--stakeout-csv", o.stakeCSV), outs.add("--stakeout-geojson", o.stakeGeoJSON),
+	}
+	jsonF := outs.add("--json", o.jsonOut)
+	if err := outs.check(append(inputs, o.planFile)); err != nil {
 		return err
 	}
 	cal, err := o.calendar(sc.HoursDay, time.Now())
 	if err != nil {
 		return err
 	}
+	var p *plan.Plan
+	if o.planFile != "" {
+		b, err := fielderr.ReadRegular(o.planFile, maxPlanBytes)
+		if err != nil {
+			return usageError{fmt.Errorf("--plan %s: cannot read: %v", o.planFile, unwrapPathErr(err))}
+		}
+		p = &plan.Plan{}
+		if err := json.Unmarshal(b, p); err != nil || p.Schema != plan.SchemaVersion {
+			return usageError{fmt.Errorf("--plan %s: not a rigmix plan file (want schema %s)", o.planFile, plan.SchemaVersion)}
+		}
+	}
+	prog.set("starting the rigs")
 	fleet, rigs, err := startRigs(ctx, cfg, sc)
 	if err != nil {
 		return err
 	}
 	defer fleet.Close()
-	var p *plan.Plan
-	if o.planFile != "" {
-		b, err := os.ReadFile(o.planFile)
-		if err != nil {
-			return usageError{fmt.Errorf("%s: %v", o.planFile, err)}
-		}
-		p = &plan.Plan{}
-		if err := json.Unmarshal(b, p); err != nil || p.Schema != plan.SchemaVersion {
-			return usageError{fmt.Errorf("%s: not a rigmix plan file (want schema %s)", o.planFile, plan.SchemaVersion)}
-		}
-	} else {
+	if p == nil {
+		prog.set("planning")
 		p, err = plan.Run(ctx, plan.Input{Scenario: sc, RateBook: rb, Rigs: rigs}, plan.Options{GapRel: cfg.Gap, TimeLimit: cfg.TimeLimit, Threads: cfg.Threads})
 		if err != nil {
 			return err
 		}
+		if ctx.Err() != nil {
+			return errInterrupted
+		}
 	}
+	prog.set("scheduling and weather risk")
 	s, risk, err := o.build(ctx, p, sc, rb, rigs, cal)
 	if err != nil {
 		return err
 	}
-	outs := outputs{}
-	for _, w := range []struct {
-		path   string
-		render func(io.Writer, *schedule.Schedule) error
-	}{{o.csvOut, schedule.WriteCSV}, {o.ganttOut, schedule.WriteGanttSVG}, {o.stakeCSV, schedule.WriteStakeoutCSV}, {o.stakeGeoJSON, schedule.WriteStakeoutGeoJSON}} {
-		if w.path == "" {
+	for i, render := range []func(io.Writer, *schedule.Schedule) error{
+		schedule.WriteCSV, schedule.WriteGanttSVG, schedule.WriteStakeoutCSV, schedule.WriteStakeoutGeoJSON,
+	} {
+		if files[i] == nil {
 			continue
 		}
 		var b bytes.Buffer
-		if err := w.render(&b, s); err != nil {
+		if err := render(&b, s); err != nil {
 			return err
 		}
-		outs.add(w.path, b.Bytes())
+		files[i].setData(b.Bytes())
 	}
-	if err := outs.write(); err != nil {
-		return err
+	if jsonF != nil {
+		b, err := scheduleSummaryJSON(p, sc, s, risk)
+		if err != nil {
+			return err
+		}
+		jsonF.setData(b)
 	}
-	var b bytes.Buffer
-	fmt.Fprintf(&b, "rigmix schedule — %s (%s)%s\n\n", sc.Title, sc.Source, map[bool]string{true: " — invented demo data", false: ""}[sc.Demo])
-	if err := schedule.WriteText(&b, s); err != nil {
-		return err
+	prog.end()
+	if !o.quiet && !outs.toStdout() {
+		var b bytes.Buffer
+		fmt.Fprintf(&b, "rigmix schedule — %s (%s)%s\n\n", sc.Title, sc.Source, map[bool]string{true: " — invented demo data", false: ""}[sc.Demo])
+		if err := schedule.WriteText(&b, s); err != nil {
+			return err
+		}
+		b.WriteString("\n")
+		if err := schedule.WriteRiskText(&b, risk); err != nil {
+			return err
+		}
+		b.WriteString("\nCautions\n")
+		for _, c := range plan.Cautions {
+			fmt.Fprintf(&b, "  * %s\n", c)
+		}
+		outs.summary = b.Bytes()
 	}
-	b.WriteString("\n")
-	if err := schedule.WriteRiskText(&b, risk); err != nil {
-		return err
-	}
-	b.WriteString("\nCautions\n")
-	for _, c := range plan.Cautions {
-		fmt.Fprintf(&b, "  * %s\n", c)
-	}
-	_, err = stdout.Write(b.Bytes())
-	return err
+	return outs.commit(ctx)
 }
 
 // build schedules a plan and runs the weather and production risk.
@@ -216,12 +268,12 @@ func (o *scheduleOptions) build(ctx context.Context, p *plan.Plan, sc *scenarios
 // addCalendarFlags binds the calendar and risk flags shared by schedule and
 // report.
 func (o *scheduleOptions) addCalendarFlags(f *pflag.FlagSet) {
-	f.StringVar(&o.start, "start", "", "first field day, YYYY-MM-DD (default: the next Monday after today)")
-	f.StringVar(&o.workStart, "work-start", "07:00", "start of the working day, HH:MM")
-	f.StringVar(&o.workDays, "work-days", "mon-fri", "days worked: mon-fri, mon-sat or all")
-	f.StringVar(&o.wetDates, "wet-dates", "", "comma-separated dates (YYYY-MM-DD) known or assumed wet")
-	f.StringVar(&o.wetProb, "wet-prob", "", "probability a day is wet, one value for every month or twelve comma-separated values from January")
-	f.Uint64Var(&o.seed, "seed", 1, "seed of the weather and production Monte Carlo")
-	f.IntVar(&o.runs, "runs", 1000, "Monte Carlo runs")
-	f.Float64Var(&o.cv, "production-cv", 0.2, "coefficient of variation of hours on points")
+	f.StringVar(&o.start, "start", "", "first field day, `YYYY-MM-DD` (default: the next Monday after today)")
+	f.StringVar(&o.workStart, "work-start", "07:00", "start of the working day, `HH:MM`")
+	f.StringVar(&o.workDays, "work-days", "mon-fri", "`DAYS` worked: mon-fri, mon-sat or all")
+	f.StringVar(&o.wetDates, "wet-dates", "", "comma-separated `DATES` (YYYY-MM-DD) known or assumed wet")
+	f.StringVar(&o.wetProb, "wet-prob", "", "`P`robability a day is wet, one value for every month or twelve comma-separated values from January")
+	f.Uint64Var(&o.seed, "seed", 1, "`SEED` of the weather and production Monte Carlo")
+	f.IntVar(&o.runs, "runs", 1000, "Monte Carlo runs, `N` (at most 1,000,000)")
+	f.Float64Var(&o.cv, "production-cv", 0.2, "coefficient of variation (`CV`) of hours on points")
 }

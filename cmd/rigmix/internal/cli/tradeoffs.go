@@ -6,7 +6,9 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"math"
 	"strings"
+	"time"
 
 	"github.com/spf13/cobra"
 
@@ -30,6 +32,7 @@ type tradeoffOptions struct {
 	ruleCSV   string
 	frontierN int
 	budgetN   int
+	quiet     bool
 }
 
 func newTradeoffsCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -43,37 +46,45 @@ func newTradeoffsCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command 
 			if err != nil {
 				return err
 			}
-			return runTradeoffs(cmd.Context(), cfg, o, args, stdout)
+			return runTradeoffs(cmd.Context(), cfg, o, args, stdout, stderr)
 		},
 	}
 	f := c.Flags()
-	f.StringVar(&o.demo, "demo", "", "analyse an embedded demo scenario by name")
-	f.String("rate-book", "", "price with this rate book (demo name or file) instead of the scenario's")
-	f.StringVar(&o.rateBooks, "compare-rate-books", "", "comma-separated further rate books (demo names or files) to price the cheapest plan under")
-	f.Float64Var(&o.budget, "budget", 0, "budget for the most-coverage alternative (default: 75% of the cheapest plan)")
-	f.Float64Var(&o.featureFt, "feature-diameter", 0, "plan diameter in ft of the buried feature whose chance of a miss is shown (default 20)")
-	f.IntVar(&o.frontierN, "frontier-points", 0, "most points on the cost–days frontier")
-	f.IntVar(&o.budgetN, "budget-points", 0, "budgets on the budget–coverage curve")
-	f.Float64("gap", 0, "relative gap every solve stops at (default 0.005)")
-	f.StringVar(&o.jsonOut, "json", "", "write the whole analysis as JSON to this file")
-	f.StringVar(&o.altCSV, "alternatives-csv", "", "write the alternatives table as CSV")
-	f.StringVar(&o.frontCSV, "frontier-csv", "", "write the cost–days frontier as CSV")
-	f.StringVar(&o.frontSVG, "frontier-svg", "", "write the cost–days frontier chart as SVG")
-	f.StringVar(&o.budgetCSV, "budget-csv", "", "write the budget–coverage curve as CSV")
-	f.StringVar(&o.budgetSVG, "budget-svg", "", "write the budget–coverage chart as SVG")
-	f.StringVar(&o.ruleCSV, "rule-costs-csv", "", "write what each rule costs as CSV")
+	f.StringVar(&o.demo, "demo", "", "analyse the embedded demo scenario `NAME`")
+	f.String("rate-book", "", "price with this rate `BOOK` (demo name or file) instead of the scenario's")
+	f.StringVar(&o.rateBooks, "compare-rate-books", "", "comma-separated further rate `BOOKS` (demo names or files) to price the cheapest plan under")
+	f.Float64Var(&o.budget, "budget", 0, "`AMOUNT` for the most-coverage alternative (default: 75% of the cheapest plan)")
+	f.Float64Var(&o.featureFt, "feature-diameter", 0, "plan diameter in `FT` of the buried feature whose chance of a miss is shown (default 20)")
+	f.IntVar(&o.frontierN, "frontier-points", 0, "most points on the cost–days frontier, `N` (at most 100; default 12)")
+	f.IntVar(&o.budgetN, "budget-points", 0, "budgets on the budget–coverage curve, `N` (at most 100; default 8)")
+	f.Float64("gap", 0, "relative `GAP` every solve stops at (default 0.005)")
+	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
+	f.StringVar(&o.jsonOut, "json", "", "write the whole analysis as JSON to `FILE` (- for standard output)")
+	f.StringVar(&o.altCSV, "alternatives-csv", "", "write the alternatives table as CSV to `FILE`")
+	f.StringVar(&o.frontCSV, "frontier-csv", "", "write the cost–days frontier as CSV to `FILE`")
+	f.StringVar(&o.frontSVG, "frontier-svg", "", "write the cost–days frontier chart as SVG to `FILE`")
+	f.StringVar(&o.budgetCSV, "budget-csv", "", "write the budget–coverage curve as CSV to `FILE`")
+	f.StringVar(&o.budgetSVG, "budget-svg", "", "write the budget–coverage chart as SVG to `FILE`")
+	f.StringVar(&o.ruleCSV, "rule-costs-csv", "", "write what each rule costs as CSV to `FILE`")
 	return c
 }
 
-func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []string, stdout io.Writer) error {
-	sc, rb, err := loadInputs(cfg, o.demo, args)
+func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []string, stdout, stderr io.Writer) error {
+	if err := o.validate(); err != nil {
+		return err
+	}
+	prog := startProgress(stderr, "tradeoffs", !o.quiet && isTerminal(stderr), time.Second)
+	defer prog.end()
+	prog.set("loading")
+	sc, rb, inputs, err := loadInputs(cfg, o.demo, args)
 	if err != nil {
 		return err
 	}
 	var extra []*ratebooks.RateBook
 	if o.rateBooks != "" {
 		for _, name := range strings.Split(o.rateBooks, ",") {
-			b, err := loadRateBook(strings.TrimSpace(name), ".")
+			name = strings.TrimSpace(name)
+			b, err := loadRateBook(name, ".")
 			if err != nil {
 				return err
 			}
@@ -81,14 +92,44 @@ func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []st
 				return usageError{fmt.Errorf("--compare-rate-books: %s prices in %s, %s in %s; compare rate books in one currency", b.Name, b.Currency, rb.Name, rb.Currency)}
 			}
 			extra = append(extra, b)
+			if !isDemoRateBook(name) {
+				inputs = append(inputs, name)
+			}
 		}
 	}
+	outs := &outputs{stdout: stdout}
+	type render func(w io.Writer) error
+	var an *tradeoff.Analysis
+	files := []struct {
+		out    *output
+		render render
+	}{
+		{outs.add("--alternatives-csv", o.altCSV), func(w io.Writer) error { return tradeoff.WriteAlternativesCSV(w, an.Alternatives) }},
+		{outs.add("--frontier-csv", o.frontCSV), func(w io.Writer) error { return tradeoff.WriteFrontierCSV(w, an.Frontier) }},
+		{outs.add("--frontier-svg", o.frontSVG), func(w io.Writer) error { return tradeoff.WriteFrontierSVG(w, an.Frontier) }},
+		{outs.add("--budget-csv", o.budgetCSV), func(w io.Writer) error { return tradeoff.WriteBudgetCSV(w, an.Budget) }},
+		{outs.add("--budget-svg", o.budgetSVG), func(w io.Writer) error { return tradeoff.WriteBudgetSVG(w, an.Budget) }},
+		{outs.add("--rule-costs-csv", o.ruleCSV), func(w io.Writer) error { return tradeoff.WriteRuleCostsCSV(w, an.RuleCosts) }},
+		{outs.add("--json", o.jsonOut), func(w io.Writer) error {
+			b, err := json.MarshalIndent(an, "", "  ")
+			if err != nil {
+				return err
+			}
+			_, err = w.Write(append(b, '\n'))
+			return err
+		}},
+	}
+	if err := outs.check(inputs); err != nil {
+		return err
+	}
+	prog.set("starting the rigs")
 	fleet, rigs, err := startRigs(ctx, cfg, sc)
 	if err != nil {
 		return err
 	}
 	defer fleet.Close()
-	an, err := tradeoff.Analyze(ctx, tradeoff.Config{
+	prog.set("planning the alternatives, the frontier, the budget curve and the rule costs")
+	an, err = tradeoff.Analyze(ctx, tradeoff.Config{
 		Input:       plan.Input{Scenario: sc, RateBook: rb, Rigs: rigs},
 		PlanOptions: plan.Options{Threads: cfg.Threads},
 		RateBooks:   extra, Budget: o.budget, FeatureDiameterFt: o.featureFt,
@@ -98,49 +139,56 @@ func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []st
 	if err != nil {
 		return err
 	}
-	outs := outputs{}
-	for _, w := range []struct {
-		path   string
-		render func(io.Writer) error
-	}{
-		{o.altCSV, func(w io.Writer) error { return tradeoff.WriteAlternativesCSV(w, an.Alternatives) }},
-		{o.frontCSV, func(w io.Writer) error { return tradeoff.WriteFrontierCSV(w, an.Frontier) }},
-		{o.frontSVG, func(w io.Writer) error { return tradeoff.WriteFrontierSVG(w, an.Frontier) }},
-		{o.budgetCSV, func(w io.Writer) error { return tradeoff.WriteBudgetCSV(w, an.Budget) }},
-		{o.budgetSVG, func(w io.Writer) error { return tradeoff.WriteBudgetSVG(w, an.Budget) }},
-		{o.ruleCSV, func(w io.Writer) error { return tradeoff.WriteRuleCostsCSV(w, an.RuleCosts) }},
-		{o.jsonOut, func(w io.Writer) error {
-			b, err := json.MarshalIndent(an, "", "  ")
-			if err != nil {
-				return err
-			}
-			_, err = w.Write(append(b, '\n'))
-			return err
-		}},
-	} {
-		if w.path == "" {
+	if ctx.Err() != nil {
+		// The analysis stops early on a signal with what it has; those
+		// are not the numbers asked for.
+		return errInterrupted
+	}
+	for _, f := range files {
+		if f.out == nil {
 			continue
 		}
 		var b bytes.Buffer
-		if err := w.render(&b); err != nil {
+		if err := f.render(&b); err != nil {
 			return err
 		}
-		outs.add(w.path, b.Bytes())
+		f.out.setData(b.Bytes())
 	}
-	if err := outs.write(); err != nil {
-		return err
+	prog.end()
+	if !o.quiet && !outs.toStdout() {
+		var b bytes.Buffer
+		fmt.Fprintf(&b, "rigmix tradeoffs — %s (%s)%s\n\n", sc.Title, sc.Source, map[bool]string{true: " — invented demo data", false: ""}[sc.Demo])
+		if err := an.WriteText(&b); err != nil {
+			return err
+		}
+		b.WriteString("\nCautions\n")
+		for _, c := range plan.Cautions {
+			fmt.Fprintf(&b, "  * %s\n", c)
+		}
+		outs.summary = b.Bytes()
 	}
-	var b bytes.Buffer
-	fmt.Fprintf(&b, "rigmix tradeoffs — %s (%s)%s\n\n", sc.Title, sc.Source, map[bool]string{true: " — invented demo data", false: ""}[sc.Demo])
-	if err := an.WriteText(&b); err != nil {
-		return err
+	return outs.commit(ctx)
+}
+
+// Caps on the count flags: each frontier point and each budget is a solve.
+const (
+	maxFrontierPoints = 100
+	maxBudgetPoints   = 100
+)
+
+// validate refuses flag values that are out of range or not finite.
+func (o *tradeoffOptions) validate() error {
+	switch {
+	case math.IsNaN(o.budget) || math.IsInf(o.budget, 0) || o.budget < 0:
+		return usageError{fmt.Errorf("--budget: must be a finite amount ≥ 0 (0: 75%% of the cheapest plan), got %g", o.budget)}
+	case math.IsNaN(o.featureFt) || math.IsInf(o.featureFt, 0) || o.featureFt < 0:
+		return usageError{fmt.Errorf("--feature-diameter: must be a finite number of feet ≥ 0 (0: the default, 20), got %g", o.featureFt)}
+	case o.frontierN < 0 || o.frontierN > maxFrontierPoints:
+		return usageError{fmt.Errorf("--frontier-points: must be 0 (the default) to %d, got %d", maxFrontierPoints, o.frontierN)}
+	case o.budgetN < 0 || o.budgetN > maxBudgetPoints:
+		return usageError{fmt.Errorf("--budget-points: must be 0 (the default) to %d, got %d", maxBudgetPoints, o.budgetN)}
 	}
-	b.WriteString("\nCautions\n")
-	for _, c := range plan.Cautions {
-		fmt.Fprintf(&b, "  * %s\n", c)
-	}
-	_, err = stdout.Write(b.Bytes())
-	return err
+	return nil
 }
 
 // addTradeoffs fills the report's alternatives table, frontier and budget
