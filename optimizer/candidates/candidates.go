@@ -16,6 +16,11 @@
 // reduction, e.g. Garfinkel and Nemhauser, Integer Programming, 1972 —
 // from memory).
 //
+// Cells see the ground at sample spots only; optimizer/plan checks every
+// plan against the exact farthest ground (geom.FarthestBySite) and adds
+// rows where the cells missed. Demand points along each zone's outline
+// (Layout.EdgePoints) spare it most of those rounds.
+//
 // The package takes plain data and gives plain data: no files, no
 // scenario types. Output is deterministic, in zone order and lattice order.
 package candidates

@@ -105,9 +105,9 @@ type Summary struct {
 	// WeightedCoveredPct weighs each cell by its zone's priority and counts
 	// only ground some allowed point can reach (the budget curve's measure).
 	WeightedCoveredPct float64 `json:"weighted_covered_percent"`
-	// LargestGapFt is the largest distance from a coverage cell centre to
-	// the nearest chosen point of its zone; nil when a zone under a spacing
-	// rule has no point at all (GapNote names it).
+	// LargestGapFt is the exact farthest ground of any ruled zone from
+	// the nearest chosen point of the zone; nil when a zone under a
+	// spacing rule has no point at all (GapNote names it).
 	LargestGapFt  *float64   `json:"largest_gap_ft"`
 	GapNote       string     `json:"largest_gap_note,omitempty"`
 	RulesMet      int        `json:"rules_met"`
@@ -259,33 +259,22 @@ func weightedCovered(pr *plan.Prepared, chosen []bool) float64 {
 	return 100 * got / all
 }
 
-// largestGap is the largest distance from a coverage cell centre to the
-// nearest chosen point of its zone.
+// largestGap is the exact farthest ground of any zone under a spacing rule
+// (or an implied one) from the zone's nearest chosen point
+// (plan.Prepared.ExactReach).
 func largestGap(pr *plan.Prepared, chosen []bool) (*float64, string) {
-	lay := pr.Layout
 	zones := pr.In.Scenario.Zones
-	pts := make([][]geom.Point, len(zones))
-	for q, c := range lay.Candidates {
-		if chosen[q] {
-			pts[c.Zone] = append(pts[c.Zone], c.P)
-		}
-	}
 	worst := 0.0
 	var empty []string
-	seen := map[int]bool{}
-	for _, c := range lay.Cells {
-		if len(pts[c.Zone]) == 0 {
-			if !seen[c.Zone] {
-				seen[c.Zone] = true
-				empty = append(empty, zones[c.Zone].ID)
-			}
+	for z, s := range pr.ExactReach(chosen) {
+		if pr.Layout.RadiusFt[z] == 0 {
 			continue
 		}
-		best := math.Inf(1)
-		for _, q := range pts[c.Zone] {
-			best = math.Min(best, math.Hypot(q.X-c.P.X, q.Y-c.P.Y))
+		if s.Site < 0 || math.IsInf(s.Dist, 1) {
+			empty = append(empty, zones[z].ID)
+			continue
 		}
-		worst = math.Max(worst, best)
+		worst = math.Max(worst, s.Dist)
 	}
 	if len(empty) > 0 {
 		return nil, fmt.Sprintf("no point in zone %s", joinComma(empty))
