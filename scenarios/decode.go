@@ -66,7 +66,9 @@ var (
 	surfaces = []string{string(sdk.Firm), string(sdk.Soft), string(sdk.Wet)}
 	methods  = []string{string(sdk.Boring), string(sdk.CPT), string(sdk.Probe), string(sdk.TestPit)}
 	lattices = []string{string(Square), string(Triangular)}
-	loads    = []string{"heavy", "light"}
+	// spacingMeanings are the readings of max_spacing (Rules.SpacingMeans).
+	spacingMeanings = []string{SpacingGrid, SpacingRadius}
+	loads           = []string{"heavy", "light"}
 )
 
 // decoder turns the merged settings (viper's view of file, environment and
@@ -946,6 +948,11 @@ func (d *decoder) rules(m map[string]any, p string, z *Zone) (Rules, error) {
 	}
 	if r.Corners, hasCorners, err = d.boolean(m, p, "corners"); err != nil {
 		return r, err
+	}
+	if sm, ok, err := d.choice(m, p, "spacing_means", spacingMeanings); err != nil {
+		return r, err
+	} else if ok {
+		r.SpacingMeans = sm
 	}
 	noSpread, hasSpread := false, false
 	if noSpread, hasSpread, err = d.boolean(m, p, "spread"); err != nil {

@@ -18,6 +18,7 @@ import (
 	"github.com/rigmix/rigmix/optimizer/geom"
 	"github.com/rigmix/rigmix/optimizer/lab"
 	"github.com/rigmix/rigmix/plugins/sdk"
+	"math"
 )
 
 // Scenario is a loaded and validated scenario.
@@ -152,6 +153,11 @@ type Rules struct {
 	// schedule (sdk.DefaultSampleSchedule) when that is 0 too.
 	SampleSchedule []sdk.SampleBand
 	Corners        bool // a point is required at each polygon corner
+	// SpacingMeans is how MaxSpacingFt is read: SpacingGrid ("" too), the
+	// spacing of a square or triangular pattern, whose covering radius
+	// every spot must lie within; or SpacingRadius, the largest distance
+	// from any spot to a point.
+	SpacingMeans string
 	// NoSpread turns off the implied spacing a count or area-per-point
 	// rule without a spacing rule gets (the file's "spread: false").
 	NoSpread       bool
@@ -175,6 +181,28 @@ type Rules struct {
 // that one does not stand in the other's disturbed ground and two zones
 // sharing an edge do not both drill the same spot (common practice).
 const DefaultMinSeparationFt = 5.0
+
+// Readings of a spacing rule (Rules.SpacingMeans).
+const (
+	SpacingGrid   = "grid"
+	SpacingRadius = "radius"
+)
+
+// SpacingRadiusFt is the covering radius a spacing rule holds every spot
+// of its zone to: for the grid reading, the lattice's covering radius (s/√2
+// square, s/√3 triangular — plane geometry); for the radius reading, s
+// itself; 0 without a spacing rule.
+func (r Rules) SpacingRadiusFt() float64 {
+	switch {
+	case r.MaxSpacingFt <= 0:
+		return 0
+	case r.SpacingMeans == SpacingRadius:
+		return r.MaxSpacingFt
+	case r.Lattice == Square:
+		return r.MaxSpacingFt / math.Sqrt2
+	}
+	return r.MaxSpacingFt / math.Sqrt(3)
+}
 
 // PointHow fixes how a required point is explored.
 type PointHow struct {

@@ -125,6 +125,7 @@ var schema = mapping(map[string]*keys{
 			})),
 			"corners":         leaf,
 			"spread":          leaf,
+			"spacing_means":   leaf,
 			"required_points": leaf,
 			"source":          leaf,
 		}),

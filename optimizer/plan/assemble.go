@@ -269,10 +269,14 @@ func (pr *Prepared) ruleChecks(count, sampled []int, minDepth []float64, farthes
 			if lat == "" {
 				lat = "triangular"
 			}
-			radius := geom.CoveringRadius(string(lat), r.MaxSpacingFt)
+			radius := r.SpacingRadiusFt()
+			reading := fmt.Sprintf("%s spacing %.0f ft", lat, r.MaxSpacingFt)
+			if r.SpacingMeans == scenarios.SpacingRadius {
+				reading = fmt.Sprintf("spacing %.0f ft read as the largest distance to a point", r.MaxSpacingFt)
+			}
 			f := farthest[z]
 			rc := RuleCheck{Zone: zn.ID, Rule: "max spacing",
-				Required: fmt.Sprintf("every spot of the zone within %.1f ft of a point (%s spacing %.0f ft)", radius, lat, r.MaxSpacingFt),
+				Required: fmt.Sprintf("every spot of the zone within %.1f ft of a point (%s)", radius, reading),
 				Met:      f.Site >= 0 && f.Dist <= radius+coverTol(radius), Source: r.Source}
 			if f.Site >= 0 {
 				rc.Achieved = fmt.Sprintf("farthest ground %.1f ft from a point, at %s", f.Dist, spotText(f.At))

@@ -64,6 +64,8 @@ func sampledGap(zone geom.Polygon, nogo []geom.Polygon, pts []geom.Point, h floa
 func radiusOf(zn scenarios.Zone, n int) float64 {
 	r := zn.Rules
 	switch {
+	case r.MaxSpacingFt > 0 && r.SpacingMeans == scenarios.SpacingRadius:
+		return r.MaxSpacingFt
 	case r.MaxSpacingFt > 0 && r.Lattice == scenarios.Square:
 		return r.MaxSpacingFt / math.Sqrt2
 	case r.MaxSpacingFt > 0:
@@ -241,6 +243,7 @@ func TestAwkwardZones(t *testing.T) {
 		{"shared edge", zoneYAML("A", poly(0, 0, 200, 0, 200, 200, 0, 200), "max_spacing: 150") +
 			zoneYAML("B", poly(200, 0, 400, 0, 400, 200, 200, 200), "max_spacing: 100, lattice: square"), ""},
 		{"count only", zoneYAML("C", poly(0, 0, 600, 0, 600, 120, 0, 120), "min_points: 3"), ""},
+		{"spacing read as a radius", zoneYAML("R", poly(0, 0, 500, 0, 500, 300, 0, 300), "max_spacing: 120, spacing_means: radius"), ""},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {

@@ -182,6 +182,10 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 	for z, zn := range sc.Zones {
 		cand := 0.0
 		spacing, lattice := zn.Rules.MaxSpacingFt, string(zn.Rules.Lattice)
+		if zn.Rules.SpacingMeans == scenarios.SpacingRadius && spacing > 0 {
+			// The radius itself: a square pattern of spacing r·√2 has it.
+			spacing, lattice = zn.Rules.SpacingRadiusFt()*math.Sqrt2, string(scenarios.Square)
+		}
 		if spacing == 0 && zn.Rules.AreaPerPointFt2 > 0 {
 			// No spacing rule: lay candidates at half the spacing of a
 			// square grid with one point per the rule's area.
