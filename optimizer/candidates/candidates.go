@@ -37,9 +37,9 @@ import (
 
 // Defaults for Options fields left at zero.
 const (
-	DefaultCandidateFraction = 0.5  // candidates at half the rule spacing (PRODUCT.md: "a fraction of the rule's spacing")
-	DefaultCellFraction      = 0.25 // cells four to a spacing: a cell's own extent, ≤ s/4·√2/2, is small beside the covering radius s/√2
-	DefaultBoundaryStep      = 0.5  // boundary candidates at half the spacing, as dense as the interior
+	DefaultCandidateFraction = 0.5   // candidates at half the rule spacing (PRODUCT.md: "a fraction of the rule's spacing")
+	DefaultCellFraction      = 0.125 // cells eight to a spacing: a cell centre is within s/8·√2/2 of all its ground, so few spots escape the cells (see optimizer/plan/exact.go)
+	DefaultBoundaryStep      = 0.5   // boundary candidates at half the spacing, as dense as the interior
 )
 
 // defaultZoneCandidates is the number of candidates a zone with neither a

@@ -59,13 +59,14 @@ func zoneAreas(l *Layout, n int) []float64 {
 }
 
 func TestSquareZone(t *testing.T) {
-	// 200 × 200 ft zone, 100-ft square spacing rule, defaults. Hand
+	// 200 × 200 ft zone, 100-ft square spacing rule, cells at a quarter
+	// of the spacing (the default is an eighth). Hand
 	// computation: candidate spacing 50 ft centred in the box gives
 	// 4 × 4 lattice points at 25, 75, 125, 175; each 200-ft edge is cut
 	// into four 50-ft pieces, 16 boundary points; 32 candidates. Cells at
 	// 25 ft: 8 × 8 = 64, each 40,000/64 = 625 ft² (shoelace formula, hand
 	// computation: 200 × 200 = 40,000 ft²). Radius 100/√2 (plane geometry).
-	l, err := Generate([]ZoneInput{{ID: "pad", Polygon: square(0, 0, 200, 200), SpacingFt: 100, Lattice: geom.Square}}, nil, Options{})
+	l, err := Generate([]ZoneInput{{ID: "pad", Polygon: square(0, 0, 200, 200), SpacingFt: 100, Lattice: geom.Square}}, nil, Options{CellFraction: 0.25})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -130,7 +131,7 @@ func TestAreaSharesSumToPolygon(t *testing.T) {
 		{ID: "tri", Polygon: geom.Polygon{{X: 1000, Y: 0}, {X: 1400, Y: 0}, {X: 1000, Y: 300}}, SpacingFt: 60, Lattice: geom.Triangular, Weight: 3},
 		{ID: "strip", Polygon: square(0, 1000, 1000, 1010), SpacingFt: 100},
 	}
-	l, err := Generate(zs, []geom.Polygon{square(1050, 50, 1150, 150)}, Options{})
+	l, err := Generate(zs, []geom.Polygon{square(1050, 50, 1150, 150)}, Options{CellFraction: 0.25})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -308,7 +309,7 @@ func TestCellAreasClipped(t *testing.T) {
 	// 87.5, tiling the height. End-column cells 17.5 × 25 = 437.5 ft²,
 	// others 625 ft²; per row 2·437.5 + 7·625 = 5,250, ×4 = 21,000 =
 	// 210 × 100 (shoelace formula), so no scaling.
-	l, err := Generate([]ZoneInput{{ID: "strip", Polygon: square(0, 0, 210, 100), SpacingFt: 100}}, nil, Options{})
+	l, err := Generate([]ZoneInput{{ID: "strip", Polygon: square(0, 0, 210, 100), SpacingFt: 100}}, nil, Options{CellFraction: 0.25})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -24,5 +24,5 @@ func ExampleGenerate() {
 	}
 	fmt.Printf("radius %.1f ft, %d candidates, %d cells (%d uncoverable) of %.0f ft², %d covering rows\n",
 		l.RadiusFt[0], len(l.Candidates), len(l.Cells), len(l.Uncoverable), area, len(l.RowCells))
-	// Output: radius 70.7 ft, 28 candidates, 64 cells (0 uncoverable) of 40000 ft², 20 covering rows
+	// Output: radius 70.7 ft, 28 candidates, 252 cells (4 uncoverable) of 39375 ft², 20 covering rows
 }

@@ -14,6 +14,13 @@ import (
 // machine.
 const coverNodeLimit = 20000
 
+// recoverNodeLimit bounds the search when a zone's covering number is
+// raised after exact-coverage rows were added (raiseCoverNumbers): the
+// number is then the bound rounded up, still a valid lower bound, and the
+// incumbent is still a cover for the start; the full search there is
+// repeated round after round, so it is kept short.
+const recoverNodeLimit = 50
+
 // coverNumbers computes, for every zone, a lower bound on how many points
 // any plan must place there to meet the spacing rule: the optimum (or the
 // proven bound, rounded up) of the unit-cost set-covering problem over the
@@ -62,7 +69,7 @@ func coverNumbers(ctx context.Context, pr *Prepared, spec *model.Spec) ([]int, [
 		if len(rowsByZone[z]) == 0 {
 			continue
 		}
-		k, set, err := coverNumber(ctx, spec, z, rowsByZone[z], ptsByZone[z])
+		k, set, err := coverNumber(ctx, spec, z, rowsByZone[z], ptsByZone[z], coverNodeLimit)
 		if err != nil {
 			return nil, nil, err
 		}
@@ -71,7 +78,7 @@ func coverNumbers(ctx context.Context, pr *Prepared, spec *model.Spec) ([]int, [
 	return out, sets, nil
 }
 
-func coverNumber(ctx context.Context, spec *model.Spec, z int, rows [][]int, pts []int) (int, []int, error) {
+func coverNumber(ctx context.Context, spec *model.Spec, z int, rows [][]int, pts []int, nodeLimit int) (int, []int, error) {
 	col := make(map[int]int, len(pts))
 	for j, p := range pts {
 		col[p] = j
@@ -118,7 +125,7 @@ func coverNumber(ctx context.Context, spec *model.Spec, z int, rows [][]int, pts
 		}
 		P.ColStart[j+1] = len(P.RowIndex)
 	}
-	res, err := mip.Solve(ctx, prob, mip.Options{NodeLimit: coverNodeLimit})
+	res, err := mip.Solve(ctx, prob, mip.Options{NodeLimit: nodeLimit})
 	if err != nil {
 		return 0, nil, err
 	}

@@ -259,7 +259,7 @@ func (pr *Prepared) raiseCoverNumbers(spec *model.Spec, spots []zoneSpot) error 
 		if !touched[z] || len(rowsByZone[z]) == 0 {
 			continue
 		}
-		k, set, err := coverNumber(context.Background(), spec, z, rowsByZone[z], ptsByZone[z])
+		k, set, err := coverNumber(context.Background(), spec, z, rowsByZone[z], ptsByZone[z], recoverNodeLimit)
 		if err != nil {
 			return err
 		}
