@@ -117,6 +117,11 @@ type zoneSpot struct {
 // point, the farthest ground of its Voronoi region if that is too far; for
 // a ruled zone with no point at all, its first vertex.
 func (pr *Prepared) uncovered(chosen []bool) []zoneSpot {
+	return pr.uncoveredIn(chosen, nil)
+}
+
+// uncoveredIn is uncovered for the zones marked in only (nil: all).
+func (pr *Prepared) uncoveredIn(chosen []bool, only []bool) []zoneSpot {
 	pts, _ := pr.zonePoints(chosen)
 	// Only zones whose spacing rule the model holds: a variant that drops
 	// a zone's rule (a rule cost, the minimal program) drops its rows.
@@ -131,7 +136,7 @@ func (pr *Prepared) uncovered(chosen []bool) []zoneSpot {
 	var out []zoneSpot
 	for z := range pts {
 		r := pr.Layout.RadiusFt[z]
-		if r == 0 || !active[z] {
+		if r == 0 || !active[z] || (only != nil && !only[z]) {
 			continue
 		}
 		g := pr.Ground(z)
@@ -366,7 +371,19 @@ func (pr *Prepared) completeCoverage(ctx context.Context, res *mip.Result, opt m
 		spots := cur.uncovered(cur.chosen(res.X))
 		stop := cr.Rounds+1 >= maxCoverRounds || ctx.Err() != nil || (!deadline.IsZero() && time.Until(deadline) <= 0)
 		if len(spots) == 0 {
-			if tight || stop {
+			if tight || (res.Status == mip.Optimal && res.Gap <= opt.GapRel) {
+				// Proven to the gap asked for (a loose solve often is).
+				return cur, res, cr, nil
+			}
+			if stop {
+				// A loose solve's "optimal" is not the gap asked for: say
+				// why the search ended short of it.
+				if res.Status == mip.Optimal {
+					res.Status = mip.TimeLimit
+					if ctx.Err() != nil {
+						res.Status = mip.Interrupted
+					}
+				}
 				return cur, res, cr, nil
 			}
 			// The plan meets every rule: prove it, or a better one, to
@@ -453,21 +470,32 @@ func MapStart(old, nu *model.Model, x []float64) []float64 { return mapStart(old
 // are are used: a spot none reaches is left to the full rounds.
 func (pr *Prepared) preloadRows(ctx context.Context) error {
 	spec := pr.Spec
+	byZone := make([][]int, len(pr.In.Scenario.Zones))
+	for q, c := range pr.Layout.Candidates {
+		byZone[c.Zone] = append(byZone[c.Zone], q)
+	}
+	// Zones still to check: all at first, then those that got rows.
+	todo := make([]bool, len(byZone))
+	for z := range todo {
+		todo[z] = true
+	}
 	for round := 0; round < maxCoverRounds; round++ {
 		if ctx.Err() != nil {
 			return ctx.Err()
 		}
 		chosen := make([]bool, len(pr.Layout.Candidates))
-		for _, set := range pr.CoverSets {
-			for _, p := range set {
-				chosen[p] = true
+		for z, set := range pr.CoverSets {
+			if todo[z] {
+				for _, p := range set {
+					chosen[p] = true
+				}
 			}
 		}
-		spots := pr.uncovered(chosen)
+		spots := pr.uncoveredIn(chosen, todo)
 		var kept []zoneSpot
 		seen := map[string]bool{}
 		for _, s := range spots {
-			row := pr.rowFor(s)
+			row := pr.rowFor(s, byZone[s.Zone])
 			if len(row) == 0 {
 				continue
 			}
@@ -482,6 +510,10 @@ func (pr *Prepared) preloadRows(ctx context.Context) error {
 		if len(kept) == 0 {
 			return nil
 		}
+		clear(todo)
+		for _, s := range kept {
+			todo[s.Zone] = true
+		}
 		if err := pr.raiseCoverNumbers(spec, kept); err != nil {
 			return err
 		}
@@ -489,13 +521,13 @@ func (pr *Prepared) preloadRows(ctx context.Context) error {
 	return nil
 }
 
-// rowFor lists the candidates of the spot's zone within its covering
-// radius.
-func (pr *Prepared) rowFor(s zoneSpot) []int {
+// rowFor lists the candidates (of cands, the spot's zone's) within the
+// zone's covering radius of the spot.
+func (pr *Prepared) rowFor(s zoneSpot, cands []int) []int {
 	r := pr.Layout.RadiusFt[s.Zone] * (1 - 1e-9)
 	var row []int
-	for q, c := range pr.Layout.Candidates {
-		if c.Zone == s.Zone && c.P.Dist(s.At) <= r {
+	for _, q := range cands {
+		if pr.Layout.Candidates[q].P.Dist(s.At) <= r {
 			row = append(row, q)
 		}
 	}

@@ -72,7 +72,7 @@ func TestStartSolutionIsAPlan(t *testing.T) {
 				t.Fatal("the start breaks a row, bound or integrality of the full model")
 			}
 			if name[:3] == "gen" {
-				res, err := mip.Solve(ctx, pr.Model.Problem, mip.Options{GapRel: 0.01, Start: start})
+				res, err := mip.Solve(ctx, pr.Model.Problem, mip.Options{GapRel: 0.01, Start: start, NodeLimit: 200})
 				if err != nil || res.X == nil {
 					t.Fatalf("solve from the start: %v %v", res.Status, err)
 				}
