@@ -82,3 +82,26 @@ func (pr *Prepared) StartSolution(ctx context.Context, gapRel float64, timeLimit
 	}
 	return res.X
 }
+
+// BestStart is the cheaper of StartSolution and the hand-laid baseline
+// (baseline.go), which is a plan of the model too: starting from it, the
+// solve can only end at a plan no dearer than the baseline.
+func (pr *Prepared) BestStart(ctx context.Context, gapRel float64, timeLimit time.Duration) []float64 {
+	start := pr.StartSolution(ctx, gapRel, timeLimit)
+	hb := pr.baseline()
+	if hb == nil || pr.Spec.MaximizeCoverage {
+		return start
+	}
+	if start == nil || objective(pr.Model.Problem, hb.start) < objective(pr.Model.Problem, start) {
+		return hb.start
+	}
+	return start
+}
+
+func objective(p *mip.Problem, x []float64) float64 {
+	v := 0.0
+	for j, c := range p.LP.Obj {
+		v += c * x[j]
+	}
+	return v
+}

@@ -1,0 +1,112 @@
+package plan
+
+import (
+	"context"
+	"math"
+	"testing"
+	"time"
+
+	"github.com/rigmix/rigmix/optimizer/schedule"
+	"github.com/rigmix/rigmix/scenarios"
+	"github.com/rigmix/rigmix/scenarios/sitegen"
+)
+
+// oneCountCases are every demo (scenarios embeds them) and generated sites
+// of 1 and 10 acres.
+type namedInput struct {
+	name string
+	in   Input
+}
+
+func oneCountCases(t *testing.T) []namedInput {
+	var cases []namedInput
+	for _, n := range scenarios.Demos() {
+		cases = append(cases, namedInput{n, demoInput(t, n)})
+	}
+	cases = append(cases, namedInput{"generated-1-acre", generatedInput(t, sitegen.Site(1, 1))},
+		namedInput{"generated-10-acres", generatedInput(t, sitegen.Site(10, 1))})
+	return cases
+}
+
+// TestOnePriceOneDayCount: the optimized cost is the printed estimate's
+// total to the cent, and the field days the plan promises are the days
+// schedule.Build lays for the same plan — each found by its own route: the
+// cost from the solver's columns (model.Decode) against the estimate's lines
+// summed from the rate book; the days from the model's integer day columns
+// against the scheduler laying every stretch into working days on a
+// calendar.
+func TestOnePriceOneDayCount(t *testing.T) {
+	ctx := context.Background()
+	for _, c := range oneCountCases(t) {
+		name, in := c.name, c.in
+		t.Run(name, func(t *testing.T) {
+			pr, err := Prepare(ctx, in, Options{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			res, err := pr.Solve(ctx, Options{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			p, err := pr.Assemble(res)
+			if err != nil {
+				t.Fatal(err)
+			}
+			sol := pr.Model.Decode(res.X)
+			if math.Abs(sol.Cost-p.Total) > 0.005 {
+				t.Errorf("optimized cost %.4f, printed total %.2f", sol.Cost, p.Total)
+			}
+			sum := 0.0
+			for _, l := range p.Estimate {
+				sum += l.Extension
+				if isLabItem(l.Item) && l.Quantity != math.Trunc(l.Quantity) {
+					t.Errorf("lab line %s: %v tests, want whole tests", l.Item, l.Quantity)
+				}
+				if c := 100 * l.Extension; math.Abs(c-math.Round(c)) > 1e-6 {
+					t.Errorf("line %s: extension %v is not whole cents", l.Item, l.Extension)
+				}
+			}
+			if math.Abs(sum-p.Total) > 0.005 {
+				t.Errorf("lines add to %.2f, total %.2f", sum, p.Total)
+			}
+
+			jobs, specs, err := ScheduleInputs(ctx, p, in.Scenario, in.RateBook, in.Rigs)
+			if err != nil {
+				t.Fatal(err)
+			}
+			s, err := schedule.Build(jobs, specs, schedule.Calendar{
+				Start: time.Date(2027, 3, 1, 0, 0, 0, 0, time.UTC), WorkStart: 7 * time.Hour,
+				HoursPerDay: in.Scenario.HoursDay, StartUpHours: StartUpHours,
+			})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if s.FieldDays != p.Finish {
+				t.Errorf("plan %d field days, schedule %d", p.Finish, s.FieldDays)
+			}
+			byRig := map[string]int{}
+			for _, r := range s.Rigs {
+				byRig[r.Rig] = r.FieldDays
+			}
+			for _, r := range p.Rigs {
+				if r.Points > 0 && byRig[r.Name] != r.FieldDays {
+					t.Errorf("rig %s: plan %d field days, schedule %d", r.Name, r.FieldDays, byRig[r.Name])
+				}
+			}
+			// The hand-laid baseline is a plan of the model and a start of
+			// the solve: the plan is never dearer, up to the tie-break of
+			// 0.01 a field day; the split adds up to the saving.
+			b := p.Baseline
+			if b == nil {
+				t.Fatal("no hand-laid baseline")
+			}
+			if b.Saving < -0.01*float64(b.FieldDays) {
+				t.Errorf("the plan is dearer than the hand-laid baseline: %+v", *b)
+			}
+			if sp := b.Split; sp == nil || math.Abs(sp.Methods+sp.Rigs+sp.Layout-b.Saving) > 0.015 {
+				t.Errorf("saving split %+v does not add up to the saving %.2f", sp, b.Saving)
+			}
+			t.Logf("%s: USD %.2f, %d field days; baseline USD %.2f, %d days, saving %.2f (%.1f %%)", name, p.Total, p.Finish, b.Cost, b.FieldDays, b.Saving, b.SavingPct)
+		})
+	}
+}
