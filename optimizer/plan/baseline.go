@@ -83,28 +83,66 @@ func countRule(zn scenarios.Zone) int {
 	return n
 }
 
-// handGrid is the grid a person lays in a zone (before gaps are filled).
+// handGrid is the grid a person lays in a zone (before gaps are filled):
+// the rule's lattice at the rule's spacing s (or, for a count rule, a
+// square grid at the side of the area per point, closed up until the count
+// fits), aligned with the zone's extent: set out either with equal margins
+// or from the same centred origin as the candidate lattice at half that
+// spacing (candidates.Generate lays candidates at s/2 with as many rows and
+// columns as fit and equal margins), whichever has fewer points. A lattice
+// at s from the candidates' origin is a sub-lattice of theirs, for squares
+// and for triangles alike (every other row, every other point), so those
+// points are candidates already and the model does not grow; the others
+// are offered as extra candidates.
 func handGrid(zn scenarios.Zone) []geom.Point {
 	b := zn.Polygon.Bounds()
-	centre := geom.Point{X: (b.Min.X + b.Max.X) / 2, Y: (b.Min.Y + b.Max.Y) / 2}
-	if s := zn.Rules.MaxSpacingFt; s > 0 {
-		kind := string(zn.Rules.Lattice)
-		if kind == "" {
-			kind = geom.Square
-		}
-		return zn.Polygon.Lattice(kind, s, centre)
+	kind := string(zn.Rules.Lattice)
+	if kind == "" {
+		kind = geom.Square
 	}
-	n := max(countRule(zn), 1)
+	s := zn.Rules.MaxSpacingFt
+	if s == 0 && zn.Rules.AreaPerPointFt2 > 0 {
+		s, kind = math.Sqrt(zn.Rules.AreaPerPointFt2), geom.Square
+	}
+	n := countRule(zn)
+	if s > 0 {
+		// Of the grid on the candidates and the grid with equal margins at
+		// s, the person keeps the one with fewer points (shifting a grid
+		// to save a row is common practice); a tie keeps the first.
+		pts := zn.Polygon.Lattice(kind, s, centred(kind, b, s/2))
+		if eq := zn.Polygon.Lattice(kind, s, centred(kind, b, s)); len(eq) < len(pts) {
+			pts = eq
+		}
+		if len(pts) >= n || zn.Rules.MaxSpacingFt > 0 {
+			return pts // a spacing zone gets more points later if its count asks
+		}
+	}
+	n = max(n, 1)
 	side := math.Sqrt(zn.Polygon.Area() / float64(n))
 	var pts []geom.Point
 	for k := 0; k < 40 && side > 0; k++ {
-		pts = zn.Polygon.Lattice(geom.Square, side, centre)
+		pts = zn.Polygon.Lattice(geom.Square, side, centred(geom.Square, b, side))
 		if len(pts) >= n {
 			break
 		}
 		side *= 0.9
 	}
 	return pts
+}
+
+// centred is the origin of a lattice of spacing s centred in the box, as
+// many rows and columns as fit with equal margins (the rule
+// candidates.Generate lays its lattice by).
+func centred(kind string, b geom.Rect, s float64) geom.Point {
+	dy := s
+	if kind == geom.Triangular {
+		dy = s * math.Sqrt(3) / 2
+	}
+	off := func(extent, step float64) float64 {
+		m := math.Max(1, math.Ceil(extent/step-1e-9))
+		return (extent - (m-1)*step) / 2
+	}
+	return geom.Point{X: b.Min.X + off(b.Width(), s), Y: b.Min.Y + off(b.Height(), dy)}
 }
 
 // optionKey finds an option by point, method and rig.

@@ -2,6 +2,7 @@ package plan
 
 import (
 	"context"
+	"fmt"
 	"math"
 	"testing"
 	"time"
@@ -105,6 +106,32 @@ func TestOnePriceOneDayCount(t *testing.T) {
 			}
 			if sp := b.Split; sp == nil || math.Abs(sp.Methods+sp.Rigs+sp.Layout-b.Saving) > 0.015 {
 				t.Errorf("saving split %+v does not add up to the saving %.2f", sp, b.Saving)
+			}
+			// The baseline's days are the scheduler's too.
+			bp := &Plan{Scenario: p.Scenario}
+			for k, o := range pr.hand.chosen {
+				od := pr.Options[o]
+				c := pr.Layout.Candidates[od.point]
+				bp.Points = append(bp.Points, Point{ID: fmt.Sprintf("H%03d", k+1), Zone: in.Scenario.Zones[od.zone].ID, XFt: c.P.X, YFt: c.P.Y,
+					Method: string(od.method), Rig: pr.Rigs[od.rig].name, DepthFt: od.depth, Hours: pr.Spec.Options[o].Hours,
+					OnPointHours: od.prof.onHours, Surface: string(in.Scenario.Zones[od.zone].Ground.Surface)})
+			}
+			for r, rd := range pr.Rigs {
+				bp.Rigs = append(bp.Rigs, RigPlan{Name: rd.name, MobHours: pr.Spec.Rigs[r].MobHours})
+			}
+			bj, bs, err := ScheduleInputs(ctx, bp, in.Scenario, in.RateBook, in.Rigs)
+			if err != nil {
+				t.Fatal(err)
+			}
+			bsched, err := schedule.Build(bj, bs, schedule.Calendar{
+				Start: time.Date(2027, 3, 1, 0, 0, 0, 0, time.UTC), WorkStart: 7 * time.Hour,
+				HoursPerDay: in.Scenario.HoursDay, StartUpHours: StartUpHours,
+			})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if bsched.FieldDays != b.FieldDays {
+				t.Errorf("baseline %d field days, its schedule %d", b.FieldDays, bsched.FieldDays)
 			}
 			t.Logf("%s: USD %.2f, %d field days; baseline USD %.2f, %d days, saving %.2f (%.1f %%)", name, p.Total, p.Finish, b.Cost, b.FieldDays, b.Saving, b.SavingPct)
 		})
