@@ -38,12 +38,16 @@ type Scenario struct {
 	Zones    []Zone
 	NoGo     []NoGo
 
-	Rigs       []string // rig names offered (built-in or plugin)
-	RateBook   string   // demo rate-book name, or a file path already resolved against the scenario file's folder
-	YardMiles  float64  // one-way distance from the rig yard, miles
-	HoursDay   float64  // working hours per field day
-	GapRel     float64  // relative optimality gap the solve stops at
-	TimeLimitS float64  // solve time limit, seconds (0: none)
+	Rigs []string // rig names offered (built-in or plugin)
+	// RigUnits is, per rig name, the most crews of that rig that may be
+	// sent (1…MaxRigUnits); a rig not listed sends one. The plan chooses
+	// how many.
+	RigUnits   map[string]int `json:",omitempty"`
+	RateBook   string         // demo rate-book name, or a file path already resolved against the scenario file's folder
+	YardMiles  float64        // one-way distance from the rig yard, miles
+	HoursDay   float64        // working hours per field day
+	GapRel     float64        // relative optimality gap the solve stops at
+	TimeLimitS float64        // solve time limit, seconds (0: none)
 
 	// Lab is the program of laboratory tests priced on the samples the
 	// plan recovers; nil means lab.Default(). A file's "lab: none" gives

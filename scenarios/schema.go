@@ -123,6 +123,7 @@ var schema = mapping(map[string]*keys{
 		"geojson": geojsonKeys,
 	})),
 	"rigs":          leaf,
+	"rig_units":     leaf,
 	"rate_book":     leaf,
 	"yard_miles":    leaf,
 	"hours_per_day": leaf,

@@ -121,8 +121,12 @@ type Rig struct {
 	MobCost    float64 // mobilization and demobilization, priced
 	MobHours   float64 // hours of mobilization counted in field days
 	DayCost    float64 // priced items per field day
-	Unlimited  bool    // reserved: several units of the rig
 	TravelNote string
+	// Unit numbers the crews of one rig (from 1; 0 is 1). A crew with
+	// Unit > 1 follows the one before it in Spec.Rigs and is identical to
+	// it; the model orders them — the earlier is mobilized and works at
+	// least as many days — which cuts off only permutations of one plan.
+	Unit int
 	MobUses    []Use // pooled items of mobilization (not in MobCost)
 	DayUses    []Use // pooled items per field day (not in DayCost)
 }
@@ -398,6 +402,13 @@ func Build(s *Spec) (*Model, error) {
 		}
 		b.row("days_"+rg.Name, 0, math.Inf(1), cols, vals)
 		b.row("finish_"+rg.Name, 0, math.Inf(1), []int{m.TCol, m.DCol[r]}, []float64{1, -1})
+		if rg.Unit > 1 {
+			if r == 0 || max(s.Rigs[r-1].Unit, 1) != rg.Unit-1 {
+				return nil, fmt.Errorf("model: crew %d of rig %q does not follow crew %d", rg.Unit, rg.Name, rg.Unit-1)
+			}
+			b.row("crews_y_"+rg.Name, 0, math.Inf(1), []int{m.YCol[r-1], m.YCol[r]}, []float64{1, -1})
+			b.row("crews_d_"+rg.Name, 0, math.Inf(1), []int{m.DCol[r-1], m.DCol[r]}, []float64{1, -1})
+		}
 	}
 	// Pooled items: q[i] ≥ k[i] · (the plan's total need).
 	if len(s.Pooled) > 0 {

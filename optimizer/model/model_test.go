@@ -40,6 +40,20 @@ func randomSpec(rng *rand.Rand) *Spec {
 			}
 		}
 	}
+	// Sometimes a second crew of rig 1: the same options, Unit 2 (the
+	// model orders the crews; the brute force does not, so the optimum
+	// must not change).
+	if rng.IntN(2) == 0 {
+		c := s.Rigs[1]
+		c.Name, c.Unit = "s2", 2
+		s.Rigs = append(s.Rigs, c)
+		for _, op := range s.Options {
+			if op.Rig == 1 {
+				op.Rig = 2
+				s.Options = append(s.Options, op)
+			}
+		}
+	}
 	for k := 0; k < 2; k++ {
 		row := []int{rng.IntN(s.NumPoints), rng.IntN(s.NumPoints)}
 		s.CoverRows = append(s.CoverRows, row)

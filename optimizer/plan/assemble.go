@@ -348,6 +348,9 @@ func (pr *Prepared) excluded() []Excluded {
 	out := []Excluded{}
 	for z, zn := range pr.In.Scenario.Zones {
 		for _, rd := range pr.Rigs {
+			if rd.unit > 1 {
+				continue // a further crew answers as its rig
+			}
 			for _, m := range zoneMethods(zn, rd.info) {
 				if p, ok := rd.profiles[profileKey{z, m}]; ok && !p.answer.Feasible {
 					out = append(out, Excluded{Zone: zn.ID, Method: string(m), Rig: rd.name, Reason: p.answer.Reason})

@@ -53,7 +53,7 @@ func ScheduleInputs(ctx context.Context, p *Plan, sc *scenarios.Scenario, rb *ra
 	surfaces := []sdk.Surface{sdk.Firm, sdk.Wet, sdk.Soft}
 	var specs []schedule.RigSpec
 	for _, n := range names {
-		r, ok := rigs[n]
+		r, ok := rigs[BaseRig(n)]
 		if !ok {
 			return nil, nil, inputErrorf("the plan uses rig %q, which is not available now", n)
 		}

@@ -7,6 +7,8 @@ import (
 	"testing"
 	"time"
 
+	"github.com/rigmix/rigmix/optimizer/mip"
+	"github.com/rigmix/rigmix/optimizer/model"
 	"github.com/rigmix/rigmix/optimizer/schedule"
 	"github.com/rigmix/rigmix/scenarios"
 	"github.com/rigmix/rigmix/scenarios/sitegen"
@@ -25,8 +27,61 @@ func oneCountCases(t *testing.T) []namedInput {
 		cases = append(cases, namedInput{n, demoInput(t, n)})
 	}
 	cases = append(cases, namedInput{"generated-1-acre", generatedInput(t, sitegen.Site(1, 1))},
-		namedInput{"generated-10-acres", generatedInput(t, sitegen.Site(10, 1))})
+		namedInput{"generated-10-acres", generatedInput(t, sitegen.Site(10, 1))},
+		namedInput{"generated-10-acres-3-crews", withCrews(generatedInput(t, sitegen.Site(10, 1)), 3)})
 	return cases
+}
+
+// withCrews allows up to n crews of every rig offered.
+func withCrews(in Input, n int) Input {
+	sc := *in.Scenario
+	sc.RigUnits = map[string]int{}
+	for _, r := range sc.Rigs {
+		sc.RigUnits[r] = n
+	}
+	in.Scenario = &sc
+	return in
+}
+
+// fastest is the least finish of a prepared plan's rules: the incumbent
+// and the proven lower bound of the MinimizeDays form.
+func fastest(t *testing.T, pr *Prepared) (int, int) {
+	t.Helper()
+	s := *pr.Spec
+	s.MinimizeDays = true
+	m, err := model.Build(&s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, err := mip.Solve(context.Background(), m.Problem, mip.Options{NodeLimit: 2000})
+	if err != nil || res.X == nil {
+		t.Fatalf("fastest plan: %v (%v)", err, res.Status)
+	}
+	return m.Decode(res.X).Finish, int(math.Ceil(res.Bound - 1e-6))
+}
+
+// TestCrewsShortenTheFinish: on a generated site, allowing three crews of
+// every rig finishes sooner than the proven least finish with one crew of
+// each; and the cheapest plan with crews allowed costs no more than with
+// one crew (a plan with one crew each is still a plan).
+func TestCrewsShortenTheFinish(t *testing.T) {
+	ctx := context.Background()
+	one := generatedInput(t, sitegen.Site(10, 1))
+	three := withCrews(generatedInput(t, sitegen.Site(10, 1)), 3)
+	pr1, err := Prepare(ctx, one, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	pr3, err := Prepare(ctx, three, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, bound1 := fastest(t, pr1)
+	got3, _ := fastest(t, pr3)
+	if got3 >= bound1 {
+		t.Errorf("with three crews the fastest plan takes %d days; with one crew no plan takes fewer than %d", got3, bound1)
+	}
+	t.Logf("fastest finish: one crew each ≥ %d days, three crews each %d days", bound1, got3)
 }
 
 // TestOnePriceOneDayCount: the optimized cost is the printed estimate's

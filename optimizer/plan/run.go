@@ -105,7 +105,8 @@ func (t *Timings) add(stage string, since time.Time) {
 }
 
 type rigData struct {
-	name     string
+	name     string // the rig's name; a further crew's is "name#k"
+	unit     int    // crew number, from 1
 	rig      sdk.Rig
 	info     sdk.RigInfo
 	mob      sdk.MobilizeResponse
@@ -162,7 +163,7 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		if err != nil {
 			return nil, err // the host names the rig and the call
 		}
-		pr.Rigs = append(pr.Rigs, rigData{name: name, rig: r, info: info, profiles: map[profileKey]profile{}})
+		pr.Rigs = append(pr.Rigs, rigData{name: name, unit: 1, rig: r, info: info, profiles: map[profileKey]profile{}})
 	}
 
 	// Candidates and coverage.
@@ -279,6 +280,7 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 	}
 
 	pr.Timings.add("rig calls (one batch per rig)", t0)
+	pr.Rigs = expandUnits(pr.Rigs, sc.RigUnits)
 	pr.pool = pr.pooling()
 	// Every zone needs at least one way to be explored.
 	for z, zn := range sc.Zones {
@@ -336,7 +338,7 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 	for _, rd := range pr.Rigs {
 		mob, mobUses := pr.pool.split(rd.mob.Quantities)
 		day, dayUses := pr.pool.split(rd.info.DayItems)
-		spec.Rigs = append(spec.Rigs, model.Rig{Name: rd.name, MobCost: mob, MobHours: rd.mob.Hours, DayCost: day, MobUses: mobUses, DayUses: dayUses})
+		spec.Rigs = append(spec.Rigs, model.Rig{Name: rd.name, MobCost: mob, MobHours: rd.mob.Hours, DayCost: day, MobUses: mobUses, DayUses: dayUses, Unit: rd.unit})
 	}
 	if err := checkRoom(pr, spec); err != nil {
 		return nil, err
@@ -352,6 +354,34 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 	}
 	pr.Spec, pr.Model = spec, m
 	return pr, nil
+}
+
+// expandUnits lists, after each rig, its further crews (scenario
+// rig_units): each is a rig of its own to the model — mobilized, priced on
+// its own field days and scheduled on its own route — that answers as the
+// rig does. Crews of one rig follow each other, so the model can order
+// them (model.Rig.Unit).
+func expandUnits(rigs []rigData, units map[string]int) []rigData {
+	var out []rigData
+	for _, rd := range rigs {
+		out = append(out, rd)
+		for k := 2; k <= units[rd.name]; k++ {
+			c := rd
+			c.name, c.unit = fmt.Sprintf("%s#%d", rd.name, k), k
+			c.info.Title = fmt.Sprintf("%s (crew %d)", rd.info.Title, k)
+			out = append(out, c)
+		}
+	}
+	return out
+}
+
+// BaseRig is the rig a crew's name stands for: "tire-drill#2" →
+// "tire-drill" (rig names never hold "#").
+func BaseRig(name string) string {
+	if i := strings.IndexByte(name, '#'); i >= 0 {
+		return name[:i]
+	}
+	return name
 }
 
 // pooling decides which items the model pools (see price.go) and splits
