@@ -126,9 +126,9 @@ type Rig struct {
 	// Unit > 1 follows the one before it in Spec.Rigs and is identical to
 	// it; the model orders them — the earlier is mobilized and works at
 	// least as many days — which cuts off only permutations of one plan.
-	Unit int
-	MobUses    []Use // pooled items of mobilization (not in MobCost)
-	DayUses    []Use // pooled items per field day (not in DayCost)
+	Unit    int
+	MobUses []Use // pooled items of mobilization (not in MobCost)
+	DayUses []Use // pooled items per field day (not in DayCost)
 }
 
 // Spec is a whole exploration problem as plain data.
