@@ -305,6 +305,7 @@ func (pr *Prepared) restricted(allow func(optionData) bool, start []float64, upT
 			sub.LP.ColUp[m.XCol[o]] = 0
 		}
 	}
+	pr.oneCrew(sub.LP.ColUp)
 	res, err := mip.Solve(context.Background(), &sub, mip.Options{GapRel: pr.In.Scenario.GapRel, NodeLimit: startNodeLimit, Start: start})
 	if err != nil || res.X == nil {
 		return upTo
