@@ -76,6 +76,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"sort"
 
 	"github.com/rigmix/rigmix/optimizer/lp"
 	"github.com/rigmix/rigmix/optimizer/mip"
@@ -622,4 +623,147 @@ func (b *builder) problem(name string) *mip.Problem {
 		ColNames: b.colNames,
 		RowNames: b.rowNames,
 	}
+}
+
+// StartFor returns the column values of a plan given by its chosen
+// options: the rigs they use, each rig's days by the day rule (Days), the
+// finish, the zone counts and the pooled items rounded up as an estimate
+// rounds them. It is a start for mip.Options.Start (a plan of the model
+// when the options meet its rows).
+func (m *Model) StartFor(chosen []int) []float64 {
+	s := m.Spec
+	x := make([]float64, m.Problem.LP.NumCols)
+	hours := make([]float64, len(s.Rigs))
+	used := make([]bool, len(s.Rigs))
+	need := make([]float64, len(s.Pooled))
+	n := make([]float64, len(s.Zones))
+	ns := make([]float64, len(s.Zones))
+	for _, o := range chosen {
+		op := s.Options[o]
+		x[m.XCol[o]] = 1
+		hours[op.Rig] += op.Hours
+		used[op.Rig] = true
+		for _, u := range op.Uses {
+			need[u.Item] += u.Amount
+		}
+		z := s.PointZone[op.Point]
+		n[z]++
+		if op.Sampled {
+			ns[z]++
+		}
+	}
+	finish := 0
+	for r, rg := range s.Rigs {
+		if !used[r] {
+			continue
+		}
+		d := Days(rg.MobHours+hours[r], s.HoursPerDay, s.StartUpHours)
+		x[m.YCol[r]], x[m.DCol[r]] = 1, float64(d)
+		finish = max(finish, d)
+		for _, u := range rg.MobUses {
+			need[u.Item] += u.Amount
+		}
+		for _, u := range rg.DayUses {
+			need[u.Item] += u.Amount * float64(d)
+		}
+	}
+	x[m.TCol] = float64(finish)
+	for z := range s.Zones {
+		if m.NCol[z] >= 0 {
+			x[m.NCol[z]] = n[z]
+		}
+		if m.SCol[z] >= 0 {
+			x[m.SCol[z]] = ns[z]
+		}
+	}
+	for i, it := range s.Pooled {
+		if it.Whole {
+			x[m.QCol[i]] = math.Ceil(need[i] - 1e-9)
+		} else {
+			x[m.QCol[i]] = math.Ceil(100*it.Price*need[i] - 1e-6)
+		}
+	}
+	return x
+}
+
+// SplitCrews shares each rig's chosen options among its crews (Rig.Unit):
+// in the order of their points, in consecutive runs of about equal hours,
+// so each crew works one stretch of ground. It returns the options of the
+// shared plan (the same points, methods and rigs; more crews), a start for
+// a faster plan.
+func (m *Model) SplitCrews(chosen []int) []int {
+	s := m.Spec
+	first := make([]int, len(s.Rigs)) // rig → its first crew
+	crews := make([]int, len(s.Rigs)) // first crew → number of crews
+	for r, rg := range s.Rigs {
+		first[r] = r
+		if rg.Unit > 1 {
+			first[r] = first[r-1]
+		}
+		crews[first[r]]++
+	}
+	type key struct{ point, rig int }
+	slot := map[key][]int{} // options of a point and rig, in order
+	for o, op := range s.Options {
+		k := key{op.Point, op.Rig}
+		slot[k] = append(slot[k], o)
+	}
+	byFirst := map[int][]int{}
+	var firsts []int
+	for _, o := range chosen {
+		f := first[s.Options[o].Rig]
+		if _, ok := byFirst[f]; !ok {
+			firsts = append(firsts, f)
+		}
+		byFirst[f] = append(byFirst[f], o)
+	}
+	var out []int
+	for _, f := range firsts {
+		os := byFirst[f]
+		k := crews[f]
+		if k == 1 {
+			out = append(out, os...)
+			continue
+		}
+		sort.Slice(os, func(a, b int) bool { return s.Options[os[a]].Point < s.Options[os[b]].Point })
+		total := 0.0
+		for _, o := range os {
+			total += s.Options[o].Hours
+		}
+		groups := make([][]int, k)
+		hours := make([]float64, k)
+		done, crew := 0.0, 0
+		for _, o := range os {
+			op := s.Options[o]
+			for crew < k-1 && done >= total*float64(crew+1)/float64(k) {
+				crew++
+			}
+			done += op.Hours
+			groups[crew] = append(groups[crew], o)
+			hours[crew] += op.Hours
+		}
+		// The busiest run to the first crew, and so on: the model orders
+		// the crews by their days.
+		order := make([]int, k)
+		for g := range order {
+			order[g] = g
+		}
+		sort.SliceStable(order, func(a, b int) bool { return hours[order[a]] > hours[order[b]] })
+		for rank, g := range order {
+			for _, o := range groups[g] {
+				op := s.Options[o]
+				// The same option's place among its point's options on
+				// the crew.
+				idx := 0
+				for i, q := range slot[key{op.Point, op.Rig}] {
+					if q == o {
+						idx = i
+					}
+				}
+				out = append(out, slot[key{op.Point, f + rank}][idx])
+			}
+		}
+	}
+	sort.Ints(out)
+	return out
 }

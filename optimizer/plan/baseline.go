@@ -9,7 +9,6 @@ import (
 
 	"github.com/rigmix/rigmix/optimizer/geom"
 	"github.com/rigmix/rigmix/optimizer/mip"
-	"github.com/rigmix/rigmix/optimizer/model"
 	"github.com/rigmix/rigmix/plugins/sdk"
 	"github.com/rigmix/rigmix/scenarios"
 )
@@ -313,64 +312,9 @@ func (pr *Prepared) restricted(allow func(optionData) bool, start []float64, upT
 	return math.Min(upTo, round(m.Decode(res.X).Cost, 2))
 }
 
-// startVector is the model's column values for a set of chosen options:
-// the rigs they use, the days by the day rule, the zone counts and the
-// pooled items rounded up as the estimate rounds them.
-func (pr *Prepared) startVector(chosen []int) []float64 {
-	m, s := pr.Model, pr.Spec
-	x := make([]float64, m.Problem.LP.NumCols)
-	hours := make([]float64, len(s.Rigs))
-	used := make([]bool, len(s.Rigs))
-	need := make([]float64, len(s.Pooled))
-	n := make([]float64, len(s.Zones))
-	ns := make([]float64, len(s.Zones))
-	for _, o := range chosen {
-		op := s.Options[o]
-		x[m.XCol[o]] = 1
-		hours[op.Rig] += op.Hours
-		used[op.Rig] = true
-		for _, u := range op.Uses {
-			need[u.Item] += u.Amount
-		}
-		z := s.PointZone[op.Point]
-		n[z]++
-		if op.Sampled {
-			ns[z]++
-		}
-	}
-	finish := 0
-	for r, rg := range s.Rigs {
-		if !used[r] {
-			continue
-		}
-		d := model.Days(rg.MobHours+hours[r], s.HoursPerDay, s.StartUpHours)
-		x[m.YCol[r]], x[m.DCol[r]] = 1, float64(d)
-		finish = max(finish, d)
-		for _, u := range rg.MobUses {
-			need[u.Item] += u.Amount
-		}
-		for _, u := range rg.DayUses {
-			need[u.Item] += u.Amount * float64(d)
-		}
-	}
-	x[m.TCol] = float64(finish)
-	for z := range s.Zones {
-		if m.NCol[z] >= 0 {
-			x[m.NCol[z]] = n[z]
-		}
-		if m.SCol[z] >= 0 {
-			x[m.SCol[z]] = ns[z]
-		}
-	}
-	for i, it := range s.Pooled {
-		if it.Whole {
-			x[m.QCol[i]] = math.Ceil(need[i] - 1e-9)
-		} else {
-			x[m.QCol[i]] = math.Ceil(100*it.Price*need[i] - 1e-6)
-		}
-	}
-	return x
-}
+// startVector is the model's column values for a set of chosen options
+// (model.StartFor).
+func (pr *Prepared) startVector(chosen []int) []float64 { return pr.Model.StartFor(chosen) }
 
 // baselineFor compares the baseline with a plan of the given cost and
 // finish.
