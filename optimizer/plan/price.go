@@ -14,7 +14,8 @@ import (
 // cost is the estimate's total to the cent):
 //
 //   - every quantity a rig reports is kept to the thousandth of its unit,
-//     the precision the estimate prints (quantityPlaces);
+//     the precision the estimate prints (quantityPlaces), hours to the
+//     hundredth;
 //   - hours are kept to the hundredth (hourPlaces), so field days are
 //     counted on exact sums (model.Hundredths);
 //   - each rate-book item is summed over the plan, then extended; a lab
@@ -40,11 +41,18 @@ func extension(q, unitPrice float64) float64 {
 	return math.Ceil(100*q*unitPrice-1e-6) / 100
 }
 
-// roundQuantities keeps each amount to the estimate's precision.
+// roundQuantities keeps each amount to the estimate's precision, hours
+// to the hundredth as every hour in the plan is kept (so an hourly item at
+// a price in whole dollars extends to whole cents on every point and needs
+// no pooled column).
 func roundQuantities(qs []sdk.Quantity) []sdk.Quantity {
 	out := make([]sdk.Quantity, len(qs))
 	for i, q := range qs {
-		q.Amount = round(q.Amount, quantityPlaces)
+		places := quantityPlaces
+		if q.Unit == "hr" {
+			places = hourPlaces
+		}
+		q.Amount = round(q.Amount, places)
 		out[i] = q
 	}
 	return out
