@@ -84,6 +84,8 @@ func TestBadInput(t *testing.T) {
 		{"missing_yard_miles", "yard_miles", "missing", "yard_miles: 35"},
 		{"duplicate_rig", "rigs[2]", `"tire-drill" listed twice`, ""},
 		{"no_rigs", "rigs", "missing", ""},
+		{"units_not_offered", "rig_units.track-drill", `"track-drill" is not among the rigs offered`, "rigs"},
+		{"units_too_many", "rig_units.tire-drill", "must be ≤ 10", "crews"},
 		{"zones_not_list", "zones", "must be a list", ""},
 		{"missing_boundary", "boundary", "missing", ""},
 		{"gap_too_big", "solver.gap", "must be ≤ 0.99, got 1.5", ""},

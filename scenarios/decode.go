@@ -683,6 +683,9 @@ func (d *decoder) decode(m map[string]any) (*Scenario, error) {
 		seenRig[r] = true
 	}
 	s.Rigs = rigs
+	if s.RigUnits, err = d.rigUnits(m, seenRig); err != nil {
+		return nil, err
+	}
 
 	if s.RateBook, err = d.rateBook(m); err != nil {
 		return nil, err
@@ -1231,6 +1234,40 @@ func (d *decoder) sampleSchedule(m map[string]any, p string) ([]sdk.SampleBand, 
 	}
 	if err := sdk.CheckSchedule(out); err != nil {
 		return nil, d.errf(fp, "", "%v", err)
+	}
+	return out, nil
+}
+
+// MaxRigUnits bounds the crews of one rig a scenario may send.
+const MaxRigUnits = 10
+
+// rigUnits reads rig_units: a mapping from an offered rig's name to the
+// most crews of it that may be sent.
+func (d *decoder) rigUnits(m map[string]any, offered map[string]bool) (map[string]int, error) {
+	raw, ok := m["rig_units"]
+	if !ok || raw == nil {
+		return nil, nil
+	}
+	hint := fmt.Sprintf("the most crews of each rig that may be sent, 1 to %d, e.g. rig_units: {tire-drill: 2}", MaxRigUnits)
+	mm, ok := raw.(map[string]any)
+	if !ok {
+		return nil, d.errf("rig_units", hint, "must be a mapping from rig names to numbers, got %s", fmtVal(raw))
+	}
+	names := make([]string, 0, len(mm))
+	for k := range mm {
+		names = append(names, k)
+	}
+	sort.Strings(names)
+	out := map[string]int{}
+	for _, n := range names {
+		if !offered[n] {
+			return nil, d.errf("rig_units."+n, "name a rig listed under rigs", "%q is not among the rigs offered", n)
+		}
+		u, _, err := d.integer(mm, "rig_units", n, 1, MaxRigUnits, hint)
+		if err != nil {
+			return nil, err
+		}
+		out[n] = u
 	}
 	return out, nil
 }

@@ -39,9 +39,13 @@ type Scenario struct {
 	Zones    []Zone
 	NoGo     []NoGo
 
-	Rigs      []string // rig names offered (built-in or plugin)
-	RateBook  string   // demo rate-book name, or a file path already resolved against the scenario file's folder
-	YardMiles float64  // one-way distance from the rig yard, miles
+	Rigs []string // rig names offered (built-in or plugin)
+	// RigUnits is, per rig name, the most crews of that rig that may be
+	// sent (1…MaxRigUnits); a rig not listed sends one. The plan chooses
+	// how many.
+	RigUnits  map[string]int `json:",omitempty"`
+	RateBook  string         // demo rate-book name, or a file path already resolved against the scenario file's folder
+	YardMiles float64        // one-way distance from the rig yard, miles
 	// MinSeparationFt is the least distance between two points of a plan
 	// (DefaultMinSeparationFt unless the file says), whatever zones they
 	// serve; two required points may be closer.

@@ -137,6 +137,7 @@ var schema = mapping(map[string]*keys{
 		"geojson": geojsonKeys,
 	})),
 	"rigs":           leaf,
+	"rig_units":      leaf,
 	"rate_book":      leaf,
 	"yard_miles":     leaf,
 	"min_separation": leaf,

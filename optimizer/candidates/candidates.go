@@ -79,6 +79,9 @@ type ZoneInput struct {
 	Corners            bool         // add a candidate at each polygon corner (geom.DefaultCornerTurnDeg)
 	Required           []geom.Point // candidates that must be explored (marked Required)
 	Weight             float64      // priority weight of the zone's area; 0 means 1
+	// Extra are optional candidates at given places (a hand-laid grid the
+	// plan is compared with); those in no-go areas are dropped.
+	Extra []geom.Point
 }
 
 // Options tune the lattices. Zero fields take the defaults above.
@@ -473,6 +476,11 @@ func zoneCandidates(i int, z ZoneInput, zp zonePlan, ng noGoSet) ([]Candidate, e
 	if z.Corners {
 		for _, p := range z.Polygon.Corners() {
 			raw = append(raw, Candidate{Zone: i, P: p, Corner: true})
+		}
+	}
+	for _, p := range z.Extra {
+		if z.Polygon.Contains(p) {
+			raw = append(raw, Candidate{Zone: i, P: p})
 		}
 	}
 	b := z.Polygon.Bounds()

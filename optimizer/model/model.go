@@ -9,14 +9,17 @@
 //	d[r] ∈ ℤ≥0     field days of rig r
 //	T   ≥ 0        finish (the longest rig's days; rigs work in parallel)
 //
-//	minimize  Σ c[o] x[o] + Σ M[r] y[r] + Σ D[r] d[r] + w T
+//	q[i] ∈ ℤ≥0     pooled item i: whole units (lab tests) or cents
+//
+//	minimize  Σ c[o] x[o] + Σ M[r] y[r] + Σ D[r] d[r] + Σ P[i] q[i] + w T
 //	s.t.      Σ_{o at p∈S} x[o] ≥ 1           every coverage row S
 //	          Σ_{o at p} x[o] ≤ 1 (= 1 if required)   each point
 //	          Σ_{o at p or q} x[o] ≤ 1        points p, q closer than the separation
 //	          Σ_{o at p, rig r} x[o] ≤ y[r]    each point and rig
 //	          Σ_{o in zone} x[o] ≥ n[z]        per-zone minimum count
 //	          Σ_{sampled o in z} x[o] − s[z] Σ_{o in z} x[o] ≥ 0   sampled share
-//	          H d[r] − Σ_{o of r} h[o] x[o] − hm[r] y[r] ≥ 0      days
+//	          (H−u) d[r] − Σ_{o of r} h[o] x[o] − hm[r] y[r] ≥ 0  days
+//	          q[i] − k[i] (Σ a[o,i] x[o] + Σ a[r,i] y[r] + Σ b[r,i] d[r]) ≥ 0   pooled
 //	          T − d[r] ≥ 0
 //	          cost ≤ budget, T ≤ deadline       (optional)
 //
@@ -45,6 +48,24 @@
 // linking rows and the days rows are kept. u may stay continuous: for fixed
 // x its best value is min(1, Σ x) ∈ {0,1}.
 //
+// Pooled items make the model's cost the estimate's total to the cent. The
+// estimate sums each rate-book item over the whole plan before it prices it:
+// a lab test is bought whole (⌈Σ need⌉ tests, however the need is shared
+// among points), and an item whose quantity is fractional (hours of
+// logging) is extended to the cent once, on its total. An item whose every
+// term is already a whole number of cents stays in c[o], M[r], D[r]; each
+// other item gets an integer column q[i] — whole units at price P[i] = its
+// unit price (k[i] = 1), or cents at P[i] = 0.01 (k[i] = 100 × unit price) —
+// so the least q[i] is the estimate's rounded-up figure.
+//
+// Days: H is the working day and u the start-up allowance that opens every
+// field day (see schedule.Calendar.StartUpHours): a point unfinished at the
+// end of a day is finished the next morning, so a rig's days are
+// ⌈(mobilization + Σ hours on its points) / (H − u)⌉, the count
+// schedule.Build lays. Hours enter the row in hundredths (Spec hours are
+// kept to 0.01 h), so the row's arithmetic is exact and the ceiling is the
+// scheduler's to the last hundredth.
+//
 // The point-and-rig linking row is the disaggregated form of x ≤ y, whose LP
 // relaxation is far tighter than one aggregated big-M row per rig (the
 // standard result for fixed-charge facility location; Wolsey, Integer
@@ -56,6 +77,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"sort"
 
 	"github.com/rigmix/rigmix/optimizer/lp"
 	"github.com/rigmix/rigmix/optimizer/mip"
@@ -69,6 +91,23 @@ type Option struct {
 	Cost    float64 // priced quantities at the point
 	Hours   float64 // hours on the point including the move to it
 	Label   string  // for column names, e.g. "boring/track-drill"
+	Uses    []Use   // pooled items the option needs (not in Cost)
+}
+
+// Use is an amount of a pooled item (Spec.Pooled[Item]).
+type Use struct {
+	Item   int
+	Amount float64
+}
+
+// Pooled is a rate-book item summed over the plan before it is priced and
+// rounded up, as the estimate prices it (see the package comment).
+type Pooled struct {
+	Name  string
+	Price float64 // unit price
+	// Whole: bought in whole units (⌈Σ need⌉, e.g. lab tests); otherwise
+	// the total is extended and rounded up to the cent.
+	Whole bool
 }
 
 // Zone holds the counting rules of one zone.
@@ -84,8 +123,14 @@ type Rig struct {
 	MobCost    float64 // mobilization and demobilization, priced
 	MobHours   float64 // hours of mobilization counted in field days
 	DayCost    float64 // priced items per field day
-	Unlimited  bool    // reserved: several units of the rig
 	TravelNote string
+	// Unit numbers the crews of one rig (from 1; 0 is 1). A crew with
+	// Unit > 1 follows the one before it in Spec.Rigs and is identical to
+	// it; the model orders them — the earlier is mobilized and works at
+	// least as many days — which cuts off only permutations of one plan.
+	Unit    int
+	MobUses []Use // pooled items of mobilization (not in MobCost)
+	DayUses []Use // pooled items per field day (not in DayCost)
 }
 
 // Spec is a whole exploration problem as plain data.
@@ -101,10 +146,16 @@ type Spec struct {
 	Zones       []Zone
 	Rigs        []Rig
 	HoursPerDay float64
-	Budget      float64 // 0: none
-	MaxDays     float64 // 0: none; limit on the finish T
-	DaysWeight  float64 // objective weight of T (tie-break); 0 allowed
-	CostWeight  float64 // objective weight of cost; 0 means 1
+	// StartUpHours opens every field day (0 ≤ u < HoursPerDay); see the
+	// package comment.
+	StartUpHours float64
+	// Pooled lists the items priced on their plan total (see the package
+	// comment).
+	Pooled     []Pooled
+	Budget     float64 // 0: none
+	MaxDays    float64 // 0: none; limit on the finish T
+	DaysWeight float64 // objective weight of T (tie-break); 0 allowed
+	CostWeight float64 // objective weight of cost; 0 means 1
 
 	// MinimizeDays makes the objective the finish T alone (see the
 	// package comment).
@@ -133,6 +184,7 @@ type Model struct {
 	TCol    int
 	NCol    []int // zone → count column, -1 if none
 	SCol    []int // zone → sampled-count column, -1 if none
+	QCol    []int // pooled item → column
 	CostRow int   // row holding the cost (budget row), -1 if none
 	UCol    []int // cell → covered column (MaximizeCoverage), nil otherwise
 	// CountRow and ShareRow are, per zone, the rows that carry the zone's
@@ -153,6 +205,9 @@ var (
 func Build(s *Spec) (*Model, error) {
 	if s.HoursPerDay <= 0 {
 		return nil, fmt.Errorf("model: hours per day must be > 0, got %g", s.HoursPerDay)
+	}
+	if !(s.StartUpHours >= 0 && s.StartUpHours < s.HoursPerDay) {
+		return nil, fmt.Errorf("model: start-up allowance %g h: want 0 ≤ allowance < %g h (the working day)", s.StartUpHours, s.HoursPerDay)
 	}
 	if len(s.PointZone) != s.NumPoints {
 		panic("model: PointZone length differs from NumPoints")
@@ -203,6 +258,10 @@ func Build(s *Spec) (*Model, error) {
 		m.DCol[r] = b.col("d_"+rg.Name, costW*rg.DayCost, 0, math.Inf(1), true)
 	}
 	m.TCol = b.col("finish_days", daysW, 0, math.Inf(1), s.MinimizeDays)
+	m.QCol = make([]int, len(s.Pooled))
+	for i, it := range s.Pooled {
+		m.QCol[i] = b.col("q_"+it.Name, costW*it.unitCost(), 0, math.Inf(1), true)
+	}
 
 	// Coverage rows (the maximal covering form has its own, below).
 	coverRows := s.CoverRows
@@ -350,16 +409,47 @@ func Build(s *Spec) (*Model, error) {
 			m.ShareRow[z] = b.row(fmt.Sprintf("sampled_z%d", z), 0, math.Inf(1), []int{m.SCol[z], m.NCol[z]}, []float64{1, -zn.SampledShare})
 		}
 	}
-	// Field days and finish.
+	// Field days and finish, in hundredths of an hour.
 	for r, rg := range s.Rigs {
 		cols := []int{m.DCol[r], m.YCol[r]}
-		vals := []float64{s.HoursPerDay, -rg.MobHours}
+		vals := []float64{Hundredths(s.HoursPerDay - s.StartUpHours), -Hundredths(rg.MobHours)}
 		for _, o := range byRig[r] {
 			cols = append(cols, m.XCol[o])
-			vals = append(vals, -s.Options[o].Hours)
+			vals = append(vals, -Hundredths(s.Options[o].Hours))
 		}
 		b.row("days_"+rg.Name, 0, math.Inf(1), cols, vals)
 		b.row("finish_"+rg.Name, 0, math.Inf(1), []int{m.TCol, m.DCol[r]}, []float64{1, -1})
+		if rg.Unit > 1 {
+			if r == 0 || max(s.Rigs[r-1].Unit, 1) != rg.Unit-1 {
+				return nil, fmt.Errorf("model: crew %d of rig %q does not follow crew %d", rg.Unit, rg.Name, rg.Unit-1)
+			}
+			b.row("crews_y_"+rg.Name, 0, math.Inf(1), []int{m.YCol[r-1], m.YCol[r]}, []float64{1, -1})
+			b.row("crews_d_"+rg.Name, 0, math.Inf(1), []int{m.DCol[r-1], m.DCol[r]}, []float64{1, -1})
+		}
+	}
+	// Pooled items: q[i] ≥ k[i] · (the plan's total need).
+	if len(s.Pooled) > 0 {
+		cols := make([][]int, len(s.Pooled))
+		vals := make([][]float64, len(s.Pooled))
+		add := func(us []Use, col int) {
+			for _, u := range us {
+				if u.Item < 0 || u.Item >= len(s.Pooled) {
+					panic("model: a use names no pooled item")
+				}
+				cols[u.Item] = append(cols[u.Item], col)
+				vals[u.Item] = append(vals[u.Item], -s.Pooled[u.Item].scale()*u.Amount)
+			}
+		}
+		for o, op := range s.Options {
+			add(op.Uses, m.XCol[o])
+		}
+		for r, rg := range s.Rigs {
+			add(rg.MobUses, m.YCol[r])
+			add(rg.DayUses, m.DCol[r])
+		}
+		for i, it := range s.Pooled {
+			b.row("pooled_"+it.Name, 0, math.Inf(1), append([]int{m.QCol[i]}, cols[i]...), append([]float64{1}, vals[i]...))
+		}
 	}
 	if s.Budget > 0 {
 		cols, vals := m.costTerms()
@@ -385,7 +475,39 @@ func (m *Model) costTerms() ([]int, []float64) {
 		cols = append(cols, m.YCol[r], m.DCol[r])
 		vals = append(vals, rg.MobCost, rg.DayCost)
 	}
+	for i, it := range s.Pooled {
+		cols = append(cols, m.QCol[i])
+		vals = append(vals, it.unitCost())
+	}
 	return cols, vals
+}
+
+// unitCost is the price of one unit of the item's column: a whole unit, or
+// a cent.
+func (it Pooled) unitCost() float64 {
+	if it.Whole {
+		return it.Price
+	}
+	return 0.01
+}
+
+// scale is k[i]: units of the column per unit of the item.
+func (it Pooled) scale() float64 {
+	if it.Whole {
+		return 1
+	}
+	return 100 * it.Price
+}
+
+// Hundredths is hours counted in whole hundredths, as the days rows count
+// them.
+func Hundredths(h float64) float64 { return math.Round(100 * h) }
+
+// Days is the field days a rig takes for the given hours (mobilization and
+// points), by the rule of the days rows: ⌈hours / (H − u)⌉ in whole
+// hundredths of an hour.
+func Days(hours, hoursPerDay, startUp float64) int {
+	return int(math.Ceil(Hundredths(hours) / Hundredths(hoursPerDay-startUp)))
 }
 
 // Solution is a decoded solution.
@@ -394,7 +516,10 @@ type Solution struct {
 	Mobilized []bool // per rig
 	Days      []int  // per rig
 	Finish    int    // field days until the last rig is done
-	Cost      float64
+	// Pooled is the rounded quantity of each pooled item: whole units, or
+	// the extension in cents.
+	Pooled []float64
+	Cost   float64
 }
 
 // Decode reads a primal solution of the program.
@@ -419,6 +544,11 @@ func (m *Model) Decode(x []float64) Solution {
 		if sol.Days[r] > sol.Finish {
 			sol.Finish = sol.Days[r]
 		}
+	}
+	sol.Pooled = make([]float64, len(s.Pooled))
+	for i, it := range s.Pooled {
+		sol.Pooled[i] = math.Round(x[m.QCol[i]])
+		sol.Cost += sol.Pooled[i] * it.unitCost()
 	}
 	return sol
 }
@@ -509,4 +639,147 @@ func (b *builder) problem(name string) *mip.Problem {
 		ColNames: b.colNames,
 		RowNames: b.rowNames,
 	}
+}
+
+// StartFor returns the column values of a plan given by its chosen
+// options: the rigs they use, each rig's days by the day rule (Days), the
+// finish, the zone counts and the pooled items rounded up as an estimate
+// rounds them. It is a start for mip.Options.Start (a plan of the model
+// when the options meet its rows).
+func (m *Model) StartFor(chosen []int) []float64 {
+	s := m.Spec
+	x := make([]float64, m.Problem.LP.NumCols)
+	hours := make([]float64, len(s.Rigs))
+	used := make([]bool, len(s.Rigs))
+	need := make([]float64, len(s.Pooled))
+	n := make([]float64, len(s.Zones))
+	ns := make([]float64, len(s.Zones))
+	for _, o := range chosen {
+		op := s.Options[o]
+		x[m.XCol[o]] = 1
+		hours[op.Rig] += op.Hours
+		used[op.Rig] = true
+		for _, u := range op.Uses {
+			need[u.Item] += u.Amount
+		}
+		z := s.PointZone[op.Point]
+		n[z]++
+		if op.Sampled {
+			ns[z]++
+		}
+	}
+	finish := 0
+	for r, rg := range s.Rigs {
+		if !used[r] {
+			continue
+		}
+		d := Days(rg.MobHours+hours[r], s.HoursPerDay, s.StartUpHours)
+		x[m.YCol[r]], x[m.DCol[r]] = 1, float64(d)
+		finish = max(finish, d)
+		for _, u := range rg.MobUses {
+			need[u.Item] += u.Amount
+		}
+		for _, u := range rg.DayUses {
+			need[u.Item] += u.Amount * float64(d)
+		}
+	}
+	x[m.TCol] = float64(finish)
+	for z := range s.Zones {
+		if m.NCol[z] >= 0 {
+			x[m.NCol[z]] = n[z]
+		}
+		if m.SCol[z] >= 0 {
+			x[m.SCol[z]] = ns[z]
+		}
+	}
+	for i, it := range s.Pooled {
+		if it.Whole {
+			x[m.QCol[i]] = math.Ceil(need[i] - 1e-9)
+		} else {
+			x[m.QCol[i]] = math.Ceil(100*it.Price*need[i] - 1e-6)
+		}
+	}
+	return x
+}
+
+// SplitCrews shares each rig's chosen options among its crews (Rig.Unit):
+// in the order of their points, in consecutive runs of about equal hours,
+// so each crew works one stretch of ground. It returns the options of the
+// shared plan (the same points, methods and rigs; more crews), a start for
+// a faster plan.
+func (m *Model) SplitCrews(chosen []int) []int {
+	s := m.Spec
+	first := make([]int, len(s.Rigs)) // rig → its first crew
+	crews := make([]int, len(s.Rigs)) // first crew → number of crews
+	for r, rg := range s.Rigs {
+		first[r] = r
+		if rg.Unit > 1 {
+			first[r] = first[r-1]
+		}
+		crews[first[r]]++
+	}
+	type key struct{ point, rig int }
+	slot := map[key][]int{} // options of a point and rig, in order
+	for o, op := range s.Options {
+		k := key{op.Point, op.Rig}
+		slot[k] = append(slot[k], o)
+	}
+	byFirst := map[int][]int{}
+	var firsts []int
+	for _, o := range chosen {
+		f := first[s.Options[o].Rig]
+		if _, ok := byFirst[f]; !ok {
+			firsts = append(firsts, f)
+		}
+		byFirst[f] = append(byFirst[f], o)
+	}
+	var out []int
+	for _, f := range firsts {
+		os := byFirst[f]
+		k := crews[f]
+		if k == 1 {
+			out = append(out, os...)
+			continue
+		}
+		sort.Slice(os, func(a, b int) bool { return s.Options[os[a]].Point < s.Options[os[b]].Point })
+		total := 0.0
+		for _, o := range os {
+			total += s.Options[o].Hours
+		}
+		groups := make([][]int, k)
+		hours := make([]float64, k)
+		done, crew := 0.0, 0
+		for _, o := range os {
+			op := s.Options[o]
+			for crew < k-1 && done >= total*float64(crew+1)/float64(k) {
+				crew++
+			}
+			done += op.Hours
+			groups[crew] = append(groups[crew], o)
+			hours[crew] += op.Hours
+		}
+		// The busiest run to the first crew, and so on: the model orders
+		// the crews by their days.
+		order := make([]int, k)
+		for g := range order {
+			order[g] = g
+		}
+		sort.SliceStable(order, func(a, b int) bool { return hours[order[a]] > hours[order[b]] })
+		for rank, g := range order {
+			for _, o := range groups[g] {
+				op := s.Options[o]
+				// The same option's place among its point's options on
+				// the crew.
+				idx := 0
+				for i, q := range slot[key{op.Point, op.Rig}] {
+					if q == o {
+						idx = i
+					}
+				}
+				out = append(out, slot[key{op.Point, f + rank}][idx])
+			}
+		}
+	}
+	sort.Ints(out)
+	return out
 }

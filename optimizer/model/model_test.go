@@ -18,6 +18,14 @@ func randomSpec(rng *rand.Rand) *Spec {
 	for r := 0; r < 2; r++ {
 		s.Rigs = append(s.Rigs, Rig{Name: string(rune('r' + r)), MobCost: float64(500 + rng.IntN(2000)), MobHours: float64(rng.IntN(6)), DayCost: float64(100 + rng.IntN(400))})
 	}
+	// Pooled items (as lab tests and logging hours): a third of a test per
+	// point, a fractional number of hours per point and per field day.
+	if rng.IntN(2) == 0 {
+		s.StartUpHours = 0.5
+	}
+	s.Pooled = []Pooled{{Name: "lab", Price: 85, Whole: true}, {Name: "log", Price: 95.37}}
+	s.Rigs[0].DayUses = []Use{{Item: 1, Amount: 0.25}}
+	s.Rigs[1].MobUses = []Use{{Item: 1, Amount: 1.333}}
 	s.PointZone = make([]int, s.NumPoints)
 	for p := range s.PointZone {
 		s.PointZone[p] = rng.IntN(nz)
@@ -27,7 +35,22 @@ func randomSpec(rng *rand.Rand) *Spec {
 					continue
 				}
 				s.Options = append(s.Options, Option{Point: p, Rig: r, Sampled: sampled,
-					Cost: float64(200 + rng.IntN(800)), Hours: float64(2 + rng.IntN(8)), Label: "o"})
+					Cost: float64(200 + rng.IntN(800)), Hours: float64(2+rng.IntN(8)) + 0.25*float64(rng.IntN(4)), Label: "o",
+					Uses: []Use{{Item: 0, Amount: float64(rng.IntN(4)) / 3}, {Item: 1, Amount: 0.001 * float64(rng.IntN(3000))}}})
+			}
+		}
+	}
+	// Sometimes a second crew of rig 1: the same options, Unit 2 (the
+	// model orders the crews; the brute force does not, so the optimum
+	// must not change).
+	if rng.IntN(2) == 0 {
+		c := s.Rigs[1]
+		c.Name, c.Unit = "s2", 2
+		s.Rigs = append(s.Rigs, c)
+		for _, op := range s.Options {
+			if op.Rig == 1 {
+				op.Rig = 2
+				s.Options = append(s.Options, op)
 			}
 		}
 	}

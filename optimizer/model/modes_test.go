@@ -67,6 +67,12 @@ func evaluateMode(s *Spec, choice []int) (float64, bool) {
 	hours := make([]float64, len(s.Rigs))
 	used := make([]bool, len(s.Rigs))
 	cost := 0.0
+	need := make([]float64, len(s.Pooled))
+	addUses := func(us []Use, times float64) {
+		for _, u := range us {
+			need[u.Item] += u.Amount * times
+		}
+	}
 	for p, o := range choice {
 		if o < 0 {
 			continue
@@ -79,6 +85,7 @@ func evaluateMode(s *Spec, choice []int) (float64, bool) {
 		hours[op.Rig] += op.Hours
 		used[op.Rig] = true
 		cost += op.Cost
+		addUses(op.Uses, 1)
 	}
 	for z, zn := range s.Zones {
 		if !s.MaximizeCoverage && count[z] < zn.MinCount {
@@ -93,9 +100,21 @@ func evaluateMode(s *Spec, choice []int) (float64, bool) {
 		if !used[r] {
 			continue
 		}
-		d := math.Ceil((hours[r]+rg.MobHours)/s.HoursPerDay - 1e-9)
+		// Every field day opens with the start-up allowance.
+		d := math.Ceil((hours[r]+rg.MobHours)/(s.HoursPerDay-s.StartUpHours) - 1e-9)
 		cost += rg.MobCost + d*rg.DayCost
 		finish = math.Max(finish, d)
+		addUses(rg.MobUses, 1)
+		addUses(rg.DayUses, d)
+	}
+	// As an estimate prices them: whole units bought, or the total
+	// extended and rounded up to the cent.
+	for i, it := range s.Pooled {
+		if it.Whole {
+			cost += math.Ceil(need[i]-1e-9) * it.Price
+		} else {
+			cost += math.Ceil(100*need[i]*it.Price-1e-6) / 100
+		}
 	}
 	if s.MaxDays > 0 && finish > s.MaxDays {
 		return 0, false

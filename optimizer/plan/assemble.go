@@ -64,7 +64,7 @@ func (pr *Prepared) Solve(ctx context.Context, opt Options) (*mip.Result, error)
 	t0 := time.Now()
 	// The start gets at most a third of the time limit; the node limit
 	// usually ends it far sooner.
-	mo.Start = pr.StartSolution(ctx, mo.GapRel, mo.TimeLimit/3)
+	mo.Start = pr.BestStart(ctx, mo.GapRel, mo.TimeLimit/3)
 	pr.Timings.add("start solution (zone covers)", t0)
 	t0 = time.Now()
 	cov, res, rounds, err := pr.SolveCovered(ctx, mo)
@@ -99,12 +99,6 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		frame = &geom.LocalFrame{OriginLon: sc.Origin.Lon, OriginLat: sc.Origin.Lat}
 	}
 
-	qty := map[string]float64{}
-	addQ := func(qs []sdk.Quantity, times float64) {
-		for _, q := range qs {
-			qty[q.Item] += q.Amount * times
-		}
-	}
 	zoneCount := make([]int, len(sc.Zones))
 	zoneSampled := make([]int, len(sc.Zones))
 	zoneMinDepth := make([]float64, len(sc.Zones))
@@ -125,7 +119,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 			XFt: round(c.P.X, 1), YFt: round(c.P.Y, 1),
 			Method: string(od.method), Rig: pr.Rigs[od.rig].name,
 			DepthFt: od.depth, Hours: round(pr.Spec.Options[o].Hours, 2),
-			OnPointHours: round(od.prof.answer.Hours.Total(), 2), Surface: string(zn.Ground.Surface),
+			OnPointHours: od.prof.onHours, Surface: string(zn.Ground.Surface),
 			Cost: round(od.prof.cost, 2), Required: c.Required || c.Corner,
 		}
 		if od.method == sdk.Boring {
@@ -138,7 +132,6 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 			pt.Lon, pt.Lat = &lon, &lat
 		}
 		p.Points = append(p.Points, pt)
-		addQ(od.prof.answer.Quantities, 1)
 		labCounts[od.zone] = labCounts[od.zone].Add(od.prof.lab)
 		chosenPoint[od.point] = true
 		zoneCount[od.zone]++
@@ -155,50 +148,30 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 			p.Warnings = append(p.Warnings, pitWarnings(pt.ID, od.depth)...)
 		}
 	}
-	// The lab program by zone: each zone's samples get its purposes'
-	// tests; the totals are rounded up once over the plan.
-	parts := make([]lab.Part, len(sc.Zones))
+	// The lab program by zone, for the basis shown: each zone's samples
+	// get its purposes' tests (priced, with every other item, by price).
 	for z, zn := range sc.Zones {
 		prog, err := labProgram(sc, z)
 		if err != nil {
 			return nil, err
 		}
-		parts[z] = lab.Part{Label: zn.ID, Program: prog, Counts: labCounts[z]}
 		if labCounts[z] != (lab.Counts{}) {
 			p.Lab = append(p.Lab, LabBasis{Zone: zn.ID, Program: prog.Name, Basis: prog.Source})
 		}
 	}
-	labQ, err := lab.Combine(parts)
+	est, err := pr.price(sol.Chosen, sol.Days)
 	if err != nil {
 		return nil, err
 	}
-	if _, err := price(rb, labQ, "lab program"); err != nil {
-		return nil, err
-	}
-	addQ(labQ, 1)
+	p.Estimate, p.Total = est.Lines, est.Total
 	for r, rd := range pr.Rigs {
 		rp := RigPlan{Name: rd.name, Title: rd.info.Title, Mobilized: sol.Mobilized[r], Points: rigPts[r],
 			ByMethod: rigBy[r], Hours: round(rigHours[r], 2), FieldDays: sol.Days[r]}
 		if sol.Mobilized[r] {
 			rp.MobHours = round(rd.mob.Hours, 2)
-			addQ(rd.mob.Quantities, 1)
 		}
-		addQ(rd.info.DayItems, float64(sol.Days[r]))
 		p.Rigs = append(p.Rigs, rp)
 	}
-
-	// Estimate lines in rate-book order; every item was priced in Prepare.
-	for _, it := range rb.Items {
-		q, ok := qty[it.Code]
-		if !ok || q == 0 {
-			continue
-		}
-		q = round(q, 3)
-		ext := round(q*it.UnitPrice, 2)
-		p.Estimate = append(p.Estimate, Line{Item: it.Code, Description: it.Description, Quantity: q, Unit: it.Unit, UnitPrice: it.UnitPrice, Extension: ext})
-		p.Total += ext
-	}
-	p.Total = round(p.Total, 2)
 
 	// Coverage of ground under spacing rules.
 	cov := Coverage{}
@@ -228,16 +201,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 	}
 
 	p.Excluded = pr.excluded()
-	if b := pr.baseline(); b != nil {
-		// Both costs unrounded (the plan's from the model), so that a
-		// baseline that is the plan itself saves exactly nothing.
-		b.Saving = round(b.Cost-sol.Cost, 2)
-		if b.Cost > 0 {
-			b.SavingPct = round(100*b.Saving/b.Cost, 2)
-		}
-		b.DaysSaved = b.FieldDays - p.Finish
-		p.Baseline = b
-	}
+	p.Baseline = pr.baselineFor(p.Total, p.Finish)
 	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth, pr.ExactReach(chosenPoint), pr.NeighbourFt(chosenPoint))
 	p.Warnings = append(p.Warnings, shallowBuildingWarnings(sc)...)
 	pb := pr.Model.Problem
@@ -401,6 +365,9 @@ func (pr *Prepared) excluded() []Excluded {
 	out := []Excluded{}
 	for z, zn := range pr.In.Scenario.Zones {
 		for _, rd := range pr.Rigs {
+			if rd.unit > 1 {
+				continue // a further crew answers as its rig
+			}
 			for _, m := range zoneMethods(zn, rd.info) {
 				if p, ok := rd.profiles[profileKey{z, m}]; ok && !p.answer.Feasible {
 					out = append(out, Excluded{Zone: zn.ID, Method: string(m), Rig: rd.name, Reason: p.answer.Reason})

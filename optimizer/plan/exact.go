@@ -280,25 +280,14 @@ func (pr *Prepared) raiseCoverNumbers(spec *model.Spec, spots []zoneSpot) error 
 }
 
 // mapStart carries a solution of old's model over to the columns of nu's,
-// which has the same options, rigs and zones plus perhaps options at the
-// end (new candidates, taken as unexplored).
+// which has the same options (perhaps more at the end, new candidates,
+// taken as unexplored): the same options chosen, every other column as
+// model.StartFor sets it.
 func mapStart(old, nu *model.Model, x []float64) []float64 {
 	if x == nil {
 		return nil
 	}
-	out := make([]float64, nu.Problem.LP.NumCols)
-	for o, j := range old.XCol {
-		out[nu.XCol[o]] = x[j]
-	}
-	for _, pair := range [][2][]int{{old.YCol, nu.YCol}, {old.DCol, nu.DCol}, {old.NCol, nu.NCol}, {old.SCol, nu.SCol}} {
-		for k, j := range pair[0] {
-			if j >= 0 && pair[1][k] >= 0 {
-				out[pair[1][k]] = x[j]
-			}
-		}
-	}
-	out[nu.TCol] = x[old.TCol]
-	return out
+	return nu.StartFor(old.Decode(x).Chosen)
 }
 
 // SolveCovered solves pr's model and then adds covering rows at every spot

@@ -35,7 +35,8 @@ func ScheduleInputs(ctx context.Context, p *Plan, sc *scenarios.Scenario, rb *ra
 		}
 		jobs = append(jobs, schedule.Job{
 			ID: pt.ID, Rig: pt.Rig, X: pt.XFt, Y: pt.YFt, Hours: pt.OnPointHours,
-			Surface: pt.Surface, Method: pt.Method, DepthFt: pt.DepthFt,
+			MoveHours: round(pt.Hours-pt.OnPointHours, hourPlaces),
+			Surface:   pt.Surface, Method: pt.Method, DepthFt: pt.DepthFt,
 			SampleIntervalFt: pt.SampleIntervalFt, Sampling: pt.Sampling, Lon: pt.Lon, Lat: pt.Lat,
 		})
 		used[pt.Rig] = true
@@ -52,7 +53,7 @@ func ScheduleInputs(ctx context.Context, p *Plan, sc *scenarios.Scenario, rb *ra
 	surfaces := []sdk.Surface{sdk.Firm, sdk.Wet, sdk.Soft}
 	var specs []schedule.RigSpec
 	for _, n := range names {
-		r, ok := rigs[n]
+		r, ok := rigs[BaseRig(n)]
 		if !ok {
 			return nil, nil, inputErrorf("the plan uses rig %q, which is not available now", n)
 		}
@@ -70,7 +71,10 @@ func ScheduleInputs(ctx context.Context, p *Plan, sc *scenarios.Scenario, rb *ra
 		}
 		spec := schedule.RigSpec{Name: n, SpeedFtPerHr: map[string]float64{}, StandbyItem: info.StandbyItem,
 			// The plan's mobilization hours are the round trip (sdk.MobilizeResponse).
-			MobHours: mob[n] / 2, DemobHours: mob[n] / 2}
+			MobHours: mob[n] / 2, DemobHours: mob[n] / 2,
+			// The moves as the plan priced them, so the schedule keeps the
+			// field days the estimate charges (schedule.RigSpec.BidMoves).
+			BidMoves: true}
 		for i, s := range surfaces {
 			if mv.Hours[i] > 0 {
 				spec.SpeedFtPerHr[string(s)] = speedLegFt / mv.Hours[i]

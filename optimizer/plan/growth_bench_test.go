@@ -2,7 +2,6 @@ package plan
 
 import (
 	"context"
-	"fmt"
 	"testing"
 	"time"
 
@@ -69,7 +68,7 @@ func BenchmarkPrepareGrowth(b *testing.B) {
 			} {
 				d, ok := stages[st.stage]
 				if !ok {
-					b.Fatal(fmt.Sprintf("stage %q not timed", st.stage))
+					b.Fatalf("stage %q not timed", st.stage)
 				}
 				b.ReportMetric(ms(d), st.metric)
 			}

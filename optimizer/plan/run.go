@@ -89,6 +89,11 @@ type Prepared struct {
 	ImpliedRadiusFt []float64
 	// Rounds reports the row generation of the last Solve (see exact.go).
 	Rounds CoverageRounds
+	pool   *pooling
+	// handGrids are the hand-laid grids, offered as candidates; hand is
+	// the baseline laid from them (baseline.go).
+	handGrids [][]geom.Point
+	hand      *handBase
 	// Timings records how long each stage took (wall time; kept out of
 	// the plan so the plan stays the same from run to run).
 	Timings Timings
@@ -108,7 +113,8 @@ func (t *Timings) add(stage string, since time.Time) {
 }
 
 type rigData struct {
-	name     string
+	name     string // the rig's name; a further crew's is "name#k"
+	unit     int    // crew number, from 1
 	rig      sdk.Rig
 	info     sdk.RigInfo
 	mob      sdk.MobilizeResponse
@@ -123,10 +129,14 @@ type profileKey struct {
 }
 
 type profile struct {
-	answer sdk.Answer
-	lab    lab.Counts // samples the point recovers, by kind
-	move   float64    // hours to move to a point in this zone
-	cost   float64
+	answer  sdk.Answer     // quantities kept to the thousandth (roundQuantities)
+	lab     lab.Counts     // samples the point recovers, by kind
+	labQ    []sdk.Quantity // the point's expected share of the lab program
+	onHours float64        // hours on the point, to the hundredth
+	move    float64        // hours to move to a point in this zone, to the hundredth
+	cost    float64        // the point's whole priced cost, lab share included
+	direct  float64        // the part of cost in whole cents (not pooled)
+	uses    []model.Use    // pooled items
 }
 
 type optionData struct {
@@ -161,7 +171,7 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		if err != nil {
 			return nil, err // the host names the rig and the call
 		}
-		pr.Rigs = append(pr.Rigs, rigData{name: name, rig: r, info: info, profiles: map[profileKey]profile{}})
+		pr.Rigs = append(pr.Rigs, rigData{name: name, unit: 1, rig: r, info: info, profiles: map[profileKey]profile{}})
 	}
 
 	// Counting rules: points each zone's count and area rules ask for.
@@ -210,7 +220,9 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 			CandidateSpacingFt: cand,
 			Corners:            zn.Rules.Corners, Required: zn.Rules.RequiredPoints,
 			Weight: zn.Priority,
+			Extra:  handGrid(zn),
 		}
+		pr.handGrids = append(pr.handGrids, zin[z].Extra)
 	}
 	if err := checkSize(sc); err != nil {
 		return nil, err
@@ -303,7 +315,8 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 					a.Quantities = append(append([]sdk.Quantity(nil), a.Quantities...), extra...)
 				}
 			}
-			p := profile{answer: a, move: mv.Hours[k]}
+			a.Quantities = roundQuantities(a.Quantities)
+			p := profile{answer: a, onHours: round(a.Hours.Total(), hourPlaces), move: round(mv.Hours[k], hourPlaces)}
 			if a.Feasible {
 				c, err := price(in.RateBook, a.Quantities, rd.name)
 				if err != nil {
@@ -322,6 +335,7 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 					return nil, err
 				}
 				p.cost = c + lc
+				p.labQ = labQ
 			}
 			rd.profiles[keys[k]] = p
 		}
@@ -329,6 +343,9 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		if err != nil {
 			return nil, err // the host names the rig and the call
 		}
+		rd.mob.Quantities = roundQuantities(rd.mob.Quantities)
+		rd.mob.Hours = round(rd.mob.Hours, hourPlaces)
+		rd.info.DayItems = roundQuantities(rd.info.DayItems)
 		if rd.mobCost, err = price(in.RateBook, rd.mob.Quantities, rd.name); err != nil {
 			return nil, err
 		}
@@ -338,6 +355,8 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 	}
 
 	pr.Timings.add("rig calls (one batch per rig)", t0)
+	pr.Rigs = expandUnits(pr.Rigs, sc.RigUnits)
+	pr.pool = pr.pooling()
 	// Every zone needs at least one way to be explored.
 	for z, zn := range sc.Zones {
 		if err := zoneReachable(pr, z, zn); err != nil {
@@ -346,14 +365,16 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 	}
 
 	spec := &model.Spec{
-		NumPoints:   len(lay.Candidates),
-		PointZone:   make([]int, len(lay.Candidates)),
-		Required:    make([]bool, len(lay.Candidates)),
-		CoverRows:   lay.RowCells,
-		HoursPerDay: sc.HoursDay,
-		DaysWeight:  0.01, // tie-break: among equally cheap plans, finish first
-		Budget:      opt.Budget,
-		MaxDays:     opt.MaxDays,
+		NumPoints:    len(lay.Candidates),
+		PointZone:    make([]int, len(lay.Candidates)),
+		Required:     make([]bool, len(lay.Candidates)),
+		CoverRows:    lay.RowCells,
+		HoursPerDay:  sc.HoursDay,
+		StartUpHours: StartUpHours,
+		Pooled:       pr.pool.items,
+		DaysWeight:   0.01, // tie-break: among equally cheap plans, finish first
+		Budget:       opt.Budget,
+		MaxDays:      opt.MaxDays,
 	}
 	for p, c := range lay.Candidates {
 		spec.PointZone[p] = c.Zone
@@ -395,7 +416,9 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		spec.Zones = append(spec.Zones, model.Zone{Name: zn.Name, MinCount: max(n, pr.CoverMin[z]), SampledShare: zn.Rules.SampledShare})
 	}
 	for _, rd := range pr.Rigs {
-		spec.Rigs = append(spec.Rigs, model.Rig{Name: rd.name, MobCost: rd.mobCost, MobHours: rd.mob.Hours, DayCost: rd.dayCost})
+		mob, mobUses := pr.pool.split(rd.mob.Quantities)
+		day, dayUses := pr.pool.split(rd.info.DayItems)
+		spec.Rigs = append(spec.Rigs, model.Rig{Name: rd.name, MobCost: mob, MobHours: rd.mob.Hours, DayCost: day, MobUses: mobUses, DayUses: dayUses, Unit: rd.unit})
 	}
 	if err := checkRoom(pr, spec); err != nil {
 		return nil, err
@@ -459,6 +482,25 @@ func apartPairs(cands []candidates.Candidate, sep float64) [][2]int {
 	return out
 }
 
+// expandUnits lists, after each rig, its further crews (scenario
+// rig_units): each is a rig of its own to the model — mobilized, priced on
+// its own field days and scheduled on its own route — that answers as the
+// rig does. Crews of one rig follow each other, so the model can order
+// them (model.Rig.Unit).
+func expandUnits(rigs []rigData, units map[string]int) []rigData {
+	var out []rigData
+	for _, rd := range rigs {
+		out = append(out, rd)
+		for k := 2; k <= units[rd.name]; k++ {
+			c := rd
+			c.name, c.unit = fmt.Sprintf("%s#%d", rd.name, k), k
+			c.info.Title = fmt.Sprintf("%s (crew %d)", rd.info.Title, k)
+			out = append(out, c)
+		}
+	}
+	return out
+}
+
 // appendOptions adds candidate p's options — every method its zone allows
 // with every rig that can do it there — to pr.Options and spec.Options.
 func (pr *Prepared) appendOptions(spec *model.Spec, p int) {
@@ -481,11 +523,60 @@ func (pr *Prepared) appendOptions(spec *model.Spec, p int) {
 			pr.Options = append(pr.Options, optionData{point: p, zone: c.Zone, method: m, rig: ri, depth: depthFor(zn, m), prof: prof})
 			spec.Options = append(spec.Options, model.Option{
 				Point: p, Rig: ri, Sampled: m.Sampled(),
-				Cost: prof.cost, Hours: prof.answer.Hours.Total() + prof.move,
+				Cost: prof.direct, Uses: prof.uses, Hours: prof.onHours + prof.move,
 				Label: fmt.Sprintf("%s_%s", m, rd.name),
 			})
 		}
 	}
+}
+
+// BaseRig is the rig a crew's name stands for: "tire-drill#2" →
+// "tire-drill" (rig names never hold "#").
+func BaseRig(name string) string {
+	if i := strings.IndexByte(name, '#'); i >= 0 {
+		return name[:i]
+	}
+	return name
+}
+
+// pooling decides which items the model pools (see price.go) and splits
+// every feasible profile's quantities.
+func (pr *Prepared) pooling() *pooling {
+	var qss [][]sdk.Quantity
+	for _, rd := range pr.Rigs {
+		for _, k := range sortedProfileKeys(rd.profiles) {
+			if p := rd.profiles[k]; p.answer.Feasible {
+				qss = append(qss, p.answer.Quantities, p.labQ)
+			}
+		}
+		qss = append(qss, rd.mob.Quantities, rd.info.DayItems)
+	}
+	pl := newPooling(pr.In.RateBook, qss)
+	for _, rd := range pr.Rigs {
+		for k, p := range rd.profiles {
+			if !p.answer.Feasible {
+				continue
+			}
+			all := append(append([]sdk.Quantity(nil), p.answer.Quantities...), p.labQ...)
+			p.direct, p.uses = pl.split(all)
+			rd.profiles[k] = p
+		}
+	}
+	return pl
+}
+
+func sortedProfileKeys(m map[profileKey]profile) []profileKey {
+	ks := make([]profileKey, 0, len(m))
+	for k := range m {
+		ks = append(ks, k)
+	}
+	sort.Slice(ks, func(i, j int) bool {
+		if ks[i].zone != ks[j].zone {
+			return ks[i].zone < ks[j].zone
+		}
+		return ks[i].method < ks[j].method
+	})
+	return ks
 }
 
 // zoneMethods lists the methods a zone allows that a rig performs, in the

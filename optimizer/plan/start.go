@@ -72,6 +72,7 @@ func (pr *Prepared) StartSolution(ctx context.Context, gapRel float64, timeLimit
 			sub.LP.ColUp[m.XCol[o]] = 0
 		}
 	}
+	pr.oneCrew(sub.LP.ColUp)
 	// Half the plan's gap: the restricted model's bound lies a little
 	// above the full model's, so a start proven to half the gap is
 	// usually within the whole gap of the full model's bound, and the full
@@ -81,4 +82,45 @@ func (pr *Prepared) StartSolution(ctx context.Context, gapRel float64, timeLimit
 		return nil
 	}
 	return res.X
+}
+
+// BestStart is the cheaper of StartSolution and the hand-laid baseline
+// (baseline.go), which is a plan of the model too: starting from it, the
+// solve can only end at a plan no dearer than the baseline.
+func (pr *Prepared) BestStart(ctx context.Context, gapRel float64, timeLimit time.Duration) []float64 {
+	start := pr.StartSolution(ctx, gapRel, timeLimit)
+	hb := pr.baseline()
+	if hb == nil || pr.Spec.MaximizeCoverage {
+		return start
+	}
+	if start == nil || objective(pr.Model.Problem, hb.start) < objective(pr.Model.Problem, start) {
+		return hb.start
+	}
+	return start
+}
+
+func objective(p *mip.Problem, x []float64) float64 {
+	v := 0.0
+	for j, c := range p.LP.Obj {
+		v += c * x[j]
+	}
+	return v
+}
+
+// oneCrew bars every further crew (scenario rig_units) in a copy of the
+// model's column upper bounds: a restricted solve that only seeks a start
+// or a baseline's cost need not search the crews' symmetric choices, and
+// its plans remain plans of the full model.
+func (pr *Prepared) oneCrew(colUp []float64) {
+	m := pr.Model
+	for r, rd := range pr.Rigs {
+		if rd.unit > 1 {
+			colUp[m.YCol[r]], colUp[m.DCol[r]] = 0, 0
+		}
+	}
+	for o, od := range pr.Options {
+		if pr.Rigs[od.rig].unit > 1 {
+			colUp[m.XCol[o]] = 0
+		}
+	}
 }

@@ -136,7 +136,7 @@ type htmlView struct {
 }
 
 type baselineView struct {
-	Note, Rig, Points, Cost, FieldDays, Saving, SavingAmount, SavingPct, DaysSaved string
+	Note, Rig, Points, Cost, FieldDays, Saving, SavingAmount, SavingPct, DaysSaved, Split string
 }
 
 type ruleView struct {
@@ -235,6 +235,9 @@ func newHTMLView(in HTMLInput) (*htmlView, error) {
 			Note: bl.Note, Rig: bl.Rig, Points: fmt.Sprint(bl.Points), Cost: money(bl.Cost, cur),
 			FieldDays: fmt.Sprint(bl.FieldDays), Saving: money(bl.Saving, cur), SavingAmount: money(bl.Saving, ""),
 			SavingPct: fmt.Sprintf("%.1f%%", bl.SavingPct), DaysSaved: fmt.Sprint(bl.DaysSaved),
+		}
+		if sp := bl.Split; sp != nil {
+			v.Baseline.Split = fmt.Sprintf("methods %s, rigs %s, layout %s", money(sp.Methods, cur), money(sp.Rigs, cur), money(sp.Layout, cur))
 		}
 	}
 

@@ -111,7 +111,7 @@ var htmlPage = template.Must(template.New("report").Parse(`<!DOCTYPE html>
 </div>
 <p>{{.CoverageDetail}}.</p>
 {{- with .Baseline}}
-<p id="baseline">Against a hand-laid grid — {{.Note}}: {{.Points}} points by {{.Rig}}, {{.Cost}}, {{.FieldDays}} field days. This plan saves {{.Saving}} ({{.SavingPct}}) and {{.DaysSaved}} field days.</p>
+<p id="baseline">Against a hand-laid grid — {{.Note}}: {{.Points}} points by {{.Rig}}, {{.Cost}}, {{.FieldDays}} field days. This plan saves {{.Saving}} ({{.SavingPct}}) and {{.DaysSaved}} field days{{with .Split}}; by source: {{.}}{{end}}.</p>
 {{- end}}
 </section>
 

@@ -97,8 +97,12 @@ func Text(w io.Writer, p *plan.Plan) error {
 		len(p.Points), money(p.Total, cur), p.Finish, p.Coverage.CoveredPercent)
 
 	if bl := p.Baseline; bl != nil {
-		fmt.Fprintf(&b, "Against a hand-laid grid (%s): %d points, %s, %d field days — this plan saves %s (%.1f%%) and %d field days\n\n",
+		fmt.Fprintf(&b, "Against a hand-laid grid (%s): %d points, %s, %d field days — this plan saves %s (%.1f%%) and %d field days\n",
 			bl.Note, bl.Points, money(bl.Cost, cur), bl.FieldDays, money(bl.Saving, cur), bl.SavingPct, bl.DaysSaved)
+		if sp := bl.Split; sp != nil {
+			fmt.Fprintf(&b, "  the saving by source: methods %s, rigs %s, layout %s\n", money(sp.Methods, cur), money(sp.Rigs, cur), money(sp.Layout, cur))
+		}
+		b.WriteString("\n")
 	}
 
 	b.WriteString("Points by method and rig\n")

@@ -18,7 +18,16 @@ const (
 	Work       Kind = "work"       // on the point: set-up to tear-down
 	Standby    Kind = "standby"    // on site, kept from working by wet ground
 	Demobilize Kind = "demobilize" // travel back to the yard
+	StartUp    Kind = "start-up"   // the allowance that opens every field day
 )
+
+// StartUpHours is the start-up allowance of a field day: the morning
+// safety meeting and rig check, and, when a point was left unfinished the
+// evening before (a boring cased and capped, a pit covered and fenced, a
+// sounding's rods left in), re-rigging it — half an hour (common
+// practice). The plan's day count uses the same allowance
+// (Calendar.StartUpHours).
+const StartUpHours = 0.5
 
 // Entry is one stretch of a rig's day.
 type Entry struct {
@@ -52,9 +61,13 @@ type RigSchedule struct {
 	Route   []string
 	RouteFt float64 // length of the route, from the entrance if given
 	// Hours by kind over the whole stay.
-	MobHours, TravelHours, WorkHours, StandbyHours, DemobHours float64
-	StandbyItem                                                string
-	StandbyRate, StandbyCost                                   float64
+	MobHours, TravelHours, WorkHours, StandbyHours, DemobHours, StartUpHours float64
+	// RouteTravelHours is the route's own travel at the rig's speeds; it
+	// differs from TravelHours when the moves are laid at the plan's
+	// allowances (RigSpec.BidMoves).
+	RouteTravelHours         float64
+	StandbyItem              string
+	StandbyRate, StandbyCost float64
 	// First and Last are the dates of arrival and departure; FieldDays the
 	// working days between them, both included, standby days too.
 	First, Last time.Time
@@ -108,6 +121,7 @@ type calx struct {
 	weekday0    time.Weekday
 	workStartS  int64
 	hoursPerDay float64
+	startUp     float64
 	work        [7]bool
 	given       map[int]bool   // wet day offsets given by Calendar.WetDates
 	wet         func(int) bool // wet day test for this pass
@@ -118,7 +132,7 @@ type calx struct {
 func newCalx(cal Calendar, work [7]bool) *calx {
 	c := &calx{
 		loc: cal.Start.Location(), weekday0: cal.Start.Weekday(),
-		workStartS: int64(cal.WorkStart / time.Second), hoursPerDay: cal.HoursPerDay,
+		workStartS: int64(cal.WorkStart / time.Second), hoursPerDay: cal.HoursPerDay, startUp: cal.StartUpHours,
 		work: work, given: map[int]bool{}, prob: cal.WetProbByMonth,
 	}
 	c.y, c.m, c.d = cal.Start.Date()
@@ -182,6 +196,9 @@ func (p *placer) begin() {
 func (p *placer) openDay() {
 	if p.record {
 		p.days = append(p.days, Day{Date: p.c.date(p.off), WorkDay: p.workDay, Wet: p.c.wet(p.off)})
+	}
+	if p.c.startUp > 0 {
+		p.add(StartUp, nil, p.c.startUp, false)
 	}
 }
 
@@ -251,28 +268,14 @@ func (p *placer) put(k Kind, j *Job, h float64, ground bool) {
 	}
 }
 
-// block lays a move of t hours and a stretch of h hours that belong
-// together: both today if they fit, else both at the start of the next
-// working day, else (longer than a day) from here on over several days.
+// block lays a move of t hours and then h hours of k. The day rule (what a
+// field coordinator plans by, and what the plan's day count assumes): work
+// goes on to the end of the working day, and a point unfinished then is
+// made safe and finished the next morning after the day's start-up
+// allowance (Calendar.StartUpHours). A rig's days are therefore
+// ⌈(mobilization + moves + hours on points + demobilization) / (hours a day −
+// start-up)⌉ when no wet day stands it by.
 func (p *placer) block(k Kind, j *Job, t, h float64, ground bool) {
-	if ground {
-		p.ensureDry()
-	}
-	H := p.c.hoursPerDay
-	switch {
-	case t+h <= H-p.used+fitEps:
-	case t+h <= H+fitEps:
-		p.nextDay()
-		if ground {
-			p.ensureDry()
-		}
-	default:
-		p.put(Travel, j, t, ground)
-		t = 0
-		if h <= H+fitEps && h > H-p.used+fitEps {
-			p.nextDay()
-		}
-	}
 	p.put(Travel, j, t, ground)
 	p.put(k, j, h, ground)
 }
@@ -282,7 +285,8 @@ type plannedRoute struct {
 	rig    *RigSpec
 	jobs   []*Job    // in visiting order
 	index  []int     // input index of each job, in visiting order
-	travel []float64 // hours of the move to each job
+	travel []float64 // hours of the move to each job, as laid
+	legs   float64   // hours of the route's own legs
 	feet   float64
 }
 
@@ -312,7 +316,12 @@ func planRoutes(jobs []Job, rigs []RigSpec) []plannedRoute {
 			j := js[v-1]
 			pr.jobs = append(pr.jobs, j)
 			pr.index = append(pr.index, idx[v-1])
-			pr.travel = append(pr.travel, l.at(prev, v))
+			leg := l.at(prev, v)
+			pr.legs += leg
+			if r.BidMoves {
+				leg = j.MoveHours
+			}
+			pr.travel = append(pr.travel, leg)
 			if have {
 				pr.feet += math.Hypot(j.X-px, j.Y-py)
 			}
@@ -367,7 +376,7 @@ func build(cal Calendar, work [7]bool, routes []plannedRoute) (*Schedule, error)
 			return nil, tooLong(pr.rig.Name)
 		}
 		rs := RigSchedule{
-			Rig: pr.rig.Name, RouteFt: pr.feet, StandbyItem: pr.rig.StandbyItem,
+			Rig: pr.rig.Name, RouteFt: pr.feet, RouteTravelHours: pr.legs, StandbyItem: pr.rig.StandbyItem,
 			StandbyRate: pr.rig.StandbyRate, Days: p.days,
 		}
 		seq := map[string]int{}
@@ -392,6 +401,8 @@ func build(cal Calendar, work [7]bool, routes []plannedRoute) (*Schedule, error)
 					rs.StandbyHours += e.Hours
 				case Demobilize:
 					rs.DemobHours += e.Hours
+				case StartUp:
+					rs.StartUpHours += e.Hours
 				}
 			}
 		}

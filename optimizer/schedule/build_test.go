@@ -84,6 +84,9 @@ func checkInvariants(t *testing.T, s *Schedule, jobs []Job, rigs []RigSpec, cal 
 			}
 		}
 		first, last := r.Days[0].Entries[0], r.Days[len(r.Days)-1].Entries
+		if first.Kind == StartUp && len(r.Days[0].Entries) > 1 {
+			first = r.Days[0].Entries[1]
+		}
 		if r.MobHours > 0 && first.Kind != Mobilize {
 			t.Errorf("%s: first entry is %s, want mobilize", r.Rig, first.Kind)
 		}
@@ -98,10 +101,38 @@ func checkInvariants(t *testing.T, s *Schedule, jobs []Job, rigs []RigSpec, cal 
 		if math.Abs(workH[j.ID]-j.Hours) > 1e-6 {
 			t.Errorf("job %s worked %.4f h, want %.4f h", j.ID, workH[j.ID], j.Hours)
 		}
-		// A move and a job that fit in one day are never split.
-		if travelH[j.ID]+j.Hours <= cal.HoursPerDay && (pieces[j.ID] != 1 || len(days[j.ID]) != 1) {
-			t.Errorf("job %s (%.2f h + %.2f h move) split over %d pieces on %d days; it fits in one %v h day",
-				j.ID, j.Hours, travelH[j.ID], pieces[j.ID], len(days[j.ID]), cal.HoursPerDay)
+		// A job is worked in one piece a day, on consecutive field days.
+		if pieces[j.ID] != len(days[j.ID]) && travelH[j.ID] == 0 {
+			t.Errorf("job %s worked in %d pieces on %d days", j.ID, pieces[j.ID], len(days[j.ID]))
+		}
+	}
+	// The day rule: every day but a rig's last is worked to its end (the
+	// start-up allowance, moves, work, standby), so that with no wet day a
+	// rig's days are ⌈total hours / (hours a day − start-up)⌉.
+	for _, r := range s.Rigs {
+		total := 0.0
+		for k, d := range r.Days {
+			h := 0.0
+			for _, e := range d.Entries {
+				h += e.Hours
+				if e.Kind != StartUp && e.Kind != Standby {
+					total += e.Hours
+				}
+			}
+			if k < len(r.Days)-1 && math.Abs(h-cal.HoursPerDay) > 1e-6 {
+				t.Errorf("%s %s: %.4f h laid in a %v h day that is not the rig's last", r.Rig, d.Date.Format(dateLayout), h, cal.HoursPerDay)
+			}
+			if k > 0 || cal.StartUpHours > 0 {
+				if cal.StartUpHours > 0 && (len(d.Entries) == 0 || d.Entries[0].Kind != StartUp || math.Abs(d.Entries[0].Hours-cal.StartUpHours) > 1e-9) {
+					t.Errorf("%s %s: the day does not open with its %.2f h start-up", r.Rig, d.Date.Format(dateLayout), cal.StartUpHours)
+				}
+			}
+		}
+		if len(cal.WetDates) == 0 {
+			want := int(math.Ceil(total/(cal.HoursPerDay-cal.StartUpHours) - 1e-9))
+			if r.FieldDays != want {
+				t.Errorf("%s: %d field days for %.4f h at %v h a day less %v h start-up; want %d", r.Rig, r.FieldDays, total, cal.HoursPerDay, cal.StartUpHours, want)
+			}
 		}
 	}
 	if len(s.Stakes) != len(jobs) {
@@ -128,8 +159,13 @@ func TestBuildInvariantsRandom(t *testing.T) {
 		if tc%3 == 0 {
 			cal.WorkDays = []time.Weekday{time.Monday, time.Tuesday, time.Wednesday, time.Thursday, time.Friday, time.Saturday}
 		}
-		for k := 0; k < rng.IntN(6); k++ {
-			cal.WetDates = append(cal.WetDates, cal.Start.AddDate(0, 0, rng.IntN(30)))
+		if tc%2 == 0 {
+			cal.StartUpHours = StartUpHours
+		}
+		if tc%4 != 1 {
+			for k := 0; k < rng.IntN(6); k++ {
+				cal.WetDates = append(cal.WetDates, cal.Start.AddDate(0, 0, rng.IntN(30)))
+			}
 		}
 		rigs := []RigSpec{tireRig(), trackRig()}
 		s, err := Build(jobs, rigs, cal)
@@ -159,14 +195,14 @@ func TestBuildHandWorked(t *testing.T) {
 		t.Fatalf("route %s, want A,B,C (700 ft against 800 ft or more)", got)
 	}
 	// Day 1 (Mon 2027-03-01): mobilize 07:00–09:00; A 09:00–12:00; move
-	// 300 ft = 0.5 h 12:00–12:30; B 12:30–16:30. C needs 400 ft = 0.6667 h
-	// plus 6 h, more than the 0.5 h left: day 2 (Tue) 07:00–07:40 move,
-	// 07:40–13:40 C, 13:40–15:10 demobilize.
+	// 300 ft = 0.5 h 12:00–12:30; B 12:30–16:30. The move to C, 400 ft =
+	// 0.6667 h, takes the 0.5 h left, 16:30–17:00, and goes on day 2 (Tue)
+	// 07:00–07:10; C 07:10–13:10; demobilize 13:10–14:40.
 	want := []struct{ date, start, end string }{
 		{"2027-03-01", "07:00", "09:00"}, {"2027-03-01", "09:00", "12:00"}, {"2027-03-01", "12:00", "12:30"}, {"2027-03-01", "12:30", "16:30"},
-		{"2027-03-02", "07:00", "07:40"}, {"2027-03-02", "07:40", "13:40"}, {"2027-03-02", "13:40", "15:10"},
+		{"2027-03-01", "16:30", "17:00"}, {"2027-03-02", "07:00", "07:10"}, {"2027-03-02", "07:10", "13:10"}, {"2027-03-02", "13:10", "14:40"},
 	}
-	kinds := []Kind{Mobilize, Work, Travel, Work, Travel, Work, Demobilize}
+	kinds := []Kind{Mobilize, Work, Travel, Work, Travel, Travel, Work, Demobilize}
 	var got []Entry
 	var dates []string
 	for _, d := range r.Days {
@@ -465,10 +501,13 @@ func TestBuildDaylightSaving(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	for _, d := range s.Rigs[0].Days {
+	// Friday: job 1 07:00–15:00, job 2 15:00–17:00; Monday: the rest of
+	// job 2, 6 h, 07:00–13:00 on the new wall clock.
+	wantEnd := []string{"15:00", "13:00"}
+	for k, d := range s.Rigs[0].Days {
 		e := d.Entries[0]
-		if hhmm(e.Start) != "07:00" || hhmm(e.End) != "15:00" {
-			t.Errorf("%s: %s–%s, want 07:00–15:00 wall clock", d.Date.Format(dateLayout), hhmm(e.Start), hhmm(e.End))
+		if k >= len(wantEnd) || hhmm(e.Start) != "07:00" || hhmm(e.End) != wantEnd[k] {
+			t.Errorf("%s: %s–%s, want 07:00–%s wall clock", d.Date.Format(dateLayout), hhmm(e.Start), hhmm(e.End), wantEnd[min(k, 1)])
 		}
 	}
 	if got := s.Rigs[0].Last.Format(dateLayout); got != "2027-03-15" {

@@ -25,7 +25,8 @@ func Example() {
 	}
 	cal := schedule.Calendar{
 		Start: time.Date(2027, 4, 5, 0, 0, 0, 0, time.UTC), WorkStart: 7 * time.Hour, HoursPerDay: 10,
-		WetDates: []time.Time{time.Date(2027, 4, 6, 0, 0, 0, 0, time.UTC)},
+		StartUpHours: schedule.StartUpHours,
+		WetDates:     []time.Time{time.Date(2027, 4, 6, 0, 0, 0, 0, time.UTC)},
 	}
 	s, err := schedule.Build(jobs, rigs, cal)
 	if err != nil {
@@ -43,16 +44,22 @@ func Example() {
 	}
 	fmt.Println("P50 ≤ P80:", !r.P80Finish.Before(r.P50Finish))
 	// Output:
-	// route: [B-1 B-3 B-2] finish: 2027-04-08 standby: 10 h
+	// route: [B-1 B-3 B-2] finish: 2027-04-08 standby: 9.5 h
 	// rig,date,work_day,start,end,hours,kind,point,method,depth_ft,spans_days,wet
-	// tire-drill,2027-04-05,1,07:00,09:00,2.00,mobilize,,,,false,false
-	// tire-drill,2027-04-05,1,09:00,09:05,0.08,travel,B-1,,,false,false
-	// tire-drill,2027-04-05,1,09:05,15:05,6.00,work,B-1,boring,30.0,false,false
-	// tire-drill,2027-04-06,2,07:00,17:00,10.00,standby,,,,false,true
-	// tire-drill,2027-04-07,3,07:00,07:20,0.33,travel,B-3,,,false,false
-	// tire-drill,2027-04-07,3,07:20,12:20,5.00,work,B-3,boring,30.0,false,false
-	// tire-drill,2027-04-08,4,07:00,07:25,0.42,travel,B-2,,,false,false
-	// tire-drill,2027-04-08,4,07:25,14:25,7.00,work,B-2,boring,40.0,false,false
-	// tire-drill,2027-04-08,4,14:25,16:25,2.00,demobilize,,,,false,false
+	// tire-drill,2027-04-05,1,07:00,07:30,0.50,start-up,,,,false,false
+	// tire-drill,2027-04-05,1,07:30,09:30,2.00,mobilize,,,,false,false
+	// tire-drill,2027-04-05,1,09:30,09:35,0.08,travel,B-1,,,false,false
+	// tire-drill,2027-04-05,1,09:35,15:35,6.00,work,B-1,boring,30.0,false,false
+	// tire-drill,2027-04-05,1,15:35,15:55,0.33,travel,B-3,,,false,false
+	// tire-drill,2027-04-05,1,15:55,17:00,1.08,work,B-3,boring,30.0,true,false
+	// tire-drill,2027-04-06,2,07:00,07:30,0.50,start-up,,,,false,true
+	// tire-drill,2027-04-06,2,07:30,17:00,9.50,standby,,,,false,true
+	// tire-drill,2027-04-07,3,07:00,07:30,0.50,start-up,,,,false,false
+	// tire-drill,2027-04-07,3,07:30,11:25,3.92,work,B-3,boring,30.0,true,false
+	// tire-drill,2027-04-07,3,11:25,11:50,0.42,travel,B-2,,,false,false
+	// tire-drill,2027-04-07,3,11:50,17:00,5.16,work,B-2,boring,40.0,true,false
+	// tire-drill,2027-04-08,4,07:00,07:30,0.50,start-up,,,,false,false
+	// tire-drill,2027-04-08,4,07:30,09:20,1.84,work,B-2,boring,40.0,true,false
+	// tire-drill,2027-04-08,4,09:20,11:20,2.00,demobilize,,,,false,false
 	// P50 ≤ P80: true
 }

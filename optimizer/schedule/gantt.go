@@ -12,7 +12,8 @@ import (
 // The Gantt chart's look. Each kind differs in lightness and in shape, not
 // in hue alone, so a grey print keeps them apart: work is a dark solid bar,
 // travel a light solid bar, mobilization and demobilization white with
-// diagonal stripes, standby white with a cross-hatch and a dashed outline.
+// diagonal stripes, standby white with a cross-hatch and a dashed outline,
+// the day's start-up allowance white with a solid outline.
 const (
 	ganttWorkFill   = "#1f5f5b"
 	ganttTravelFill = "#d9c89e"
@@ -57,6 +58,7 @@ func WriteGanttSVG(w io.Writer, s *Schedule) error {
 	items := []struct{ label, style string }{
 		{"work on a point", `fill="` + ganttWorkFill + `"`},
 		{"move between points", `fill="` + ganttTravelFill + `"`},
+		{"start-up (safety meeting, rig check)", `fill="#ffffff" stroke="` + ganttWorkFill + `" stroke-width="0.8"`},
 		{"mobilize / demobilize", `fill="url(#mob-stripes)" stroke="` + ganttMobInk + `" stroke-width="0.8"`},
 		{"standby (wet ground)", `fill="url(#standby-hatch)" stroke="` + ganttStandbyInk + `" stroke-width="1" stroke-dasharray="3,2"`},
 		{"day off", `fill="` + ganttOffDayFill + `" stroke="` + ganttGridInk + `" stroke-width="0.5"`},
@@ -136,6 +138,8 @@ func WriteGanttSVG(w io.Writer, s *Schedule) error {
 					style = `fill="` + ganttWorkFill + `" stroke="#ffffff" stroke-width="0.5"`
 				case Travel:
 					style = `fill="` + ganttTravelFill + `"`
+				case StartUp:
+					style = `fill="#ffffff" stroke="` + ganttWorkFill + `" stroke-width="0.8"`
 				case Mobilize, Demobilize:
 					style = `fill="url(#mob-stripes)" stroke="` + ganttMobInk + `" stroke-width="0.8"`
 				case Standby:

@@ -41,6 +41,13 @@ type RigSpec struct {
 	// Entrance is where the rig enters the site after mobilization. Nil:
 	// the route may start at any point (whichever makes it shortest).
 	Entrance *XY
+	// BidMoves lays each move at its job's MoveHours — the allowance the
+	// plan priced and counted days on (a move at the zone's typical
+	// spacing) — instead of the route leg's own time, so the schedule keeps
+	// the days the bid promised. The route still orders the visits;
+	// RigSchedule.RouteTravelHours reports its own travel beside the
+	// allowances.
+	BidMoves bool
 }
 
 // Job is one exploration point to schedule.
@@ -51,7 +58,10 @@ type Job struct {
 	X, Y float64
 	// Hours on the point (set-up, advance, sampling, grouting, tear-down),
 	// excluding travel between points.
-	Hours            float64
+	Hours float64
+	// MoveHours is the plan's allowance for the move to the point (used
+	// when the rig's BidMoves is set).
+	MoveHours        float64
 	Surface          string
 	Method           string
 	DepthFt          float64
@@ -72,6 +82,9 @@ type Calendar struct {
 	WorkStart time.Duration
 	// HoursPerDay is the length of the working day, e.g. 10.
 	HoursPerDay float64
+	// StartUpHours opens every field day (see the package's StartUpHours,
+	// the value the plan assumes); 0: none.
+	StartUpHours float64
 	// WorkDays are the weekdays worked. Nil means Monday to Friday; a
 	// non-nil empty slice is an error.
 	WorkDays []time.Weekday
@@ -143,6 +156,9 @@ func validCalendar(cal Calendar) ([7]bool, error) {
 	}
 	if !finite(cal.HoursPerDay) || cal.HoursPerDay <= 0 || cal.HoursPerDay > 24 {
 		return wd, bad("calendar.hours_per_day", "working hours per day are %v", "give hours between 0 and 24, e.g. 10", cal.HoursPerDay)
+	}
+	if !finite(cal.StartUpHours) || cal.StartUpHours < 0 || cal.StartUpHours >= cal.HoursPerDay {
+		return wd, bad("calendar.start_up_hours", "start-up allowance %v h in a %v h day", "give hours ≥ 0 and less than the working day, e.g. 0.5", cal.StartUpHours, cal.HoursPerDay)
 	}
 	if cal.WorkStart < 0 || cal.WorkStart >= 24*time.Hour {
 		return wd, bad("calendar.work_start", "work starts at %v after midnight", "give a time of day from 00:00 to 23:59, e.g. 07:00", cal.WorkStart)
@@ -248,6 +264,9 @@ func validate(jobs []Job, rigs []RigSpec) (map[string]*RigSpec, error) {
 		}
 		if !finite(j.DepthFt) || j.DepthFt < 0 {
 			return nil, bad(f+".depth_ft", "depth %v ft", "give a depth ≥ 0", j.DepthFt)
+		}
+		if !finite(j.MoveHours) || j.MoveHours < 0 {
+			return nil, bad(f+".move_hours", "move allowance %v h", "give hours ≥ 0", j.MoveHours)
 		}
 		if !finite(j.SampleIntervalFt) || j.SampleIntervalFt < 0 {
 			return nil, bad(f+".sample_interval_ft", "sample interval %v ft", "give an interval ≥ 0 (0: none)", j.SampleIntervalFt)

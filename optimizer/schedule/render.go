@@ -5,6 +5,7 @@ import (
 	"encoding/csv"
 	"fmt"
 	"io"
+	"math"
 	"strconv"
 	"strings"
 	"text/tabwriter"
@@ -67,6 +68,9 @@ func WriteText(w io.Writer, s *Schedule) error {
 			num(r.MobHours, 1), num(r.TravelHours, 1), num(r.WorkHours, 1), num(r.StandbyHours, 1), num(r.DemobHours, 1), num(r.RouteFt, 0))
 		if r.StandbyHours > 0 {
 			fmt.Fprintf(bw, "  standby: %s h × %s (%s) = %s\n", num(r.StandbyHours, 1), num(r.StandbyRate, 2), r.StandbyItem, num(r.StandbyCost, 2))
+		}
+		if math.Abs(r.RouteTravelHours-r.TravelHours) >= 0.05 {
+			fmt.Fprintf(bw, "  moves laid at the plan's allowance, %s h; the route itself takes %s h\n", num(r.TravelHours, 1), num(r.RouteTravelHours, 1))
 		}
 		fmt.Fprintf(bw, "  route: %s\n", strings.Join(r.Route, " → "))
 		tw := tabwriter.NewWriter(bw, 0, 0, 2, ' ', 0)

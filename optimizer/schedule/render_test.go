@@ -25,7 +25,7 @@ func smallCase(t *testing.T) *Schedule {
 	jobs := []Job{
 		{ID: "B-1", Rig: "tire-drill", X: 0, Y: 0, Hours: 5, Surface: Firm, Method: "boring", DepthFt: 30, SampleIntervalFt: 5, Lon: lon(-97.0001), Lat: lon(30.0001)},
 		{ID: "B-2", Rig: "tire-drill", X: 400, Y: 0, Hours: 6, Surface: Firm, Method: "boring", DepthFt: 40, SampleIntervalFt: 5, Lon: lon(-96.9988), Lat: lon(30.0001)},
-		{ID: "B-3", Rig: "tire-drill", X: 400, Y: 300, Hours: 7.5, Surface: Soft, Method: "boring", DepthFt: 50, SampleIntervalFt: 5, Lon: lon(-96.9988), Lat: lon(30.0009)},
+		{ID: "B-3", Rig: "tire-drill", X: 400, Y: 300, Hours: 12, Surface: Soft, Method: "boring", DepthFt: 50, SampleIntervalFt: 5, Lon: lon(-96.9988), Lat: lon(30.0009)},
 		{ID: "B-4", Rig: "tire-drill", X: 0, Y: 300, Hours: 4, Surface: Firm, Method: "boring", DepthFt: 25, SampleIntervalFt: 2.5, Lon: lon(-97.0001), Lat: lon(30.0009)},
 		{ID: "C-1", Rig: "cone-truck", X: 200, Y: 150, Hours: 3, Surface: Firm, Method: "cpt", DepthFt: 60, Lon: lon(-96.9995), Lat: lon(30.0005)},
 		{ID: "C-2", Rig: "cone-truck", X: 600, Y: 150, Hours: 12, Surface: Firm, Method: "cpt", DepthFt: 100, Lon: lon(-96.9982), Lat: lon(30.0005)},
@@ -34,7 +34,7 @@ func smallCase(t *testing.T) *Schedule {
 		{Name: "tire-drill", SpeedFtPerHr: map[string]float64{Firm: 1200, Soft: 500}, MobHours: 2.5, DemobHours: 2, StandbyItem: "standby-hr", StandbyRate: 180, Entrance: &XY{0, -100}},
 		{Name: "cone-truck", SpeedFtPerHr: map[string]float64{Firm: 1500}, WetAccess: true, MobHours: 1, DemobHours: 1},
 	}
-	cal := Calendar{Start: time.Date(2027, 4, 1, 0, 0, 0, 0, time.UTC), WorkStart: 7 * time.Hour, HoursPerDay: 10,
+	cal := Calendar{Start: time.Date(2027, 4, 1, 0, 0, 0, 0, time.UTC), WorkStart: 7 * time.Hour, HoursPerDay: 10, StartUpHours: StartUpHours,
 		WetDates: []time.Time{time.Date(2027, 4, 6, 0, 0, 0, 0, time.UTC)}}
 	s, err := Build(jobs, rigs, cal)
 	if err != nil {
@@ -121,8 +121,8 @@ func TestScheduleCSV(t *testing.T) {
 	for _, r := range rows[1:] {
 		if r[6] == "standby" {
 			standby++
-			if r[0] != "tire-drill" || r[1] != "2027-04-06" || r[3] != "07:00" || r[4] != "17:00" || r[11] != "true" {
-				t.Errorf("standby row %v; want tire-drill on the wet Tuesday 07:00–17:00", r)
+			if r[0] != "tire-drill" || r[1] != "2027-04-06" || r[3] != "07:30" || r[4] != "17:00" || r[11] != "true" {
+				t.Errorf("standby row %v; want tire-drill on the wet Tuesday 07:30–17:00 (after the start-up)", r)
 			}
 		}
 		if r[1] == "2027-04-03" || r[1] == "2027-04-04" {

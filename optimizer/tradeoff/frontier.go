@@ -85,6 +85,14 @@ func EpsilonConstraint(ctx context.Context, s *model.Spec, cheapest *mip.Result,
 	if large {
 		opt.Start = cheapest.X
 	}
+	// With several crews of a rig allowed, the cheapest plan shared among
+	// the crews (model.SplitCrews) is a faster start.
+	for _, rg := range s.Rigs {
+		if rg.Unit > 1 {
+			opt.Start = base.StartFor(base.SplitCrews(base.Decode(cheapest.X).Chosen))
+			break
+		}
+	}
 	res, err := mip.Solve(ctx, fm.Problem, opt)
 	if err != nil {
 		return nil, err

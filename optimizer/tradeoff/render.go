@@ -87,7 +87,7 @@ func WriteAlternativesText(w io.Writer, rows []Summary, featureFt float64) error
 			fmt.Fprintf(w, "  %s: %s\n", s.Label, s.Note)
 		}
 	}
-	fmt.Fprintln(w, "  Total cost is the itemized estimate; budgets, savings and the frontier use the cost the model prices (priced_cost in CSV and JSON).")
+	fmt.Fprintln(w, "  Total cost is the itemized estimate, the cost the model prices too (priced_cost in CSV and JSON): budgets, savings and the frontier use it.")
 	_, err := fmt.Fprintln(w, "  Miss chance: 1 − (area of the zone within d/2 of a chosen point) / (zone area); for a square grid of spacing s and d < s the hit chance is πd²/(4s²) (Davis, Statistics and Data Analysis in Geology, ch. 5).")
 	return err
 }

@@ -166,7 +166,7 @@ func solveVariant(ctx context.Context, pr *plan.Prepared, st Settings, featureFt
 func solveCheapest(ctx context.Context, pr *plan.Prepared, st Settings, featureFt float64, label string) (*outcome, error) {
 	opt := st.mip()
 	if pr.Model.Problem.LP.NumCols >= localMinCols {
-		opt.Start = pr.StartSolution(ctx, st.GapRel, opt.TimeLimit/3)
+		opt.Start = pr.BestStart(ctx, st.GapRel, opt.TimeLimit/3)
 	}
 	return solveWith(ctx, pr, opt, featureFt, label)
 }

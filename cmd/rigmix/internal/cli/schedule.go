@@ -76,7 +76,8 @@ func newScheduleCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 
 // calendar reads the calendar flags.
 func (o *scheduleOptions) calendar(hoursPerDay float64, today time.Time) (schedule.Calendar, error) {
-	cal := schedule.Calendar{HoursPerDay: hoursPerDay}
+	// The start-up allowance the plan's day count assumes.
+	cal := schedule.Calendar{HoursPerDay: hoursPerDay, StartUpHours: plan.StartUpHours}
 	if o.start == "" {
 		d := today.AddDate(0, 0, 1)
 		for d.Weekday() != time.Monday {
