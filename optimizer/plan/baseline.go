@@ -290,6 +290,16 @@ func (pr *Prepared) layBaseline() *handBase {
 			}
 			o, ok := byKey[optionKey{q, r, m}]
 			if !ok {
+				// A required point that fixes its method or rig: the
+				// sampled method, else the first way it allows.
+				o, ok = byKey[optionKey{q, sr, sm}]
+			}
+			for oo := 0; !ok && oo < len(pr.Options); oo++ {
+				if pr.Options[oo].point == q {
+					o, ok = oo, true
+				}
+			}
+			if !ok {
 				return none
 			}
 			chosen = append(chosen, o)
