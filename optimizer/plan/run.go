@@ -656,12 +656,13 @@ func labProgram(sc *scenarios.Scenario, z int) (*lab.Program, error) {
 	return lab.ForPurposes(sc.Zones[z].Purposes)
 }
 
-// samplesOf counts the samples a point recovers: split-barrel and tube
-// samples from the rig's quantities, and bag samples from a test pit by the
-// rule the built-in excavator follows (lab.PitBagSamples).
+// samplesOf counts the samples a point recovers: the samples the rig's
+// quantities report, by kind (lab.CountsFromQuantities), and for a test pit
+// that reports no bag samples, those of the rule the built-in excavator
+// follows (lab.PitBagSamples).
 func samplesOf(qs []sdk.Quantity, s sdk.Site) lab.Counts {
 	c := lab.CountsFromQuantities(qs)
-	if s.Method == sdk.TestPit {
+	if s.Method == sdk.TestPit && c.Bag == 0 {
 		c.Bag += float64(lab.PitBagSamples(s.DepthFt, s.SampleIntervalFt))
 	}
 	return c

@@ -37,7 +37,7 @@ func CheckInfo(info RigInfo) error {
 		return fmt.Errorf("rig %q: access limits (slope %v %%, overhead %v ft) must be numbers ≥ 0",
 			info.Name, info.Access.MaxSlopePct, info.Access.MinOverheadFt)
 	}
-	return checkQuantities("day item", info.DayItems)
+	return checkQuantities("day item", info.DayItems, false)
 }
 
 // CheckAssess reports what is wrong with the answers to req, or nil: one
@@ -64,7 +64,7 @@ func CheckAssess(req AssessRequest, resp AssessResponse) error {
 		if !a.Feasible && a.Reason == "" {
 			return fmt.Errorf("site %q: infeasible answer gives no reason", a.ID)
 		}
-		if err := checkQuantities(fmt.Sprintf("site %q: quantity", a.ID), a.Quantities); err != nil {
+		if err := checkQuantities(fmt.Sprintf("site %q: quantity", a.ID), a.Quantities, true); err != nil {
 			return err
 		}
 	}
@@ -76,7 +76,7 @@ func CheckMobilize(resp MobilizeResponse) error {
 	if !finiteNonNeg(resp.Hours) {
 		return fmt.Errorf("hours %v must be a finite number ≥ 0", resp.Hours)
 	}
-	return checkQuantities("quantity", resp.Quantities)
+	return checkQuantities("quantity", resp.Quantities, false)
 }
 
 // CheckMoves reports what is wrong with the answers to a moves request, or
@@ -93,7 +93,10 @@ func CheckMoves(req MovesRequest, resp MovesResponse) error {
 	return nil
 }
 
-func checkQuantities(what string, qs []Quantity) error {
+// checkQuantities checks item codes, units and amounts; samples (a
+// SampleKind) belong only in Assess answers, of a known kind, counted
+// "each".
+func checkQuantities(what string, qs []Quantity, samples bool) error {
 	for i, q := range qs {
 		if q.Item == "" {
 			return fmt.Errorf("%s %d has no item code", what, i)
@@ -104,10 +107,42 @@ func checkQuantities(what string, qs []Quantity) error {
 		if !finiteNonNeg(q.Amount) {
 			return fmt.Errorf("%s %s: amount %v must be a finite number ≥ 0", what, q.Item, q.Amount)
 		}
+		if q.SampleKind == "" {
+			continue
+		}
+		if !samples {
+			return fmt.Errorf("%s %s: sample kind %q: samples are counted only in Assess answers", what, q.Item, q.SampleKind)
+		}
+		if !knownSampleKind(q.SampleKind) {
+			return fmt.Errorf("%s %s: unknown sample kind %q (want one of %s)", what, q.Item, q.SampleKind, sampleKindList())
+		}
+		if q.Unit != "each" {
+			return fmt.Errorf("%s %s: samples of kind %s are counted in unit \"each\", not %q", what, q.Item, q.SampleKind, q.Unit)
+		}
 	}
 	return nil
 }
 
 func finiteNonNeg(v float64) bool {
 	return !math.IsNaN(v) && !math.IsInf(v, 0) && v >= 0
+}
+
+func knownSampleKind(k SampleKind) bool {
+	for _, x := range SampleKinds() {
+		if x == k {
+			return true
+		}
+	}
+	return false
+}
+
+func sampleKindList() string {
+	s := ""
+	for i, k := range SampleKinds() {
+		if i > 0 {
+			s += ", "
+		}
+		s += string(k)
+	}
+	return s
 }

@@ -67,8 +67,9 @@ func echoAnswers(req sdk.AssessRequest) sdk.AssessResponse {
 	for _, s := range req.Sites {
 		out.Answers = append(out.Answers, sdk.Answer{
 			ID: s.ID, Feasible: true,
-			Hours:      sdk.Hours{Setup: 0.5, Advance: s.DepthFt / 30, Sampling: 1, Grouting: 0.25, Teardown: 0.25},
-			Quantities: []sdk.Quantity{{Item: "drill-0-50", Unit: "ft", Amount: s.DepthFt}},
+			Hours: sdk.Hours{Setup: 0.5, Advance: s.DepthFt / 30, Sampling: 1, Grouting: 0.25, Teardown: 0.25},
+			Quantities: []sdk.Quantity{{Item: "drill-0-50", Unit: "ft", Amount: s.DepthFt},
+				{Item: "sonic-core", Unit: "each", Amount: 4, SampleKind: sdk.SampleCore}},
 		})
 	}
 	return out
@@ -163,6 +164,16 @@ func TestClientChecksAnswers(t *testing.T) {
 			r.Answers[1].Quantities[0].Amount = -3
 			return r
 		}, `site "b": quantity drill-0-50: amount -3`},
+		{"unknown sample kind", func(req sdk.AssessRequest) sdk.AssessResponse {
+			r := echoAnswers(req)
+			r.Answers[0].Quantities[1].SampleKind = "shelby"
+			return r
+		}, `site "a": quantity sonic-core: unknown sample kind "shelby" (want one of split-barrel, tube, core, bag, bulk)`},
+		{"samples not counted each", func(req sdk.AssessRequest) sdk.AssessResponse {
+			r := echoAnswers(req)
+			r.Answers[1].Quantities[1].Unit = "ft"
+			return r
+		}, `site "b": quantity sonic-core: samples of kind core are counted in unit "each", not "ft"`},
 		{"infeasible without reason", func(req sdk.AssessRequest) sdk.AssessResponse {
 			r := echoAnswers(req)
 			r.Answers[0].Feasible = false
@@ -198,6 +209,40 @@ func TestClientChecksMovesAndMobilize(t *testing.T) {
 	_, err := r.Moves(context.Background(), sdk.MovesRequest{Legs: make([]sdk.MoveLeg, 3)})
 	if err == nil || !strings.Contains(err.Error(), "1 answers for 3 legs") {
 		t.Errorf("Moves with 1 answer for 3 legs: error %v", err)
+	}
+}
+
+// Samples are counted only in Assess answers: a sample kind on a day item
+// or a mobilization quantity is refused.
+func TestSampleKindOnlyInAssess(t *testing.T) {
+	info := fakeInfo
+	info.DayItems = []sdk.Quantity{{Item: "crew-day-drill", Unit: "each", Amount: 1, SampleKind: sdk.SampleBag}}
+	if err := sdk.CheckInfo(info); err == nil || !strings.Contains(err.Error(), "samples are counted only in Assess answers") {
+		t.Errorf("CheckInfo with a sampled day item: %v", err)
+	}
+	mob := sdk.MobilizeResponse{Hours: 1, Quantities: []sdk.Quantity{{Item: "mob-x", Unit: "each", Amount: 1, SampleKind: sdk.SampleTube}}}
+	if err := sdk.CheckMobilize(mob); err == nil || !strings.Contains(err.Error(), "samples are counted only in Assess answers") {
+		t.Errorf("CheckMobilize with a sampled quantity: %v", err)
+	}
+}
+
+// SampleKindOf reads a quantity's kind, and the two standard sample items
+// when it gives none.
+func TestSampleKindOf(t *testing.T) {
+	for _, tc := range []struct {
+		q    sdk.Quantity
+		want sdk.SampleKind
+	}{
+		{sdk.Quantity{Item: "spt-sample"}, sdk.SampleSplitBarrel},
+		{sdk.Quantity{Item: "tube-sample"}, sdk.SampleTube},
+		{sdk.Quantity{Item: "sonic-core", SampleKind: sdk.SampleCore}, sdk.SampleCore},
+		{sdk.Quantity{Item: "spt-sample", SampleKind: sdk.SampleCore}, sdk.SampleCore},
+		{sdk.Quantity{Item: "core-sample"}, ""},
+		{sdk.Quantity{Item: "drill-0-50"}, ""},
+	} {
+		if got := sdk.SampleKindOf(tc.q); got != tc.want {
+			t.Errorf("SampleKindOf(%+v) = %q, want %q", tc.q, got, tc.want)
+		}
 	}
 }
 
