@@ -146,3 +146,98 @@ func sampleKindList() string {
 	}
 	return s
 }
+
+// CheckAgainstInfo reports a feasible answer that contradicts the rig's
+// own description, or nil: a method the description does not list, a depth
+// beyond the method's described maximum, a ground surface it does not list
+// (an empty surface is firm ground), a slope steeper than its maximum, or
+// overhead clearance below what it says it needs. The host refuses such an
+// answer, naming the rig: Describe is what the plan and the schedule rely
+// on, so a rig must answer infeasible wherever its description says it
+// cannot work. Infeasible answers are not checked.
+func CheckAgainstInfo(info RigInfo, req AssessRequest, resp AssessResponse) error {
+	for i, a := range resp.Answers {
+		if !a.Feasible || i >= len(req.Sites) {
+			continue
+		}
+		s := req.Sites[i]
+		var lim *MethodLimit
+		for k := range info.Methods {
+			if info.Methods[k].Method == s.Method {
+				lim = &info.Methods[k]
+				break
+			}
+		}
+		if lim == nil {
+			return fmt.Errorf("site %q: answers feasible for method %q, which its description does not list (it lists %s); answer infeasible or describe the method", a.ID, s.Method, methodList(info))
+		}
+		if s.DepthFt > lim.MaxDepthFt {
+			return fmt.Errorf("site %q: answers feasible for %s to %.4g ft, beyond the %.4g ft its description gives as the deepest; answer infeasible or describe the deeper reach", a.ID, s.Method, s.DepthFt, lim.MaxDepthFt)
+		}
+		surf := s.Surface
+		if surf == "" {
+			surf = Firm
+		}
+		found := false
+		for _, x := range info.Access.Surfaces {
+			found = found || x == surf
+		}
+		if !found {
+			return fmt.Errorf("site %q: answers feasible on %s ground, which its description does not list (it lists %s); answer infeasible or describe the surface", a.ID, surf, surfaceList(info))
+		}
+		if math.Abs(s.SlopePct) > info.Access.MaxSlopePct {
+			return fmt.Errorf("site %q: answers feasible on a %.4g %% slope, steeper than the %.4g %% its description allows", a.ID, math.Abs(s.SlopePct), info.Access.MaxSlopePct)
+		}
+		if s.OverheadFt > 0 && s.OverheadFt < info.Access.MinOverheadFt {
+			return fmt.Errorf("site %q: answers feasible under %.4g ft of overhead clearance, less than the %.4g ft its description says it needs", a.ID, s.OverheadFt, info.Access.MinOverheadFt)
+		}
+	}
+	return nil
+}
+
+// MaxPlausibleHoursPerPoint is the most hours on one point the host takes
+// without a warning: a month of round-the-clock work (24 h × 30 days, our
+// own bound; no exploration point takes near that).
+const MaxPlausibleHoursPerPoint = 24 * 30
+
+// Implausible says what looks wrong with a feasible answer that passes
+// the contract's checks, or "": more than MaxPlausibleHoursPerPoint hours,
+// or no hours and no quantities at all (work that costs nothing). The host
+// shows it as a warning in the plan.
+func Implausible(a Answer) string {
+	if !a.Feasible {
+		return ""
+	}
+	switch h := a.Hours.Total(); {
+	case h > MaxPlausibleHoursPerPoint:
+		return fmt.Sprintf("%.4g hours on one point, more than %d (a month of round-the-clock work)", h, MaxPlausibleHoursPerPoint)
+	case h == 0 && len(a.Quantities) == 0:
+		return "a feasible answer with no hours and no quantities (the point would cost nothing)"
+	}
+	return ""
+}
+
+func methodList(info RigInfo) string {
+	s := ""
+	for i, m := range info.Methods {
+		if i > 0 {
+			s += ", "
+		}
+		s += string(m.Method)
+	}
+	return s
+}
+
+func surfaceList(info RigInfo) string {
+	if len(info.Access.Surfaces) == 0 {
+		return "none"
+	}
+	s := ""
+	for i, x := range info.Access.Surfaces {
+		if i > 0 {
+			s += ", "
+		}
+		s += string(x)
+	}
+	return s
+}

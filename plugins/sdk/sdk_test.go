@@ -279,3 +279,64 @@ func TestContextPassesThrough(t *testing.T) {
 		t.Errorf("blocked Assess: error %v; want context.DeadlineExceeded", err)
 	}
 }
+
+// Feasible answers that contradict the rig's description are refused by
+// the shim once the rig has described itself; infeasible ones pass.
+func TestClientChecksAnswersAgainstDescribe(t *testing.T) {
+	cases := []struct {
+		site sdk.Site
+		want string
+	}{
+		{sdk.Site{ID: "p", Method: sdk.Probe, DepthFt: 5}, `site "p": answers feasible for method "probe", which its description does not list (it lists boring, cpt)`},
+		{sdk.Site{ID: "deep", Method: sdk.CPT, DepthFt: 81}, `site "deep": answers feasible for cpt to 81 ft, beyond the 80 ft`},
+		{sdk.Site{ID: "s", Method: sdk.Boring, DepthFt: 20, Surface: sdk.Soft}, `site "s": answers feasible on soft ground, which its description does not list (it lists firm, wet)`},
+		{sdk.Site{ID: "odd", Method: sdk.Boring, DepthFt: 20, Surface: "ice"}, `site "odd": answers feasible on ice ground`},
+		{sdk.Site{ID: "steep", Method: sdk.Boring, DepthFt: 20, SlopePct: -15}, `site "steep": answers feasible on a 15 % slope, steeper than the 12 %`},
+		{sdk.Site{ID: "low", Method: sdk.Boring, DepthFt: 20, OverheadFt: 15}, `site "low": answers feasible under 15 ft of overhead clearance, less than the 20 ft`},
+	}
+	for _, tc := range cases {
+		req := sdk.AssessRequest{Sites: []sdk.Site{{ID: "ok", Method: sdk.Boring, DepthFt: 100, Surface: sdk.Wet, SlopePct: 12, OverheadFt: 20}, tc.site}}
+		r := sdk.TestRig(t, &fakeRig{info: fakeInfo, assess: echoAnswers})
+		// Before Describe the shim knows no description to hold answers to.
+		if _, err := r.Assess(context.Background(), req); err != nil {
+			t.Errorf("%s before describe: %v", tc.site.ID, err)
+		}
+		if _, err := r.Describe(context.Background()); err != nil {
+			t.Fatal(err)
+		}
+		_, err := r.Assess(context.Background(), req)
+		if err == nil || !strings.Contains(err.Error(), `rig "fake-rig": assess: `+tc.want) {
+			t.Errorf("%s: error %v; want %q", tc.site.ID, err, tc.want)
+		}
+		infeasible := func(req sdk.AssessRequest) sdk.AssessResponse {
+			out := echoAnswers(req)
+			out.Answers[1].Feasible, out.Answers[1].Reason = false, "cannot"
+			return out
+		}
+		r = sdk.TestRig(t, &fakeRig{info: fakeInfo, assess: infeasible})
+		if _, err := r.Describe(context.Background()); err != nil {
+			t.Fatal(err)
+		}
+		if _, err := r.Assess(context.Background(), req); err != nil {
+			t.Errorf("%s answered infeasible: %v", tc.site.ID, err)
+		}
+	}
+}
+
+func TestImplausible(t *testing.T) {
+	for _, tc := range []struct {
+		a    sdk.Answer
+		want string
+	}{
+		{sdk.Answer{Feasible: true, Hours: sdk.Hours{Advance: 720}}, ""},
+		{sdk.Answer{Feasible: true, Hours: sdk.Hours{Advance: 700, Setup: 21}}, "721 hours on one point, more than 720"},
+		{sdk.Answer{Feasible: true, Quantities: []sdk.Quantity{{Item: "x", Unit: "each", Amount: 1}}}, ""},
+		{sdk.Answer{Feasible: true}, "no hours and no quantities"},
+		{sdk.Answer{Feasible: false, Reason: "no"}, ""},
+	} {
+		got := sdk.Implausible(tc.a)
+		if (tc.want == "") != (got == "") || !strings.Contains(got, tc.want) {
+			t.Errorf("Implausible(%+v) = %q, want %q", tc.a, got, tc.want)
+		}
+	}
+}
