@@ -78,7 +78,7 @@ func newRigsCmd(g *globalOptions, stdout io.Writer) *cobra.Command {
 			if err != nil {
 				return err
 			}
-			fleet, err := openFleet(cmd.Context(), cfg, builtin.Names())
+			fleet, err := openFleet(cmd.Context(), cfg, nil, nil)
 			if err != nil {
 				return err
 			}
