@@ -29,8 +29,16 @@ func CheckInfo(info RigInfo) error {
 		if m.Method == "" {
 			return fmt.Errorf("rig %q: method %d has no name", info.Name, i)
 		}
+		if !knownMethod(m.Method) {
+			return fmt.Errorf("rig %q: unknown method %q (want boring, cpt, test_pit or probe: the plan's rules count these)", info.Name, m.Method)
+		}
 		if !finiteNonNeg(m.MaxDepthFt) || m.MaxDepthFt == 0 {
 			return fmt.Errorf("rig %q: method %s: maximum depth %v ft must be a positive number", info.Name, m.Method, m.MaxDepthFt)
+		}
+	}
+	for _, x := range info.Access.Surfaces {
+		if x != Firm && x != Wet && x != Soft {
+			return fmt.Errorf("rig %q: unknown surface %q (want firm, wet or soft)", info.Name, x)
 		}
 	}
 	if !finiteNonNeg(info.Access.MaxSlopePct) || !finiteNonNeg(info.Access.MinOverheadFt) {
@@ -240,4 +248,8 @@ func surfaceList(info RigInfo) string {
 		s += string(x)
 	}
 	return s
+}
+
+func knownMethod(m Method) bool {
+	return m == Boring || m == CPT || m == TestPit || m == Probe
 }

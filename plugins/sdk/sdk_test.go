@@ -246,6 +246,23 @@ func TestSampleKindOf(t *testing.T) {
 	}
 }
 
+// The method and surface sets are closed: the plan's rules count methods
+// and the schedule reads surfaces, so an unknown one is refused.
+func TestDescribeRefusesUnknownMethodOrSurface(t *testing.T) {
+	info := fakeInfo
+	info.Methods = []sdk.MethodLimit{{Method: "sonic", MaxDepthFt: 200}}
+	if _, err := sdk.TestRig(t, &fakeRig{info: info}).Describe(context.Background()); err == nil ||
+		!strings.Contains(err.Error(), `rig "fake-rig": unknown method "sonic" (want boring, cpt, test_pit or probe`) {
+		t.Errorf("unknown method: error %v", err)
+	}
+	info = fakeInfo
+	info.Access.Surfaces = []sdk.Surface{sdk.Firm, "ice"}
+	if _, err := sdk.TestRig(t, &fakeRig{info: info}).Describe(context.Background()); err == nil ||
+		!strings.Contains(err.Error(), `rig "fake-rig": unknown surface "ice" (want firm, wet or soft)`) {
+		t.Errorf("unknown surface: error %v", err)
+	}
+}
+
 func TestDescribeChecksName(t *testing.T) {
 	for _, name := range []string{"", "Track Drill", "-x"} {
 		info := fakeInfo
