@@ -363,24 +363,44 @@ func (c Counts) Add(d Counts) Counts {
 		Analytical: c.Analytical + d.Analytical}
 }
 
-// Rate-book items rigs report samples in (the ratebooks package's
-// standard items).
-const (
-	itemSPTSample  = "spt-sample"
-	itemTubeSample = "tube-sample"
-)
+// Rate-book item the program's tubes between SPT samples are priced as.
+const itemTubeSample = sdk.ItemTubeSample
 
-// CountsFromQuantities counts the split-barrel and tube samples among a
-// rig's quantities (items spt-sample and tube-sample). Test pits report no
-// sample item; add their bag samples with PitBagSamples.
+// KindOfSample is the lab kind a rig's sample kind is tested as: a
+// continuous soil core (a sonic or direct-push liner) is disturbed by the
+// advance and gets the split-barrel tests (common practice); the others
+// map one for one. An unknown kind gives "" (the host-side checks refuse
+// it before it gets here).
+func KindOfSample(k sdk.SampleKind) Kind {
+	switch k {
+	case sdk.SampleSplitBarrel, sdk.SampleCore:
+		return SplitBarrel
+	case sdk.SampleTube:
+		return Tube
+	case sdk.SampleBag:
+		return Bag
+	case sdk.SampleBulk:
+		return Bulk
+	}
+	return ""
+}
+
+// CountsFromQuantities counts the samples among a rig's quantities, by
+// their kind (sdk.SampleKindOf: a quantity's SampleKind, else items
+// spt-sample and tube-sample). Test pits that report no samples get their
+// bag samples from PitBagSamples.
 func CountsFromQuantities(qs []sdk.Quantity) Counts {
 	var c Counts
 	for _, q := range qs {
-		switch q.Item {
-		case itemSPTSample:
+		switch KindOfSample(sdk.SampleKindOf(q)) {
+		case SplitBarrel:
 			c.SplitBarrel += q.Amount
-		case itemTubeSample:
+		case Tube:
 			c.Tube += q.Amount
+		case Bag:
+			c.Bag += q.Amount
+		case Bulk:
+			c.Bulk += q.Amount
 		}
 	}
 	return c

@@ -279,6 +279,24 @@ func TestCountsFromQuantities(t *testing.T) {
 	if got := CountsFromQuantities(qs); got != (Counts{SplitBarrel: 17, Tube: 2}) {
 		t.Errorf("CountsFromQuantities = %+v", got)
 	}
+	// A rig's own items count by the sample kind they tell; a soil core
+	// is tested as a split-barrel sample (disturbed; common practice).
+	qs = []sdk.Quantity{
+		{Item: "sonic-core", Unit: "each", Amount: 9, SampleKind: sdk.SampleCore},
+		{Item: "spt-sample", Unit: "each", Amount: 3},
+		{Item: "push-tube", Unit: "each", Amount: 2, SampleKind: sdk.SampleTube},
+		{Item: "pit-bag", Unit: "each", Amount: 4, SampleKind: sdk.SampleBag},
+		{Item: "pit-bulk", Unit: "each", Amount: 1, SampleKind: sdk.SampleBulk},
+		{Item: "core-sample", Unit: "each", Amount: 100}, // no kind: not samples
+	}
+	if got := CountsFromQuantities(qs); got != (Counts{SplitBarrel: 12, Tube: 2, Bag: 4, Bulk: 1}) {
+		t.Errorf("CountsFromQuantities by kind = %+v", got)
+	}
+	for _, k := range sdk.SampleKinds() {
+		if KindOfSample(k) == "" {
+			t.Errorf("sample kind %q has no lab kind", k)
+		}
+	}
 	if got := (Counts{1, 2, 3, 4, 5}).Add(Counts{10, 20, 30, 40, 50}); got != (Counts{11, 22, 33, 44, 55}) {
 		t.Errorf("Add = %+v", got)
 	}

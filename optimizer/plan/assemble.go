@@ -204,6 +204,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 	p.Baseline = pr.baselineFor(p.Total, p.Finish)
 	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth, pr.ExactReach(chosenPoint), pr.NeighbourFt(chosenPoint))
 	p.Warnings = append(p.Warnings, shallowBuildingWarnings(sc)...)
+	p.Warnings = append(p.Warnings, pr.rigWarnings...)
 	pb := pr.Model.Problem
 	if math.IsInf(res.Bound, 0) || math.IsNaN(res.Bound) {
 		// Stopped before the root bound: every cost is ≥ 0, so 0 is a

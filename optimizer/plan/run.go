@@ -97,6 +97,10 @@ type Prepared struct {
 	// Timings records how long each stage took (wall time; kept out of
 	// the plan so the plan stays the same from run to run).
 	Timings Timings
+	// rigWarnings flag rig answers that pass the contract but look wrong
+	// (sdk.Implausible), in rig and site order; Assemble adds them to the
+	// plan's warnings.
+	rigWarnings []string
 }
 
 // Timings lists stage durations in the order the stages ran.
@@ -289,6 +293,14 @@ func Prepare(ctx context.Context, in Input, opt Options) (*Prepared, error) {
 		}
 		if len(ans.Answers) != len(sites) {
 			return nil, fmt.Errorf("rig %q: assess: %d answers for %d sites", rd.name, len(ans.Answers), len(sites))
+		}
+		if err := sdk.CheckAgainstInfo(rd.info, sdk.AssessRequest{Sites: sites}, ans); err != nil {
+			return nil, fmt.Errorf("rig %q: assess: %w", rd.name, err)
+		}
+		for _, a := range ans.Answers {
+			if why := sdk.Implausible(a); why != "" {
+				pr.rigWarnings = append(pr.rigWarnings, fmt.Sprintf("rig %q at %s: %s; check the rig plugin", rd.name, a.ID, why))
+			}
 		}
 		mv, err := rd.rig.Moves(ctx, sdk.MovesRequest{Legs: legs})
 		if err != nil {
@@ -751,12 +763,13 @@ func labProgram(sc *scenarios.Scenario, z int) (*lab.Program, error) {
 	return lab.ForPurposes(sc.Zones[z].Purposes)
 }
 
-// samplesOf counts the samples a point recovers: split-barrel and tube
-// samples from the rig's quantities, and bag samples from a test pit by the
-// rule the built-in excavator follows (lab.PitBagSamples).
+// samplesOf counts the samples a point recovers: the samples the rig's
+// quantities report, by kind (lab.CountsFromQuantities), and for a test pit
+// that reports no bag samples, those of the rule the built-in excavator
+// follows (lab.PitBagSamples).
 func samplesOf(qs []sdk.Quantity, s sdk.Site) lab.Counts {
 	c := lab.CountsFromQuantities(qs)
-	if s.Method == sdk.TestPit {
+	if s.Method == sdk.TestPit && c.Bag == 0 {
 		c.Bag += float64(lab.PitBagSamples(s.DepthFt, s.SampleIntervalFt))
 	}
 	return c

@@ -34,6 +34,7 @@ import (
 	"os/exec"
 	"path/filepath"
 	"regexp"
+	"slices"
 	"sort"
 	"strings"
 	"sync"
@@ -67,12 +68,20 @@ type Options struct {
 	SelfCommand func(name string) *exec.Cmd
 	// Stderr receives the plugins' logs (nil: discarded).
 	Stderr io.Writer
+	// Want, when not nil, names the rigs the caller needs (a scenario's
+	// offered rigs). Executables of the plugin folder are then needed only
+	// for those: one that fails to start, or serves a rig not wanted, is
+	// stopped and listed by Fleet.Skipped instead of failing Open — unless
+	// a wanted rig is missing, when the failures are the error (any of
+	// them may be the missing rig). Nil: every rig is needed.
+	Want []string
 }
 
 // Fleet is a set of running rigs.
 type Fleet struct {
 	rigs      []*Rig
 	byName    map[string]*Rig
+	skipped   []error
 	closeOnce sync.Once
 }
 
@@ -136,10 +145,24 @@ func Open(ctx context.Context, opt Options) (*Fleet, error) {
 	wg.Wait()
 
 	f := &Fleet{byName: map[string]*Rig{}}
-	var bad []error
+	var bad, skipped []error
+	var unwanted []*Rig
+	wanted := map[string]bool{}
+	for _, n := range opt.Want {
+		wanted[n] = true
+	}
 	for i, r := range rigs {
+		optional := opt.Want != nil && launches[i].path != ""
 		if errs[i] != nil {
-			bad = append(bad, errs[i])
+			if optional {
+				skipped = append(skipped, errs[i])
+			} else {
+				bad = append(bad, errs[i])
+			}
+			continue
+		}
+		if optional && !wanted[r.Info.Name] {
+			unwanted = append(unwanted, r)
 			continue
 		}
 		if prev, dup := f.byName[r.Info.Name]; dup {
@@ -151,13 +174,45 @@ func Open(ctx context.Context, opt Options) (*Fleet, error) {
 			f.byName[r.Info.Name] = r
 		}
 	}
+	// Rigs no one asked for are not needed: stop them now.
+	(&Fleet{rigs: unwanted}).Close()
+	if len(skipped) > 0 && len(bad) == 0 {
+		var missing []string
+		for _, n := range opt.Want {
+			if _, ok := f.byName[n]; !ok && !slices.Contains(missing, n) {
+				missing = append(missing, n)
+			}
+		}
+		if len(missing) > 0 {
+			bad = append([]error{fmt.Errorf("rig %s not started, and %d plugin file(s) of the folder %q failed, and one of them may be it",
+				quoteList(missing), len(skipped), opt.PluginDir)}, skipped...)
+			skipped = nil
+		}
+	}
 	if len(bad) > 0 {
 		f.Close()
 		return nil, errors.Join(bad...)
 	}
+	f.skipped = skipped
 	sort.Slice(f.rigs, func(i, j int) bool { return f.rigs[i].Info.Name < f.rigs[j].Info.Name })
 	return f, nil
 }
+
+// quoteList writes names as "a", "b" and "c".
+func quoteList(names []string) string {
+	q := make([]string, len(names))
+	for i, n := range names {
+		q[i] = fmt.Sprintf("%q", n)
+	}
+	if len(q) == 1 {
+		return q[0]
+	}
+	return strings.Join(q[:len(q)-1], ", ") + " and " + q[len(q)-1]
+}
+
+// Skipped lists the plugin files that failed to start but were not needed
+// (Options.Want), one error each naming the file; nil when none.
+func (f *Fleet) Skipped() []error { return append([]error(nil), f.skipped...) }
 
 func labelOf(r *Rig) string {
 	if r.Path == "" {

@@ -10,6 +10,7 @@ import (
 	"os/exec"
 	"path/filepath"
 	"reflect"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -463,5 +464,77 @@ func TestPluginThatHangs(t *testing.T) {
 		t.Errorf("error %q does not name %s", err, script)
 	}
 	t.Logf("error for a plugin that hangs: %v", err)
+	assertNoNewChildren(t, before)
+}
+
+// A plugin file no scenario rig needs does not break the fleet: with
+// Options.Want, a broken executable in the folder is skipped (and listed
+// by Skipped), a working plugin serving a rig not wanted is stopped; only
+// when a wanted rig is missing do the failures become the error.
+func TestUnofferedPluginNotNeeded(t *testing.T) {
+	if testing.Short() {
+		t.Skip("builds the example plugin")
+	}
+	dir := t.TempDir()
+	buildHandCrew(t, dir)
+	script := filepath.Join(dir, "broken")
+	if err := os.WriteFile(script, []byte("#!/bin/sh\necho 'hello, I am not a rig'\n"), 0o755); err != nil {
+		t.Fatal(err)
+	}
+	open := func(want ...string) (*Fleet, error) {
+		opt := testOptions()
+		opt.PluginDir = dir
+		opt.Builtins = []string{"cpt-rig"}
+		opt.Want = want
+		return Open(context.Background(), opt)
+	}
+	names := func(f *Fleet) []string {
+		var out []string
+		for _, r := range f.Rigs() {
+			out = append(out, r.Info.Name)
+		}
+		return out
+	}
+	skippedOnlyScript := func(f *Fleet) {
+		t.Helper()
+		sk := f.Skipped()
+		if len(sk) != 1 || !strings.Contains(sk[0].Error(), script) || !strings.Contains(sk[0].Error(), "handshake") {
+			t.Errorf("Skipped() = %v; want the one broken file %s", sk, script)
+		}
+	}
+
+	before := childPIDs(t)
+	f, err := open("cpt-rig")
+	if err != nil {
+		t.Fatalf("a broken plugin file no offered rig needs failed Open: %v", err)
+	}
+	if got := names(f); !slices.Equal(got, []string{"cpt-rig"}) {
+		t.Errorf("rigs %v, want only the wanted cpt-rig (hand-crew stopped)", got)
+	}
+	skippedOnlyScript(f)
+	f.Close()
+	assertNoNewChildren(t, before)
+
+	f, err = open("hand-crew", "cpt-rig")
+	if err != nil {
+		t.Fatalf("wanted plugin beside a broken file: %v", err)
+	}
+	if got := names(f); !slices.Equal(got, []string{"cpt-rig", "hand-crew"}) {
+		t.Errorf("rigs %v, want cpt-rig and hand-crew", got)
+	}
+	skippedOnlyScript(f)
+	f.Close()
+
+	// A wanted rig that is missing: the broken file may be it.
+	_, err = open("cpt-rig", "sonic-rig")
+	if err == nil || !strings.Contains(err.Error(), `rig "sonic-rig" not started, and 1 plugin file(s) of the folder`) || !strings.Contains(err.Error(), script) {
+		t.Errorf("missing wanted rig with a broken file: error %v; want it to name the rig and the file", err)
+	}
+	// Every rig needed (Want nil, the rigs command): the broken file fails
+	// Open as before.
+	if f, err := open(); err == nil {
+		f.Close()
+		t.Error("with every rig needed, Open accepted the broken file")
+	}
 	assertNoNewChildren(t, before)
 }

@@ -175,11 +175,14 @@ func (x *AccessLimits) GetMinOverheadFt() float64 {
 }
 
 type Quantity struct {
-	state         protoimpl.MessageState `protogen:"open.v1"`
-	Item          string                 `protobuf:"bytes,1,opt,name=item,proto3" json:"item,omitempty"`
-	Unit          string                 `protobuf:"bytes,2,opt,name=unit,proto3" json:"unit,omitempty"`
-	Amount        float64                `protobuf:"fixed64,3,opt,name=amount,proto3" json:"amount,omitempty"`
-	Note          string                 `protobuf:"bytes,4,opt,name=note,proto3" json:"note,omitempty"`
+	state  protoimpl.MessageState `protogen:"open.v1"`
+	Item   string                 `protobuf:"bytes,1,opt,name=item,proto3" json:"item,omitempty"`
+	Unit   string                 `protobuf:"bytes,2,opt,name=unit,proto3" json:"unit,omitempty"`
+	Amount float64                `protobuf:"fixed64,3,opt,name=amount,proto3" json:"amount,omitempty"`
+	Note   string                 `protobuf:"bytes,4,opt,name=note,proto3" json:"note,omitempty"`
+	// Set in an Assess answer when the quantity counts samples for the
+	// laboratory: split-barrel, tube, core, bag or bulk (sdk.SampleKind).
+	SampleKind    string `protobuf:"bytes,5,opt,name=sample_kind,json=sampleKind,proto3" json:"sample_kind,omitempty"`
 	unknownFields protoimpl.UnknownFields
 	sizeCache     protoimpl.SizeCache
 }
@@ -238,6 +241,13 @@ func (x *Quantity) GetAmount() float64 {
 func (x *Quantity) GetNote() string {
 	if x != nil {
 		return x.Note
+	}
+	return ""
+}
+
+func (x *Quantity) GetSampleKind() string {
+	if x != nil {
+		return x.SampleKind
 	}
 	return ""
 }
@@ -1012,12 +1022,14 @@ const file_rig_proto_rawDesc = "" +
 	"\fAccessLimits\x12\x1a\n" +
 	"\bsurfaces\x18\x01 \x03(\tR\bsurfaces\x12\"\n" +
 	"\rmax_slope_pct\x18\x02 \x01(\x01R\vmaxSlopePct\x12&\n" +
-	"\x0fmin_overhead_ft\x18\x03 \x01(\x01R\rminOverheadFt\"^\n" +
+	"\x0fmin_overhead_ft\x18\x03 \x01(\x01R\rminOverheadFt\"\x7f\n" +
 	"\bQuantity\x12\x12\n" +
 	"\x04item\x18\x01 \x01(\tR\x04item\x12\x12\n" +
 	"\x04unit\x18\x02 \x01(\tR\x04unit\x12\x16\n" +
 	"\x06amount\x18\x03 \x01(\x01R\x06amount\x12\x12\n" +
-	"\x04note\x18\x04 \x01(\tR\x04note\"\x8d\x02\n" +
+	"\x04note\x18\x04 \x01(\tR\x04note\x12\x1f\n" +
+	"\vsample_kind\x18\x05 \x01(\tR\n" +
+	"sampleKind\"\x8d\x02\n" +
 	"\aRigInfo\x12\x12\n" +
 	"\x04name\x18\x01 \x01(\tR\x04name\x12\x14\n" +
 	"\x05title\x18\x02 \x01(\tR\x05title\x124\n" +

@@ -12,7 +12,7 @@ func quantitiesToProto(qs []Quantity) []*proto.Quantity {
 	}
 	out := make([]*proto.Quantity, len(qs))
 	for i, q := range qs {
-		out[i] = &proto.Quantity{Item: q.Item, Unit: q.Unit, Amount: q.Amount, Note: q.Note}
+		out[i] = &proto.Quantity{Item: q.Item, Unit: q.Unit, Amount: q.Amount, Note: q.Note, SampleKind: string(q.SampleKind)}
 	}
 	return out
 }
@@ -23,7 +23,7 @@ func quantitiesFromProto(qs []*proto.Quantity) []Quantity {
 	}
 	out := make([]Quantity, len(qs))
 	for i, q := range qs {
-		out[i] = Quantity{Item: q.GetItem(), Unit: q.GetUnit(), Amount: q.GetAmount(), Note: q.GetNote()}
+		out[i] = Quantity{Item: q.GetItem(), Unit: q.GetUnit(), Amount: q.GetAmount(), Note: q.GetNote(), SampleKind: SampleKind(q.GetSampleKind())}
 	}
 	return out
 }

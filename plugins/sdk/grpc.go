@@ -73,6 +73,7 @@ type grpcClient struct {
 
 	mu   sync.Mutex
 	name string
+	info *RigInfo // what Describe gave, once called
 }
 
 var _ Rig = (*grpcClient)(nil)
@@ -134,6 +135,7 @@ func (c *grpcClient) Describe(ctx context.Context) (RigInfo, error) {
 	}
 	c.mu.Lock()
 	c.name = info.Name
+	c.info = &info
 	c.mu.Unlock()
 	return info, nil
 }
@@ -153,6 +155,14 @@ func (c *grpcClient) Assess(ctx context.Context, req AssessRequest) (AssessRespo
 	}
 	if err := CheckAssess(req, out); err != nil {
 		return AssessResponse{}, fmt.Errorf("rig %q: assess: %w", c.rigName(), err)
+	}
+	c.mu.Lock()
+	info := c.info
+	c.mu.Unlock()
+	if info != nil {
+		if err := CheckAgainstInfo(*info, req, out); err != nil {
+			return AssessResponse{}, fmt.Errorf("rig %q: assess: %w", c.rigName(), err)
+		}
 	}
 	return out, nil
 }

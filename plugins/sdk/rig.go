@@ -123,6 +123,62 @@ type Quantity struct {
 	Unit   string  // unit of measure, e.g. "ft", "each", "hr"
 	Amount float64 // how many units
 	Note   string  // optional explanation for the estimate line
+	// SampleKind, in an Assess answer, says the quantity counts samples
+	// recovered for the laboratory, Amount of them (unit "each"), of this
+	// kind; the host runs its lab program on them. Empty: not samples —
+	// except the items spt-sample and tube-sample, which count as
+	// split-barrel and tube samples (SampleKindOf).
+	SampleKind SampleKind
+}
+
+// SampleKind is a kind of soil sample a rig recovers, as the host's lab
+// program tests it.
+type SampleKind string
+
+const (
+	// SampleSplitBarrel is a split-barrel sample from the Standard
+	// Penetration Test (ASTM D1586): disturbed, for index tests.
+	SampleSplitBarrel SampleKind = "split-barrel"
+	// SampleTube is a thin-walled tube sample (ASTM D1587): undisturbed
+	// enough for consolidation and strength tests.
+	SampleTube SampleKind = "tube"
+	// SampleCore is a length of continuous soil core (a sonic or
+	// direct-push rig's liner): disturbed by the advance, tested like a
+	// split-barrel sample.
+	SampleCore SampleKind = "core"
+	// SampleBag is a bag sample from a test pit or auger cuttings:
+	// disturbed, for index tests.
+	SampleBag SampleKind = "bag"
+	// SampleBulk is a bulk sample (some 25–50 lb) for compaction,
+	// bearing-ratio and remoulded permeability tests.
+	SampleBulk SampleKind = "bulk"
+)
+
+// SampleKinds lists every sample kind the host knows.
+func SampleKinds() []SampleKind {
+	return []SampleKind{SampleSplitBarrel, SampleTube, SampleCore, SampleBag, SampleBulk}
+}
+
+// Item codes the host reads as samples when a quantity gives no
+// SampleKind (the standard rate book's items).
+const (
+	ItemSPTSample  = "spt-sample"
+	ItemTubeSample = "tube-sample"
+)
+
+// SampleKindOf is the kind of sample a quantity counts, or "" when it
+// counts none: its SampleKind, else split-barrel for item spt-sample and
+// tube for item tube-sample.
+func SampleKindOf(q Quantity) SampleKind {
+	switch {
+	case q.SampleKind != "":
+		return q.SampleKind
+	case q.Item == ItemSPTSample:
+		return SampleSplitBarrel
+	case q.Item == ItemTubeSample:
+		return SampleTube
+	}
+	return ""
 }
 
 // Answer is a rig's answer for one site.

@@ -67,8 +67,9 @@ func echoAnswers(req sdk.AssessRequest) sdk.AssessResponse {
 	for _, s := range req.Sites {
 		out.Answers = append(out.Answers, sdk.Answer{
 			ID: s.ID, Feasible: true,
-			Hours:      sdk.Hours{Setup: 0.5, Advance: s.DepthFt / 30, Sampling: 1, Grouting: 0.25, Teardown: 0.25},
-			Quantities: []sdk.Quantity{{Item: "drill-0-50", Unit: "ft", Amount: s.DepthFt}},
+			Hours: sdk.Hours{Setup: 0.5, Advance: s.DepthFt / 30, Sampling: 1, Grouting: 0.25, Teardown: 0.25},
+			Quantities: []sdk.Quantity{{Item: "drill-0-50", Unit: "ft", Amount: s.DepthFt},
+				{Item: "sonic-core", Unit: "each", Amount: 4, SampleKind: sdk.SampleCore}},
 		})
 	}
 	return out
@@ -163,6 +164,16 @@ func TestClientChecksAnswers(t *testing.T) {
 			r.Answers[1].Quantities[0].Amount = -3
 			return r
 		}, `site "b": quantity drill-0-50: amount -3`},
+		{"unknown sample kind", func(req sdk.AssessRequest) sdk.AssessResponse {
+			r := echoAnswers(req)
+			r.Answers[0].Quantities[1].SampleKind = "shelby"
+			return r
+		}, `site "a": quantity sonic-core: unknown sample kind "shelby" (want one of split-barrel, tube, core, bag, bulk)`},
+		{"samples not counted each", func(req sdk.AssessRequest) sdk.AssessResponse {
+			r := echoAnswers(req)
+			r.Answers[1].Quantities[1].Unit = "ft"
+			return r
+		}, `site "b": quantity sonic-core: samples of kind core are counted in unit "each", not "ft"`},
 		{"infeasible without reason", func(req sdk.AssessRequest) sdk.AssessResponse {
 			r := echoAnswers(req)
 			r.Answers[0].Feasible = false
@@ -201,6 +212,57 @@ func TestClientChecksMovesAndMobilize(t *testing.T) {
 	}
 }
 
+// Samples are counted only in Assess answers: a sample kind on a day item
+// or a mobilization quantity is refused.
+func TestSampleKindOnlyInAssess(t *testing.T) {
+	info := fakeInfo
+	info.DayItems = []sdk.Quantity{{Item: "crew-day-drill", Unit: "each", Amount: 1, SampleKind: sdk.SampleBag}}
+	if err := sdk.CheckInfo(info); err == nil || !strings.Contains(err.Error(), "samples are counted only in Assess answers") {
+		t.Errorf("CheckInfo with a sampled day item: %v", err)
+	}
+	mob := sdk.MobilizeResponse{Hours: 1, Quantities: []sdk.Quantity{{Item: "mob-x", Unit: "each", Amount: 1, SampleKind: sdk.SampleTube}}}
+	if err := sdk.CheckMobilize(mob); err == nil || !strings.Contains(err.Error(), "samples are counted only in Assess answers") {
+		t.Errorf("CheckMobilize with a sampled quantity: %v", err)
+	}
+}
+
+// SampleKindOf reads a quantity's kind, and the two standard sample items
+// when it gives none.
+func TestSampleKindOf(t *testing.T) {
+	for _, tc := range []struct {
+		q    sdk.Quantity
+		want sdk.SampleKind
+	}{
+		{sdk.Quantity{Item: "spt-sample"}, sdk.SampleSplitBarrel},
+		{sdk.Quantity{Item: "tube-sample"}, sdk.SampleTube},
+		{sdk.Quantity{Item: "sonic-core", SampleKind: sdk.SampleCore}, sdk.SampleCore},
+		{sdk.Quantity{Item: "spt-sample", SampleKind: sdk.SampleCore}, sdk.SampleCore},
+		{sdk.Quantity{Item: "core-sample"}, ""},
+		{sdk.Quantity{Item: "drill-0-50"}, ""},
+	} {
+		if got := sdk.SampleKindOf(tc.q); got != tc.want {
+			t.Errorf("SampleKindOf(%+v) = %q, want %q", tc.q, got, tc.want)
+		}
+	}
+}
+
+// The method and surface sets are closed: the plan's rules count methods
+// and the schedule reads surfaces, so an unknown one is refused.
+func TestDescribeRefusesUnknownMethodOrSurface(t *testing.T) {
+	info := fakeInfo
+	info.Methods = []sdk.MethodLimit{{Method: "sonic", MaxDepthFt: 200}}
+	if _, err := sdk.TestRig(t, &fakeRig{info: info}).Describe(context.Background()); err == nil ||
+		!strings.Contains(err.Error(), `rig "fake-rig": unknown method "sonic" (want boring, cpt, test_pit or probe`) {
+		t.Errorf("unknown method: error %v", err)
+	}
+	info = fakeInfo
+	info.Access.Surfaces = []sdk.Surface{sdk.Firm, "ice"}
+	if _, err := sdk.TestRig(t, &fakeRig{info: info}).Describe(context.Background()); err == nil ||
+		!strings.Contains(err.Error(), `rig "fake-rig": unknown surface "ice" (want firm, wet or soft)`) {
+		t.Errorf("unknown surface: error %v", err)
+	}
+}
+
 func TestDescribeChecksName(t *testing.T) {
 	for _, name := range []string{"", "Track Drill", "-x"} {
 		info := fakeInfo
@@ -232,5 +294,66 @@ func TestContextPassesThrough(t *testing.T) {
 	_, err := r.Assess(ctx2, sdk.AssessRequest{Sites: []sdk.Site{{ID: "a"}}})
 	if !errors.Is(err, context.DeadlineExceeded) {
 		t.Errorf("blocked Assess: error %v; want context.DeadlineExceeded", err)
+	}
+}
+
+// Feasible answers that contradict the rig's description are refused by
+// the shim once the rig has described itself; infeasible ones pass.
+func TestClientChecksAnswersAgainstDescribe(t *testing.T) {
+	cases := []struct {
+		site sdk.Site
+		want string
+	}{
+		{sdk.Site{ID: "p", Method: sdk.Probe, DepthFt: 5}, `site "p": answers feasible for method "probe", which its description does not list (it lists boring, cpt)`},
+		{sdk.Site{ID: "deep", Method: sdk.CPT, DepthFt: 81}, `site "deep": answers feasible for cpt to 81 ft, beyond the 80 ft`},
+		{sdk.Site{ID: "s", Method: sdk.Boring, DepthFt: 20, Surface: sdk.Soft}, `site "s": answers feasible on soft ground, which its description does not list (it lists firm, wet)`},
+		{sdk.Site{ID: "odd", Method: sdk.Boring, DepthFt: 20, Surface: "ice"}, `site "odd": answers feasible on ice ground`},
+		{sdk.Site{ID: "steep", Method: sdk.Boring, DepthFt: 20, SlopePct: -15}, `site "steep": answers feasible on a 15 % slope, steeper than the 12 %`},
+		{sdk.Site{ID: "low", Method: sdk.Boring, DepthFt: 20, OverheadFt: 15}, `site "low": answers feasible under 15 ft of overhead clearance, less than the 20 ft`},
+	}
+	for _, tc := range cases {
+		req := sdk.AssessRequest{Sites: []sdk.Site{{ID: "ok", Method: sdk.Boring, DepthFt: 100, Surface: sdk.Wet, SlopePct: 12, OverheadFt: 20}, tc.site}}
+		r := sdk.TestRig(t, &fakeRig{info: fakeInfo, assess: echoAnswers})
+		// Before Describe the shim knows no description to hold answers to.
+		if _, err := r.Assess(context.Background(), req); err != nil {
+			t.Errorf("%s before describe: %v", tc.site.ID, err)
+		}
+		if _, err := r.Describe(context.Background()); err != nil {
+			t.Fatal(err)
+		}
+		_, err := r.Assess(context.Background(), req)
+		if err == nil || !strings.Contains(err.Error(), `rig "fake-rig": assess: `+tc.want) {
+			t.Errorf("%s: error %v; want %q", tc.site.ID, err, tc.want)
+		}
+		infeasible := func(req sdk.AssessRequest) sdk.AssessResponse {
+			out := echoAnswers(req)
+			out.Answers[1].Feasible, out.Answers[1].Reason = false, "cannot"
+			return out
+		}
+		r = sdk.TestRig(t, &fakeRig{info: fakeInfo, assess: infeasible})
+		if _, err := r.Describe(context.Background()); err != nil {
+			t.Fatal(err)
+		}
+		if _, err := r.Assess(context.Background(), req); err != nil {
+			t.Errorf("%s answered infeasible: %v", tc.site.ID, err)
+		}
+	}
+}
+
+func TestImplausible(t *testing.T) {
+	for _, tc := range []struct {
+		a    sdk.Answer
+		want string
+	}{
+		{sdk.Answer{Feasible: true, Hours: sdk.Hours{Advance: 720}}, ""},
+		{sdk.Answer{Feasible: true, Hours: sdk.Hours{Advance: 700, Setup: 21}}, "721 hours on one point, more than 720"},
+		{sdk.Answer{Feasible: true, Quantities: []sdk.Quantity{{Item: "x", Unit: "each", Amount: 1}}}, ""},
+		{sdk.Answer{Feasible: true}, "no hours and no quantities"},
+		{sdk.Answer{Feasible: false, Reason: "no"}, ""},
+	} {
+		got := sdk.Implausible(tc.a)
+		if (tc.want == "") != (got == "") || !strings.Contains(got, tc.want) {
+			t.Errorf("Implausible(%+v) = %q, want %q", tc.a, got, tc.want)
+		}
 	}
 }

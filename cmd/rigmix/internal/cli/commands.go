@@ -59,7 +59,17 @@ type rigJSON struct {
 	MaxSlopePct   float64         `json:"max_slope_pct"`
 	MinOverheadFt float64         `json:"min_overhead_ft"`
 	Basis         string          `json:"basis"`
+	DayItems      []rigItemJSON   `json:"day_items"`
+	StandbyItem   string          `json:"standby_item,omitempty"`
 	PluginFile    string          `json:"plugin_file,omitempty"` // "" for a built-in rig
+}
+
+// rigItemJSON is one per-day quantity of a rig in rigs --json.
+type rigItemJSON struct {
+	Item   string  `json:"item"`
+	Unit   string  `json:"unit"`
+	Amount float64 `json:"amount"`
+	Note   string  `json:"note,omitempty"`
 }
 
 type rigMethodJSON struct {
@@ -78,7 +88,7 @@ func newRigsCmd(g *globalOptions, stdout io.Writer) *cobra.Command {
 			if err != nil {
 				return err
 			}
-			fleet, err := openFleet(cmd.Context(), cfg, builtin.Names())
+			fleet, err := openFleet(cmd.Context(), cfg, nil, nil)
 			if err != nil {
 				return err
 			}
@@ -89,7 +99,11 @@ func newRigsCmd(g *globalOptions, stdout io.Writer) *cobra.Command {
 				for _, r := range fleet.Rigs() {
 					in := r.Info
 					j := rigJSON{Name: in.Name, Title: in.Title, Methods: []rigMethodJSON{}, Surfaces: []string{},
-						MaxSlopePct: in.Access.MaxSlopePct, MinOverheadFt: in.Access.MinOverheadFt, Basis: in.Basis, PluginFile: r.Path}
+						MaxSlopePct: in.Access.MaxSlopePct, MinOverheadFt: in.Access.MinOverheadFt, Basis: in.Basis,
+						DayItems: []rigItemJSON{}, StandbyItem: in.StandbyItem, PluginFile: r.Path}
+					for _, q := range in.DayItems {
+						j.DayItems = append(j.DayItems, rigItemJSON{q.Item, q.Unit, q.Amount, q.Note})
+					}
 					for _, m := range in.Methods {
 						j.Methods = append(j.Methods, rigMethodJSON{string(m.Method), m.MaxDepthFt})
 					}
@@ -124,6 +138,31 @@ func newRigsCmd(g *globalOptions, stdout io.Writer) *cobra.Command {
 				fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%g%%\t%s\n", in.Name, in.Title, strings.Join(ms, ", "), strings.Join(gs, ", "), in.Access.MaxSlopePct, oh)
 			}
 			tw.Flush()
+			// Where each rig's numbers come from, and what it charges per
+			// field day and per hour of standby, with the rig's own notes.
+			fmt.Fprintln(&b)
+			fmt.Fprintln(&b, "Basis and per-day items")
+			for _, r := range fleet.Rigs() {
+				in := r.Info
+				basis := in.Basis
+				if basis == "" {
+					basis = "(the rig gives no basis)"
+				}
+				fmt.Fprintf(&b, "  %s: %s\n", in.Name, basis)
+				if r.Path != "" {
+					fmt.Fprintf(&b, "    plugin file: %s\n", r.Path)
+				}
+				for _, q := range in.DayItems {
+					line := fmt.Sprintf("    per field day: %s %g %s", q.Item, q.Amount, q.Unit)
+					if q.Note != "" {
+						line += " — " + q.Note
+					}
+					fmt.Fprintln(&b, line)
+				}
+				if in.StandbyItem != "" {
+					fmt.Fprintf(&b, "    standby: %s per hour idle on wet ground\n", in.StandbyItem)
+				}
+			}
 			_, err = stdout.Write(b.Bytes())
 			return err
 		},

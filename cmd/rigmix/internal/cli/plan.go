@@ -155,16 +155,22 @@ func loadRateBook(name, base string) (*ratebooks.RateBook, error) {
 }
 
 // openFleet launches the rigs a scenario offers: built-ins by re-running
-// this binary, the rest from the plugin folder.
-func openFleet(ctx context.Context, cfg Config, want []string) (*host.Fleet, error) {
+// this binary, the rest from the plugin folder. want nil asks for every
+// rig (the rigs command), each of which must start; otherwise a plugin
+// file that fails but serves no wanted rig is skipped with a warning on
+// stderr (host.Options.Want).
+func openFleet(ctx context.Context, cfg Config, want []string, stderr io.Writer) (*host.Fleet, error) {
 	isBuiltin := map[string]bool{}
 	for _, n := range builtin.Names() {
 		isBuiltin[n] = true
 	}
-	var bs []string
-	for _, n := range want {
-		if isBuiltin[n] {
-			bs = append(bs, n)
+	bs := builtin.Names()
+	if want != nil {
+		bs = nil
+		for _, n := range want {
+			if isBuiltin[n] {
+				bs = append(bs, n)
+			}
 		}
 	}
 	fleet, err := host.Open(ctx, host.Options{
@@ -173,18 +179,24 @@ func openFleet(ctx context.Context, cfg Config, want []string) (*host.Fleet, err
 		Pins:        cfg.PluginPins,
 		CallTimeout: time.Duration(cfg.CallTimeout * float64(time.Second)),
 		SelfCommand: selfCommand,
+		Want:        want,
 	})
 	if err != nil {
 		return nil, err
 	}
 	keepFleet(fleet)
+	if stderr != nil {
+		for _, e := range fleet.Skipped() {
+			fmt.Fprintf(stderr, "warning: %v (skipped: the scenario does not need it)\n", e)
+		}
+	}
 	return fleet, nil
 }
 
 // startRigs launches the scenario's rigs, checks every offered rig is
 // there, and returns them by name.
-func startRigs(ctx context.Context, cfg Config, sc *scenarios.Scenario) (*host.Fleet, map[string]sdk.Rig, error) {
-	fleet, err := openFleet(ctx, cfg, sc.Rigs)
+func startRigs(ctx context.Context, cfg Config, sc *scenarios.Scenario, stderr io.Writer) (*host.Fleet, map[string]sdk.Rig, error) {
+	fleet, err := openFleet(ctx, cfg, append([]string{}, sc.Rigs...), stderr)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -302,7 +314,7 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 	tLoad := time.Since(t0)
 	t0 = time.Now()
 	prog.set("starting the rigs")
-	fleet, rigs, err := startRigs(ctx, cfg, sc)
+	fleet, rigs, err := startRigs(ctx, cfg, sc, stderr)
 	if err != nil {
 		return err
 	}

@@ -78,7 +78,7 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 		return err
 	}
 	prog.set("starting the rigs")
-	fleet, rigs, err := startRigs(ctx, cfg, sc)
+	fleet, rigs, err := startRigs(ctx, cfg, sc, stderr)
 	if err != nil {
 		return err
 	}

@@ -190,7 +190,7 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 		}
 	}
 	prog.set("starting the rigs")
-	fleet, rigs, err := startRigs(ctx, cfg, sc)
+	fleet, rigs, err := startRigs(ctx, cfg, sc, stderr)
 	if err != nil {
 		return err
 	}

@@ -123,7 +123,7 @@ func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []st
 		return err
 	}
 	prog.set("starting the rigs")
-	fleet, rigs, err := startRigs(ctx, cfg, sc)
+	fleet, rigs, err := startRigs(ctx, cfg, sc, stderr)
 	if err != nil {
 		return err
 	}

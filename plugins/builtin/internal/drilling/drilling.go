@@ -114,8 +114,10 @@ func Point(r Rates) fieldwork.Point {
 			h.Sampling += r.SPTBaseHr + r.SPTHrPerFt*d
 		}
 		if len(samples) > 0 {
-			qs = append(qs, fieldwork.Qty(fieldwork.ItemSPTSample, fieldwork.UnitEach, float64(len(samples)),
-				"split-barrel samples with SPT at "+fieldwork.DescribeDepths(samples)+"; "+fieldwork.SPTDriveNote))
+			q := fieldwork.Qty(fieldwork.ItemSPTSample, fieldwork.UnitEach, float64(len(samples)),
+				"split-barrel samples with SPT at "+fieldwork.DescribeDepths(samples)+"; "+fieldwork.SPTDriveNote)
+			q.SampleKind = sdk.SampleSplitBarrel
+			qs = append(qs, q)
 		}
 		h.Grouting = r.GroutSetupHr + r.GroutHrPerFt*s.DepthFt
 		qs = append(qs, fieldwork.Qty(fieldwork.ItemGroutBoring, fieldwork.UnitFt, s.DepthFt, "grout the hole full depth"))
