@@ -3,6 +3,7 @@ package mip
 import (
 	"math"
 	"sort"
+	"time"
 
 	"github.com/rigmix/rigmix/optimizer/lp"
 )
@@ -318,7 +319,10 @@ func (e *engine) rootCuts(r *lp.Result) (*lp.Result, error) {
 	perRound := max(10, min(100, g.m0/2))
 	total := max(50, 2*g.m0)
 	for round := 0; round < gmiRounds && len(g.cuts) < total; round++ {
-		if e.checkStop() {
+		// The root node is already counted, so a node limit does not stop
+		// its cuts; cancellation, the clock and the work limit do.
+		if e.ctx.Err() != nil || (!e.deadline.IsZero() && time.Now().After(e.deadline)) ||
+			(e.opt.WorkLimit > 0 && e.lpIter >= e.opt.WorkLimit) {
 			break
 		}
 		cands := gmiCandidates(e.s, g, e.p.Integer, r.X, e.glo, e.gup)

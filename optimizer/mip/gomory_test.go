@@ -181,3 +181,32 @@ func TestCutsKeepOptimum(t *testing.T) {
 		t.Errorf("cuts were added on only %d problems", withCuts)
 	}
 }
+
+// TestCutsUnderNodeLimit: a node limit (here 1, the root alone) does not
+// stop the root's cuts, so the bound a root-only solve reports is the
+// bound after cuts: the same number of cuts as without the limit.
+func TestCutsUnderNodeLimit(t *testing.T) {
+	rng := rand.New(rand.NewPCG(8, 15))
+	checked := 0
+	for trial := 0; trial < 60 && checked < 5; trial++ {
+		p := randomGeneralMIP(rng, 2+rng.IntN(5), 3+rng.IntN(5))
+		full, err := Solve(context.Background(), p, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if full.Cuts == 0 {
+			continue
+		}
+		root, err := Solve(context.Background(), p, Options{NodeLimit: 1})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if root.Status == NodeLimit && root.Cuts != full.Cuts {
+			t.Errorf("trial %d: %d cuts under NodeLimit 1, %d without", trial, root.Cuts, full.Cuts)
+		}
+		checked++
+	}
+	if checked == 0 {
+		t.Error("no problem with cuts")
+	}
+}
