@@ -77,8 +77,8 @@ func TestMPSInfiniteValues(t *testing.T) {
 	}
 	// A range of 1e30 on a G row gives [rhs, +∞) by the MPS definition of
 	// ranges (GLPK reference manual, appendix "MPS format"): the same
-	// optimum. (CBC 2.10.8 drops such a row and reports 2; see the
-	// README of this package.)
+	// optimum. (CBC 2.10.8 drops such a row and reports 2, as the
+	// measured-figures section of the README notes.)
 	if _, res := solveText(t, smallLP(" rng row_a 1e30\n")); res.Status != Optimal || math.Abs(res.Obj-2.8) > 1e-9 {
 		t.Errorf("with a 1e30 range on a G row: status %v objective %v, want optimal 2.8", res.Status, res.Obj)
 	}
