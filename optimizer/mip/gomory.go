@@ -299,7 +299,8 @@ func cosine(a, b cut) float64 {
 	return dot / (a.norm * b.norm)
 }
 
-// rootCuts adds rounds of Gomory mixed-integer cuts to the root LP in
+// rootCuts adds rounds of Gomory mixed-integer cuts and knapsack cover
+// cuts (knapcover.go) to the root LP in
 // the solver(s) and returns the LP result after the last round. The cuts
 // live in the LP only: the problem e.p, on which heuristics and the
 // feasibility checks work, keeps its rows.
@@ -326,6 +327,7 @@ func (e *engine) rootCuts(r *lp.Result) (*lp.Result, error) {
 			break
 		}
 		cands := gmiCandidates(e.s, g, e.p.Integer, r.X, e.glo, e.gup)
+		cands = append(cands, knapsackCandidates(g, e.p.Integer, e.p.LP.RowLo, e.p.LP.RowUp, e.glo, e.gup, r.X)...)
 		sel := selectCuts(cands, min(perRound, total-len(g.cuts)))
 		if len(sel) == 0 {
 			break

@@ -21,7 +21,8 @@ import (
 // at (1.6, 1.2), so the minimum is 2.8. Every "infinite" value below (an
 // upper bound of 1e30 on y, a lower bound of -1e30 on x, a range of 1e30
 // on the L row row_c, a right-hand side of 1e30 on row_d) leaves that
-// optimum unchanged when read as infinite. extra is placed before ENDATA.
+// optimum unchanged when read as infinite. rangesG adds lines to the
+// RANGES section.
 func smallLP(rangesG string) string {
 	return `NAME small
 ROWS
