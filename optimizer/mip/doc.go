@@ -35,8 +35,10 @@
 //
 // At the root of a general MIP (not pure set covering) rounds of Gomory
 // mixed-integer cuts (Gomory 1960; Marchand, Martin, Weismantel and
-// Wolsey 2002) are derived from the rows of the optimal simplex tableau
-// (lp.Solver.TableauRow) and added to the LP (lp.Solver.AddRows, warm):
+// Wolsey 2002), derived from the rows of the optimal simplex tableau
+// (lp.Solver.TableauRow), and of extended knapsack cover cuts on rows of
+// binaries (Balas 1975; Crowder, Johnson and Padberg 1983; knapcover.go)
+// are added to the LP (lp.Solver.AddRows, warm):
 // numerically unsafe cuts are dropped, the rest filtered by efficacy and
 // parallelism (Achterberg 2007, §8.9) as gomory.go describes. The cuts
 // live in the LP only; heuristics and feasibility checks use the rows of
@@ -97,6 +99,11 @@
 //   - H. Marchand, A. Martin, R. Weismantel and L. Wolsey (2002), Cutting
 //     planes in integer and mixed integer programming, Discrete Applied
 //     Mathematics 123:397–446 (from memory).
+//   - E. Balas (1975), Facets of the knapsack polytope, Mathematical
+//     Programming 8:146–164 (from memory).
+//   - H. Crowder, E. L. Johnson and M. Padberg (1983), Solving large-scale
+//     zero-one linear programming problems, Operations Research
+//     31:803–834 (from memory).
 //   - G. Cornuéjols (2008), Valid inequalities for mixed integer linear
 //     programs, Mathematical Programming 112:3–44 (from memory).
 //   - E. Danna, E. Rothberg and C. Le Pape (2005), Exploring relaxation

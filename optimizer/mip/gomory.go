@@ -3,6 +3,7 @@ package mip
 import (
 	"math"
 	"sort"
+	"time"
 
 	"github.com/rigmix/rigmix/optimizer/lp"
 )
@@ -298,7 +299,8 @@ func cosine(a, b cut) float64 {
 	return dot / (a.norm * b.norm)
 }
 
-// rootCuts adds rounds of Gomory mixed-integer cuts to the root LP in
+// rootCuts adds rounds of Gomory mixed-integer cuts and knapsack cover
+// cuts (knapcover.go) to the root LP in
 // the solver(s) and returns the LP result after the last round. The cuts
 // live in the LP only: the problem e.p, on which heuristics and the
 // feasibility checks work, keeps its rows.
@@ -318,10 +320,14 @@ func (e *engine) rootCuts(r *lp.Result) (*lp.Result, error) {
 	perRound := max(10, min(100, g.m0/2))
 	total := max(50, 2*g.m0)
 	for round := 0; round < gmiRounds && len(g.cuts) < total; round++ {
-		if e.checkStop() {
+		// The root node is already counted, so a node limit does not stop
+		// its cuts; cancellation, the clock and the work limit do.
+		if e.ctx.Err() != nil || (!e.deadline.IsZero() && time.Now().After(e.deadline)) ||
+			(e.opt.WorkLimit > 0 && e.lpIter >= e.opt.WorkLimit) {
 			break
 		}
 		cands := gmiCandidates(e.s, g, e.p.Integer, r.X, e.glo, e.gup)
+		cands = append(cands, knapsackCandidates(g, e.p.Integer, e.p.LP.RowLo, e.p.LP.RowUp, e.glo, e.gup, r.X)...)
 		sel := selectCuts(cands, min(perRound, total-len(g.cuts)))
 		if len(sel) == 0 {
 			break

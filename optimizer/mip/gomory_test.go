@@ -181,3 +181,162 @@ func TestCutsKeepOptimum(t *testing.T) {
 		t.Errorf("cuts were added on only %d problems", withCuts)
 	}
 }
+
+// TestCutsUnderNodeLimit: a node limit (here 1, the root alone) does not
+// stop the root's cuts, so the bound a root-only solve reports is the
+// bound after cuts: the same number of cuts as without the limit.
+func TestCutsUnderNodeLimit(t *testing.T) {
+	rng := rand.New(rand.NewPCG(8, 15))
+	checked := 0
+	for trial := 0; trial < 60 && checked < 5; trial++ {
+		p := randomGeneralMIP(rng, 2+rng.IntN(5), 3+rng.IntN(5))
+		full, err := Solve(context.Background(), p, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if full.Cuts == 0 {
+			continue
+		}
+		root, err := Solve(context.Background(), p, Options{NodeLimit: 1})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if root.Status == NodeLimit && root.Cuts != full.Cuts {
+			t.Errorf("trial %d: %d cuts under NodeLimit 1, %d without", trial, root.Cuts, full.Cuts)
+		}
+		checked++
+	}
+	if checked == 0 {
+		t.Error("no problem with cuts")
+	}
+}
+
+// randomKnapsackMIP is an invented pure-binary problem with knapsack rows
+// (positive and negative coefficients, ≤ and ≥ rows) and a random
+// objective that pulls columns towards 1.
+func randomKnapsackMIP(rng *rand.Rand, m, n int) *Problem {
+	p := &Problem{Integer: make([]bool, n)}
+	q := &p.LP
+	q.NumRows, q.NumCols = m, n
+	q.Obj = make([]float64, n)
+	q.ColLo = make([]float64, n)
+	q.ColUp = make([]float64, n)
+	q.RowLo = make([]float64, m)
+	q.RowUp = make([]float64, m)
+	q.ColStart = make([]int, n+1)
+	a := make([][]float64, m)
+	for i := range a {
+		a[i] = make([]float64, n)
+		for j := range a[i] {
+			if rng.IntN(4) > 0 {
+				a[i][j] = float64(1 + rng.IntN(12))
+				if rng.IntN(5) == 0 {
+					a[i][j] = -a[i][j]
+				}
+			}
+		}
+	}
+	for j := 0; j < n; j++ {
+		p.Integer[j] = true
+		q.ColUp[j] = 1
+		q.Obj[j] = -float64(1 + rng.IntN(10))
+		for i := 0; i < m; i++ {
+			if a[i][j] != 0 {
+				q.RowIndex = append(q.RowIndex, i)
+				q.Value = append(q.Value, a[i][j])
+			}
+		}
+		q.ColStart[j+1] = len(q.RowIndex)
+	}
+	for i := 0; i < m; i++ {
+		sum := 0.0
+		for _, v := range a[i] {
+			sum += math.Abs(v)
+		}
+		q.RowLo[i], q.RowUp[i] = math.Inf(-1), math.Floor(sum*(0.2+0.4*rng.Float64()))
+	}
+	// Turn a few rows into ≥ rows by negating them.
+	for i := 0; i < m; i += 3 {
+		for j := 0; j < n; j++ {
+			for k := q.ColStart[j]; k < q.ColStart[j+1]; k++ {
+				if q.RowIndex[k] == i {
+					q.Value[k] = -q.Value[k]
+				}
+			}
+		}
+		q.RowLo[i], q.RowUp[i] = -q.RowUp[i], math.Inf(1)
+	}
+	return p
+}
+
+// TestKnapsackCoversValid: every knapsack cover cut derived from the LP
+// point of random pure-binary knapsack problems holds at every feasible
+// 0/1 point (all 2^n points enumerated), and the generator is not idle.
+func TestKnapsackCoversValid(t *testing.T) {
+	rng := rand.New(rand.NewPCG(31, 7))
+	total := 0
+	for trial := 0; trial < 40; trial++ {
+		n := 6 + rng.IntN(7)
+		p := randomKnapsackMIP(rng, 1+rng.IntN(3), n)
+		q := &p.LP
+		r, err := lp.Solve(q, lp.Options{})
+		if err != nil || r.Status != lp.Optimal {
+			t.Fatalf("trial %d: LP %v %v", trial, r, err)
+		}
+		cuts := knapsackCandidates(newGMIState(q), p.Integer, q.RowLo, q.RowUp, q.ColLo, q.ColUp, r.X)
+		total += len(cuts)
+		x := make([]float64, n)
+		for mask := 0; mask < 1<<n; mask++ {
+			for j := range x {
+				x[j] = float64(mask >> j & 1)
+			}
+			if _, ok := checkFeasible(p, x); !ok {
+				continue
+			}
+			for k, c := range cuts {
+				act := 0.0
+				for t, j := range c.cols {
+					act += c.vals[t] * x[j]
+				}
+				if act < c.rhs-1e-9 {
+					t.Fatalf("trial %d cut %d: feasible point %v has π x = %v < %v", trial, k, x, act, c.rhs)
+				}
+			}
+		}
+	}
+	t.Logf("%d cover cuts checked", total)
+	if total < 10 {
+		t.Errorf("only %d cover cuts on 40 problems", total)
+	}
+}
+
+// TestKnapsackMIPOptimum: with root cuts (Gomory and covers) the engine
+// finds the optimum of random knapsack problems given by enumeration of
+// all 0/1 points.
+func TestKnapsackMIPOptimum(t *testing.T) {
+	rng := rand.New(rand.NewPCG(32, 9))
+	cuts := 0
+	for trial := 0; trial < 30; trial++ {
+		n := 6 + rng.IntN(7)
+		p := randomKnapsackMIP(rng, 1+rng.IntN(4), n)
+		best := math.Inf(1)
+		x := make([]float64, n)
+		for mask := 0; mask < 1<<n; mask++ {
+			for j := range x {
+				x[j] = float64(mask >> j & 1)
+			}
+			if v, ok := checkFeasible(p, x); ok && v < best {
+				best = v
+			}
+		}
+		res, err := Solve(context.Background(), p, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		cuts += res.Cuts
+		if res.Status != Optimal || !sameObj(res.Obj, best) {
+			t.Errorf("trial %d: %v %v; enumeration gives %v", trial, res.Status, res.Obj, best)
+		}
+	}
+	t.Logf("%d root cuts on 30 problems", cuts)
+}

@@ -21,7 +21,8 @@ import (
 // at (1.6, 1.2), so the minimum is 2.8. Every "infinite" value below (an
 // upper bound of 1e30 on y, a lower bound of -1e30 on x, a range of 1e30
 // on the L row row_c, a right-hand side of 1e30 on row_d) leaves that
-// optimum unchanged when read as infinite. extra is placed before ENDATA.
+// optimum unchanged when read as infinite. rangesG adds lines to the
+// RANGES section.
 func smallLP(rangesG string) string {
 	return `NAME small
 ROWS
@@ -77,8 +78,8 @@ func TestMPSInfiniteValues(t *testing.T) {
 	}
 	// A range of 1e30 on a G row gives [rhs, +∞) by the MPS definition of
 	// ranges (GLPK reference manual, appendix "MPS format"): the same
-	// optimum. (CBC 2.10.8 drops such a row and reports 2; see the
-	// README of this package.)
+	// optimum. (CBC 2.10.8 drops such a row and reports 2, as the
+	// measured-figures section of the README notes.)
 	if _, res := solveText(t, smallLP(" rng row_a 1e30\n")); res.Status != Optimal || math.Abs(res.Obj-2.8) > 1e-9 {
 		t.Errorf("with a 1e30 range on a G row: status %v objective %v, want optimal 2.8", res.Status, res.Obj)
 	}
