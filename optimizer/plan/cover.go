@@ -12,7 +12,7 @@ import (
 // coverNodeLimit bounds the search for each zone's covering number. A node
 // limit, not a time limit, keeps the result the same on every run and every
 // machine.
-const coverNodeLimit = 20000
+const coverNodeLimit = 2000
 
 // recoverNodeLimit bounds the search when a zone's covering number is
 // raised after exact-coverage rows were added (raiseCoverNumbers): the

@@ -3,7 +3,9 @@ package plan
 import (
 	"context"
 	"fmt"
+	"runtime"
 	"slices"
+	"sync"
 	"time"
 
 	"github.com/rigmix/rigmix/optimizer/candidates"
@@ -459,52 +461,117 @@ func MapStart(old, nu *model.Model, x []float64) []float64 { return mapStart(old
 // are are used: a spot none reaches is left to the full rounds.
 func (pr *Prepared) preloadRows(ctx context.Context) error {
 	spec := pr.Spec
-	byZone := make([][]int, len(pr.In.Scenario.Zones))
+	nz := len(pr.In.Scenario.Zones)
+	byZone := make([][]int, nz)
 	for q, c := range pr.Layout.Candidates {
 		byZone[c.Zone] = append(byZone[c.Zone], q)
 	}
-	// Zones still to check: all at first, then those that got rows.
-	todo := make([]bool, len(byZone))
-	for z := range todo {
-		todo[z] = true
+	rowsByZone := make([][][]int, nz)
+	for _, row := range spec.CoverRows {
+		if len(row) > 0 {
+			z := spec.PointZone[row[0]]
+			rowsByZone[z] = append(rowsByZone[z], row)
+		}
 	}
-	for round := 0; round < maxCoverRounds; round++ {
-		if ctx.Err() != nil {
-			return ctx.Err()
+	explorable := make([]bool, spec.NumPoints)
+	for _, op := range spec.Options {
+		explorable[op.Point] = true
+	}
+	// Each zone's loop is its own (its ground, rows and cover touch no
+	// other zone's), so zones run side by side, one per processor; the
+	// results are joined in zone order, the same on every run.
+	type result struct {
+		rows [][]int
+		k    int
+		set  []int
+		err  error
+	}
+	results := make([]result, nz)
+	zoneLoop := func(z int) result {
+		var res result
+		r := pr.Layout.RadiusFt[z]
+		set := pr.CoverSets[z]
+		if r == 0 || len(rowsByZone[z]) == 0 || set == nil {
+			return res
 		}
-		chosen := make([]bool, len(pr.Layout.Candidates))
-		for z, set := range pr.CoverSets {
-			if todo[z] {
-				for _, p := range set {
-					chosen[p] = true
-				}
+		var pts []int
+		for _, q := range byZone[z] {
+			if explorable[q] {
+				pts = append(pts, q)
 			}
 		}
-		spots := pr.uncoveredIn(chosen, todo)
-		var kept []zoneSpot
+		g := pr.Ground(z)
+		rows := slices.Clone(rowsByZone[z])
 		seen := map[string]bool{}
-		for _, s := range spots {
-			row := pr.rowFor(s, byZone[s.Zone])
-			if len(row) == 0 {
-				continue
+		for round := 0; round < maxCoverRounds && ctx.Err() == nil; round++ {
+			sites := make([]geom.Point, len(set))
+			for i, q := range set {
+				sites[i] = pr.Layout.Candidates[q].P
 			}
-			key := fmt.Sprint(row)
-			if seen[key] {
-				continue
+			added := 0
+			for _, sp := range geom.SpotsBeyond(g, sites, r+coverTol(r)) {
+				row := pr.rowFor(zoneSpot{z, sp.At}, byZone[z])
+				if len(row) == 0 {
+					continue
+				}
+				key := fmt.Sprint(row)
+				if seen[key] {
+					continue
+				}
+				seen[key] = true
+				rows = append(rows, row)
+				res.rows = append(res.rows, row)
+				added++
 			}
-			seen[key] = true
-			spec.CoverRows = append(spec.CoverRows, row)
-			kept = append(kept, s)
+			if added == 0 {
+				break
+			}
+			k, s, err := coverNumber(ctx, spec, z, rows, pts, recoverNodeLimit)
+			if err != nil {
+				res.err = err
+				return res
+			}
+			res.k = max(res.k, k)
+			if s == nil {
+				break
+			}
+			res.set, set = s, s
 		}
-		if len(kept) == 0 {
-			return nil
+		return res
+	}
+	next := make(chan int)
+	var wg sync.WaitGroup
+	for w := 0; w < max(1, min(runtime.GOMAXPROCS(0), nz)); w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for z := range next {
+				results[z] = zoneLoop(z)
+			}
+		}()
+	}
+	for z := 0; z < nz; z++ {
+		next <- z
+	}
+	close(next)
+	wg.Wait()
+	if ctx.Err() != nil {
+		return ctx.Err()
+	}
+	spec.Zones = slices.Clone(spec.Zones)
+	pr.CoverMin = slices.Clone(pr.CoverMin)
+	pr.CoverSets = slices.Clone(pr.CoverSets)
+	for z, res := range results {
+		if res.err != nil {
+			return res.err
 		}
-		clear(todo)
-		for _, s := range kept {
-			todo[s.Zone] = true
+		spec.CoverRows = append(spec.CoverRows, res.rows...)
+		if res.k > pr.CoverMin[z] {
+			pr.CoverMin[z] = res.k
+			spec.Zones[z].MinCount = max(spec.Zones[z].MinCount, res.k)
 		}
-		if err := pr.raiseCoverNumbers(spec, kept); err != nil {
-			return err
+		if res.set != nil {
+			pr.CoverSets[z] = res.set
 		}
 	}
 	return nil
