@@ -116,12 +116,17 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 	}
 	chosenPoint := make([]bool, len(pr.Layout.Candidates))
 	labCounts := make([]lab.Counts, len(sc.Zones))
+	methods := make([]string, len(sol.Chosen))
+	for k, o := range sol.Chosen {
+		methods[k] = string(pr.Options[o].method)
+	}
+	ids := pointIDs(methods)
 	for k, o := range sol.Chosen {
 		od := pr.Options[o]
 		c := pr.Layout.Candidates[od.point]
 		zn := sc.Zones[od.zone]
 		pt := Point{
-			ID: fmt.Sprintf("P%03d", k+1), Zone: zn.ID,
+			ID: ids[k], Zone: zn.ID,
 			XFt: round(c.P.X, 1), YFt: round(c.P.Y, 1),
 			Method: string(od.method), Rig: pr.Rigs[od.rig].name,
 			DepthFt: od.depth, Hours: round(pr.Spec.Options[o].Hours, 2),

@@ -392,14 +392,14 @@ func sortedMethodKeys(m map[string]int) []string {
 }
 
 // methodRigTable counts points by method (rows) and rig (columns), with
-// the site map's rig letters in the header.
+// the site map's rig numbers in the header.
 func methodRigTable(p *plan.Plan) htmlTable {
 	methods, _ := mapMethods(p)
 	rigs := mapRigs(p)
 	t := htmlTable{Header: []string{"method"}}
 	t.Num = []bool{false}
 	for _, r := range rigs {
-		t.Header = append(t.Header, r.letter+" · "+r.name)
+		t.Header = append(t.Header, "rig "+r.number+" · "+r.name)
 		t.Num = append(t.Num, true)
 	}
 	t.Header = append(t.Header, "all rigs")

@@ -22,8 +22,8 @@ func samplePlan() *plan.Plan {
 		Scenario: plan.ScenarioInfo{Name: "sample", Title: "Sample lot", Source: "demo:sample", Demo: true},
 		RateBook: plan.RateBookInfo{Name: "book", Title: "Book", Currency: "USD", Effective: "2026-01-01", Region: "Nowhere", Demo: true},
 		Points: []plan.Point{
-			{ID: "P001", Zone: "Z1", XFt: 10, YFt: 20, Lon: f(-100.0001), Lat: f(40.0002), Method: "boring", Rig: "tire-drill", DepthFt: 30, SampleIntervalFt: 5, Sampling: "every 2.5 ft to 5 ft, then every 5 ft", Hours: 4.5, Cost: 1234.5},
-			{ID: "P002", Zone: "Z1", XFt: 60.5, YFt: 20, Lon: f(-100.0003), Lat: f(40.0002), Method: "cpt", Rig: "cpt-rig", DepthFt: 30, Hours: 1.25, Cost: 600},
+			{ID: "B-1", Zone: "Z1", XFt: 10, YFt: 20, Lon: f(-100.0001), Lat: f(40.0002), Method: "boring", Rig: "tire-drill", DepthFt: 30, SampleIntervalFt: 5, Sampling: "every 2.5 ft to 5 ft, then every 5 ft", Hours: 4.5, Cost: 1234.5},
+			{ID: "S-1", Zone: "Z1", XFt: 60.5, YFt: 20, Lon: f(-100.0003), Lat: f(40.0002), Method: "cpt", Rig: "cpt-rig", DepthFt: 30, Hours: 1.25, Cost: 600},
 		},
 		Estimate: []plan.Line{
 			{Item: "drill-0-50", Description: "Soil drilling", Quantity: 30, Unit: "ft", UnitPrice: 20, Extension: 600},
