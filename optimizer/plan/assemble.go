@@ -91,7 +91,6 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		Scenario: ScenarioInfo{Name: sc.Name, Title: sc.Title, Source: sc.Source, Demo: sc.Demo},
 		RateBook: RateBookInfo{Name: rb.Name, Title: rb.Title, Currency: rb.Currency, Effective: rb.Effective, Region: rb.Region, Demo: rb.Demo},
 		Finish:   sol.Finish,
-		Cautions: append([]string(nil), Cautions...),
 		Warnings: []string{},
 	}
 	var frame *geom.LocalFrame
@@ -245,6 +244,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 	}
 	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth, pr.ExactReach(chosenPoint), pr.NeighbourFt(chosenPoint))
 	p.Warnings = append(p.Warnings, shallowBuildingWarnings(sc)...)
+	p.Cautions = planCautions(sc, p.Points)
 	pb := pr.Model.Problem
 	if math.IsInf(res.Bound, 0) || math.IsNaN(res.Bound) {
 		// Stopped before the root bound: every cost is ≥ 0, so 0 is a
@@ -410,4 +410,17 @@ func (pr *Prepared) excluded() []Excluded {
 		}
 	}
 	return out
+}
+
+// planCautions picks the cautions that fit the plan's points and the
+// scenario's zones.
+func planCautions(sc *scenarios.Scenario, pts []Point) []string {
+	pits, env := false, false
+	for _, pt := range pts {
+		pits = pits || pt.Method == string(sdk.TestPit)
+	}
+	for _, z := range sc.Zones {
+		env = env || z.Use == scenarios.UseEnvironmental
+	}
+	return CautionsFor(pits, env)
 }

@@ -240,7 +240,7 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 			return err
 		}
 		b.WriteString("\nCautions\n")
-		for _, c := range plan.Cautions {
+		for _, c := range planCautions(p) {
 			fmt.Fprintf(&b, "  * %s\n", c)
 		}
 		outs.summary = b.Bytes()
@@ -276,4 +276,13 @@ func (o *scheduleOptions) addCalendarFlags(f *pflag.FlagSet) {
 	f.Uint64Var(&o.seed, "seed", 1, "`SEED` of the weather and production Monte Carlo")
 	f.IntVar(&o.runs, "runs", 1000, "Monte Carlo runs, `N` (at most 1,000,000)")
 	f.Float64Var(&o.cv, "production-cv", 0.2, "coefficient of variation (`CV`) of hours on points")
+}
+
+// planCautions is the cautions that fit the plan; a plan file from
+// elsewhere that carries none gets every caution.
+func planCautions(p *plan.Plan) []string {
+	if len(p.Cautions) == 0 {
+		return plan.Cautions
+	}
+	return p.Cautions
 }
