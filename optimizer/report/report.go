@@ -45,6 +45,31 @@ func PointsCSV(w io.Writer, p *plan.Plan) error {
 	return cw.Error()
 }
 
+// EstimateCSV writes the itemized estimate for a spreadsheet: one row per
+// line (item, description, quantity, unit, unit price, extension) and a
+// closing total row; money with two decimals and no thousands separators,
+// so a spreadsheet reads every amount as a number.
+func EstimateCSV(w io.Writer, p *plan.Plan) error {
+	cur := p.RateBook.Currency
+	cw := csv.NewWriter(w)
+	_ = cw.Write([]string{"item", "description", "quantity", "unit", "unit_price_" + cur, "extension_" + cur})
+	for _, l := range p.Estimate {
+		_ = cw.Write([]string{l.Item, l.Description, ftoa(l.Quantity), l.Unit, money2(l.UnitPrice), money2(l.Extension)})
+	}
+	_ = cw.Write([]string{"total", "total of the estimate", "", "", "", money2(p.Total)})
+	cw.Flush()
+	return cw.Error()
+}
+
+// money2 is an amount with two decimals, for CSV: no separators.
+func money2(v float64) string {
+	s := strconv.FormatFloat(v, 'f', 2, 64)
+	if s == "-0.00" {
+		return "0.00"
+	}
+	return s
+}
+
 // GeoJSON writes the points as an RFC 7946 FeatureCollection. RFC 7946
 // requires WGS 84 longitude and latitude, so a scenario without an origin
 // cannot be written; the error says so.

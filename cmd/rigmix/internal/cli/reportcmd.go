@@ -15,13 +15,15 @@ import (
 )
 
 type reportOptions struct {
-	demo      string
-	out       string
-	sched     scheduleOptions
-	tradeoffs bool
-	runDate   string
-	quiet     bool
-	jsonOut   string
+	demo        string
+	out         string
+	sched       scheduleOptions
+	tradeoffs   bool
+	runDate     string
+	quiet       bool
+	estimateCSV string
+	csvBOM      bool
+	jsonOut     string
 }
 
 func newReportCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -49,6 +51,8 @@ func newReportCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	f.Float64("gap", 0, "optimality `GAP` of the plan")
 	f.Float64("time-limit", 0, "`SECONDS` for the plan's solve")
 	f.BoolVar(&o.tradeoffs, "tradeoffs", true, "include the alternatives table, the cost–days frontier and the budget–coverage curve")
+	f.StringVar(&o.estimateCSV, "estimate-csv", "", "write the itemized estimate as CSV to `FILE` (- for standard output)")
+	f.BoolVar(&o.csvBOM, "csv-bom", false, "begin every CSV file written with a UTF-8 byte-order mark (for spreadsheets)")
 	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
 	f.StringVar(&o.runDate, "run-date", "", "`DATE` shown as the date of the run (default: today)")
 	o.sched.addCalendarFlags(f)
@@ -66,9 +70,10 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 	if err != nil {
 		return err
 	}
-	outs := &outputs{stdout: stdout}
+	outs := &outputs{stdout: stdout, bom: o.csvBOM}
 	out := outs.add("--out", o.out)
 	jsonF := outs.add("--json", o.jsonOut)
+	estF := outs.add("--estimate-csv", o.estimateCSV)
 	if err := outs.check(inputs); err != nil {
 		return err
 	}
@@ -141,6 +146,13 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 			return err
 		}
 		jsonF.setData(j)
+	}
+	if estF != nil {
+		var e bytes.Buffer
+		if err := report.EstimateCSV(&e, p); err != nil {
+			return err
+		}
+		estF.setData(e.Bytes())
 	}
 	prog.end()
 	status := fmt.Sprintf("wrote %s: %d points, %s %.2f, %d field days in the plan; schedule %s to %s\n",

@@ -38,6 +38,7 @@ type scheduleOptions struct {
 	stakeCSV     string
 	stakeGeoJSON string
 	quiet        bool
+	csvBOM       bool
 	jsonOut      string
 }
 
@@ -69,6 +70,7 @@ func newScheduleCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	f.StringVar(&o.csvOut, "csv", "", "write the day-by-day table as CSV to `FILE` (- for standard output)")
 	f.StringVar(&o.ganttOut, "gantt-svg", "", "write a Gantt chart as SVG to `FILE` (- for standard output)")
 	f.StringVar(&o.stakeCSV, "stakeout-csv", "", "write the stakeout list as CSV to `FILE` (- for standard output)")
+	f.BoolVar(&o.csvBOM, "csv-bom", false, "begin every CSV file written with a UTF-8 byte-order mark (for spreadsheets)")
 	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
 	f.StringVar(&o.stakeGeoJSON, "stakeout-geojson", "", "write the stakeout list as GeoJSON to `FILE` (- for standard output)")
 	return c
@@ -164,7 +166,7 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 	if err != nil {
 		return err
 	}
-	outs := &outputs{stdout: stdout}
+	outs := &outputs{stdout: stdout, bom: o.csvBOM}
 	files := []*output{
 		outs.add("--csv", o.csvOut), outs.add("--gantt-svg", o.ganttOut),
 		outs.add("--stakeout-csv", o.stakeCSV), outs.add("--stakeout-geojson", o.stakeGeoJSON),

@@ -33,6 +33,7 @@ type tradeoffOptions struct {
 	frontierN int
 	budgetN   int
 	quiet     bool
+	csvBOM    bool
 }
 
 func newTradeoffsCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -58,6 +59,7 @@ func newTradeoffsCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command 
 	f.IntVar(&o.frontierN, "frontier-points", 0, "most points on the cost–days frontier, `N` (at most 100; default 12)")
 	f.IntVar(&o.budgetN, "budget-points", 0, "budgets on the budget–coverage curve, `N` (at most 100; default 8)")
 	f.Float64("gap", 0, "relative `GAP` every solve stops at (default 0.005)")
+	f.BoolVar(&o.csvBOM, "csv-bom", false, "begin every CSV file written with a UTF-8 byte-order mark (for spreadsheets)")
 	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
 	f.StringVar(&o.jsonOut, "json", "", "write the whole analysis as JSON to `FILE` (- for standard output)")
 	f.StringVar(&o.altCSV, "alternatives-csv", "", "write the alternatives table as CSV to `FILE`")
@@ -97,7 +99,7 @@ func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []st
 			}
 		}
 	}
-	outs := &outputs{stdout: stdout}
+	outs := &outputs{stdout: stdout, bom: o.csvBOM}
 	type render func(w io.Writer) error
 	var an *tradeoff.Analysis
 	files := []struct {
