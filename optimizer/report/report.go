@@ -14,6 +14,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	moneyfmt "github.com/rigmix/rigmix/internal/money"
 	"github.com/rigmix/rigmix/optimizer/plan"
 )
 
@@ -242,27 +243,9 @@ func yesNo(b bool) string {
 
 func ftoa(v float64) string { return strconv.FormatFloat(v, 'f', -1, 64) }
 
-// money formats an amount with thousands separators and two decimals.
-func money(v float64, cur string) string {
-	s := strconv.FormatFloat(v, 'f', 2, 64)
-	neg := strings.HasPrefix(s, "-")
-	s = strings.TrimPrefix(s, "-")
-	intPart, frac := s[:len(s)-3], s[len(s)-3:]
-	var g []string
-	for len(intPart) > 3 {
-		g = append([]string{intPart[len(intPart)-3:]}, g...)
-		intPart = intPart[:len(intPart)-3]
-	}
-	g = append([]string{intPart}, g...)
-	out := strings.Join(g, ",") + frac
-	if neg {
-		out = "-" + out
-	}
-	if cur != "" {
-		out = cur + " " + out
-	}
-	return out
-}
+// money formats an amount for people: thousands separators, two decimals,
+// after the currency code when one is given (internal/money).
+func money(v float64, cur string) string { return moneyfmt.WithCurrency(v, cur) }
 
 // ruleBases lists, rule by rule, the origin of every rule that the file
 // did not state itself (computed, preset or default), with the rule named:

@@ -9,6 +9,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"github.com/rigmix/rigmix/internal/money"
 	"github.com/rigmix/rigmix/optimizer/plan"
 	"github.com/rigmix/rigmix/optimizer/report"
 	"github.com/rigmix/rigmix/optimizer/schedule"
@@ -155,8 +156,8 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 		estF.setData(e.Bytes())
 	}
 	prog.end()
-	status := fmt.Sprintf("wrote %s: %d points, %s %.2f, %d field days in the plan; schedule %s to %s\n",
-		o.out, len(p.Points), p.RateBook.Currency, p.Total, p.Finish, s.Start.Format("2006-01-02"), s.Finish.Format("2006-01-02"))
+	status := fmt.Sprintf("wrote %s: %d points, %s, %d field days in the plan; schedule %s to %s\n",
+		o.out, len(p.Points), money.WithCurrency(p.Total, p.RateBook.Currency), p.Finish, s.Start.Format("2006-01-02"), s.Finish.Format("2006-01-02"))
 	if o.quiet {
 		return outs.commit(ctx)
 	}
