@@ -71,7 +71,9 @@ func money2(v float64) string {
 	return s
 }
 
-// GeoJSON writes the points as an RFC 7946 FeatureCollection. RFC 7946
+// GeoJSON writes the points as an RFC 7946 FeatureCollection, each with
+// its ID as the feature id and as the "name" property, the field GIS
+// programs label points by (KML's name, a shapefile's NAME). RFC 7946
 // requires WGS 84 longitude and latitude, so a scenario without an origin
 // cannot be written; the error says so.
 func GeoJSON(w io.Writer, p *plan.Plan) error {
@@ -97,7 +99,7 @@ func GeoJSON(w io.Writer, p *plan.Plan) error {
 			Type: "Feature", ID: pt.ID,
 			Geometry: geometry{Type: "Point", Coordinates: []float64{*pt.Lon, *pt.Lat}},
 			Properties: map[string]any{ // encoding/json sorts map keys: stable output
-				"zone": pt.Zone, "method": pt.Method, "rig": pt.Rig, "depth_ft": pt.DepthFt,
+				"name": pt.ID, "zone": pt.Zone, "method": pt.Method, "rig": pt.Rig, "depth_ft": pt.DepthFt,
 				"sample_interval_ft": pt.SampleIntervalFt, "x_ft": pt.XFt, "y_ft": pt.YFt,
 			},
 		})

@@ -3,6 +3,7 @@ package report
 import (
 	"bytes"
 	"encoding/csv"
+	"encoding/json"
 	"flag"
 	"math"
 	"os"
@@ -127,6 +128,33 @@ func TestEstimateCSVReadsBack(t *testing.T) {
 	last := rows[len(rows)-1]
 	if last[0] != "total" || math.Abs(num(last[5])-sum) > 0.005 || !money.MatchString(last[5]) {
 		t.Errorf("total row %q; lines add to %.2f", last, sum)
+	}
+}
+
+// TestGeoJSONNames: every point feature carries its ID as the "name"
+// property GIS programs label points by, and as the feature id.
+func TestGeoJSONNames(t *testing.T) {
+	p := samplePlan()
+	var b bytes.Buffer
+	if err := GeoJSON(&b, p); err != nil {
+		t.Fatal(err)
+	}
+	var fc struct {
+		Features []struct {
+			ID         string         `json:"id"`
+			Properties map[string]any `json:"properties"`
+		} `json:"features"`
+	}
+	if err := json.Unmarshal(b.Bytes(), &fc); err != nil {
+		t.Fatal(err)
+	}
+	if len(fc.Features) != len(p.Points) {
+		t.Fatalf("%d features for %d points", len(fc.Features), len(p.Points))
+	}
+	for i, f := range fc.Features {
+		if f.ID != p.Points[i].ID || f.Properties["name"] != p.Points[i].ID {
+			t.Errorf("feature %d: id %q, name %v; want both %q", i, f.ID, f.Properties["name"], p.Points[i].ID)
+		}
 	}
 }
 
