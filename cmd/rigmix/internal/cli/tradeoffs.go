@@ -15,7 +15,9 @@ import (
 	"github.com/rigmix/rigmix/optimizer/plan"
 	"github.com/rigmix/rigmix/optimizer/report"
 	"github.com/rigmix/rigmix/optimizer/tradeoff"
+	"github.com/rigmix/rigmix/plugins/sdk"
 	"github.com/rigmix/rigmix/ratebooks"
+	"github.com/rigmix/rigmix/scenarios"
 )
 
 type tradeoffOptions struct {
@@ -164,7 +166,7 @@ func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []st
 			return err
 		}
 		b.WriteString("\nCautions\n")
-		for _, c := range plan.Cautions {
+		for _, c := range tradeoffCautions(sc, an) {
 			fmt.Fprintf(&b, "  * %s\n", c)
 		}
 		outs.summary = b.Bytes()
@@ -226,4 +228,18 @@ func addTradeoffs(ctx context.Context, hin *report.HTMLInput, pr *plan.Prepared,
 	}
 	hin.FrontierSVG, hin.BudgetSVG = front.Bytes(), budget.Bytes()
 	return nil
+}
+
+// tradeoffCautions is the cautions that fit the alternatives: the test-pit
+// caution when any alternative digs a test pit, the waste caution when the
+// site has an environmental zone.
+func tradeoffCautions(sc *scenarios.Scenario, an *tradeoff.Analysis) []string {
+	pits, env := false, false
+	for _, a := range an.Alternatives {
+		pits = pits || a.PointsByMethod[string(sdk.TestPit)] > 0
+	}
+	for _, z := range sc.Zones {
+		env = env || z.Use == scenarios.UseEnvironmental
+	}
+	return plan.CautionsFor(pits, env)
 }
