@@ -151,6 +151,21 @@ func Text(w io.Writer, p *plan.Plan) error {
 	}
 	tw.Flush()
 
+	// The point list: the IDs the site map, the CSV and the stakeout list
+	// use, so a printed list and a printed map match.
+	b.WriteString("\nPoint list\n")
+	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', tabwriter.AlignRight)
+	fmt.Fprintf(tw, "point\tzone\tmethod\trig\tdepth ft\tx ft\ty ft\tcost (%s)\t\n", cur)
+	for _, pt := range p.Points {
+		id := pt.ID
+		if pt.Required {
+			id += " (required)"
+		}
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t\n", id, pt.Zone, pt.Method, pt.Rig,
+			strconv.FormatFloat(pt.DepthFt, 'f', 1, 64), strconv.FormatFloat(pt.XFt, 'f', 1, 64), strconv.FormatFloat(pt.YFt, 'f', 1, 64), money(pt.Cost, ""))
+	}
+	tw.Flush()
+
 	b.WriteString("\nItemized estimate\n")
 	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', tabwriter.AlignRight)
 	fmt.Fprintf(tw, "item\tdescription\tquantity\tunit\tunit price\textension\t\n")
