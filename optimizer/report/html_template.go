@@ -128,7 +128,7 @@ var htmlPage = template.Must(template.New("report").Parse(`<!DOCTYPE html>
 <h2>Site map</h2>
 <figure id="site-map-figure">
 {{.SiteMap}}
-<figcaption>North is up. Marker shape gives the method, its fill and letter the rig; zones are tinted by use and labelled with their ids; hatched areas are no-go. Hover a marker for its point.</figcaption>
+<figcaption>North is up. Marker shape gives the method, its fill and number the rig, and the ID beside it names the point as in the point list and the stakeout list (B borings, S CPT soundings, TP test pits, P probes); zones are tinted by use and labelled with their ids; hatched areas are no-go.</figcaption>
 </figure>
 </section>
 
