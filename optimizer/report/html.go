@@ -224,6 +224,14 @@ var headerWords = map[string]string{
 	"dropped_max_saving": "Most saving, dropped", "dropped_gap": "Gap, dropped", "lp_estimate": "LP estimate",
 }
 
+// capFirst writes a header's first letter as a capital ("item" → "Item").
+func capFirst(h string) string {
+	if h != "" && h[0] >= 'a' && h[0] <= 'z' {
+		return strings.ToUpper(h[:1]) + h[1:]
+	}
+	return h
+}
+
 // humanHeader is a field name in words: the known ones from headerWords,
 // others with spaces for underscores, a capital first letter and the unit
 // of a _ft or _percent ending in brackets.
@@ -237,11 +245,7 @@ func humanHeader(h string) string {
 			h, unit = s, u
 		}
 	}
-	h = strings.ReplaceAll(h, "_", " ")
-	if h != "" && h[0] >= 'a' && h[0] <= 'z' {
-		h = strings.ToUpper(h[:1]) + h[1:]
-	}
-	return h + unit
+	return capFirst(strings.ReplaceAll(h, "_", " ")) + unit
 }
 
 func numericColumns(header []string, rows [][]string) []bool {
@@ -425,6 +429,16 @@ func newHTMLView(in HTMLInput) (*htmlView, error) {
 		{"objective / bound", fmt.Sprintf("%.2f / %.2f", s.Objective, s.Bound)},
 		{"branch-and-bound nodes", fmt.Sprint(s.Nodes)},
 		{"model", fmt.Sprintf("%d rows × %d columns, from %d candidate points and %d options", s.Rows, s.Columns, s.Candidates, s.Options)},
+	}
+	// Every table's headers start with a capital, as the trade-off
+	// tables' headers in words do.
+	for _, t := range []*htmlTable{&v.MethodRig, &v.PointList, &v.Estimate, &v.Rigs, &v.Excluded, v.Alternatives, v.RuleCosts, v.ScheduleRigs} {
+		if t == nil {
+			continue
+		}
+		for i, h := range t.Header {
+			t.Header[i] = capFirst(h)
+		}
 	}
 	return v, nil
 }

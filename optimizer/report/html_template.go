@@ -163,7 +163,7 @@ var htmlPage = template.Must(template.New("report").Parse(`<!DOCTYPE html>
 <h2>Rules</h2>
 <div class="table-wrap">
 <table id="rules-table">
-<thead><tr><th>zone</th><th>rule</th><th>required</th><th>achieved</th><th>met?</th></tr></thead>
+<thead><tr><th>Zone</th><th>Rule</th><th>Required</th><th>Achieved</th><th>Met?</th></tr></thead>
 <tbody>
 {{- range .Rules}}
 <tr><td>{{.Zone}}</td><td>{{.Rule}}</td><td>{{.Required}}</td><td>{{.Achieved}}</td><td>{{if .Met}}<span class="met">✓ met</span>{{else}}<span class="not-met">✗ NOT MET</span>{{end}}</td></tr>
