@@ -52,6 +52,42 @@ func DemoFile(name string) ([]byte, error) {
 	return nil, &FieldError{File: "demo:" + name, Problem: "no such demo scenario", Hint: suggestOneOf(name, Demos())}
 }
 
+// File is one file of a demo written out: its name relative to the
+// demo's YAML, and its bytes.
+type File struct {
+	Name string
+	Data []byte
+}
+
+// DemoFiles is a demo whole: its YAML (NAME.yaml) first, then every
+// embedded file the YAML reads (GeoJSON outlines), each once, in the order
+// read, so that the YAML written into a folder beside them plans as the
+// demo does.
+func DemoFiles(name string) ([]File, error) {
+	sc, err := LoadDemo(name, nil)
+	if err != nil {
+		return nil, err
+	}
+	data, err := DemoFile(name)
+	if err != nil {
+		return nil, err
+	}
+	out := []File{{Name: name + ".yaml", Data: data}}
+	seen := map[string]bool{out[0].Name: true}
+	for _, rel := range sc.embedded {
+		if seen[rel] {
+			continue
+		}
+		seen[rel] = true
+		b, err := demoFS.ReadFile("demos/" + rel)
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, File{Name: rel, Data: b})
+	}
+	return out, nil
+}
+
 // LoadDemo loads an embedded demo scenario by name.
 func LoadDemo(name string, overrides map[string]any) (*Scenario, error) {
 	data, err := DemoFile(name)
@@ -84,7 +120,7 @@ func Load(path string, overrides map[string]any) (*Scenario, error) {
 func Parse(data []byte, source string, overrides map[string]any) (*Scenario, error) {
 	d := &decoder{file: source}
 	demo := strings.HasPrefix(source, "demo:")
-	var files []string
+	var files, embedded []string
 	d.readFile = func(rel string) ([]byte, string, error) {
 		if demo {
 			p := path.Clean("demos/" + rel)
@@ -92,6 +128,9 @@ func Parse(data []byte, source string, overrides map[string]any) (*Scenario, err
 				return nil, rel, fs.ErrNotExist
 			}
 			b, err := demoFS.ReadFile(p)
+			if err == nil {
+				embedded = append(embedded, strings.TrimPrefix(p, "demos/"))
+			}
 			return b, rel, err
 		}
 		p := rel
@@ -153,6 +192,7 @@ func Parse(data []byte, source string, overrides map[string]any) (*Scenario, err
 	}
 	s.Source = source
 	s.Files = files
+	s.embedded = embedded
 	return s, nil
 }
 

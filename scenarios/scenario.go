@@ -63,6 +63,8 @@ type Scenario struct {
 	// Files are the other files read: GeoJSON outlines, a rate-book file
 	// (paths as opened).
 	Files []string `json:"-"`
+	// embedded are the embedded files a demo read, relative to its YAML.
+	embedded []string
 }
 
 // LonLat is a WGS 84 position in degrees.

@@ -91,7 +91,6 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 		Scenario: ScenarioInfo{Name: sc.Name, Title: sc.Title, Source: sc.Source, Demo: sc.Demo},
 		RateBook: RateBookInfo{Name: rb.Name, Title: rb.Title, Currency: rb.Currency, Effective: rb.Effective, Region: rb.Region, Demo: rb.Demo},
 		Finish:   sol.Finish,
-		Cautions: append([]string(nil), Cautions...),
 		Warnings: []string{},
 	}
 	var frame *geom.LocalFrame
@@ -110,12 +109,17 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 	}
 	chosenPoint := make([]bool, len(pr.Layout.Candidates))
 	labCounts := make([]lab.Counts, len(sc.Zones))
+	methods := make([]string, len(sol.Chosen))
+	for k, o := range sol.Chosen {
+		methods[k] = string(pr.Options[o].method)
+	}
+	ids := pointIDs(methods)
 	for k, o := range sol.Chosen {
 		od := pr.Options[o]
 		c := pr.Layout.Candidates[od.point]
 		zn := sc.Zones[od.zone]
 		pt := Point{
-			ID: fmt.Sprintf("P%03d", k+1), Zone: zn.ID,
+			ID: ids[k], Zone: zn.ID,
 			XFt: round(c.P.X, 1), YFt: round(c.P.Y, 1),
 			Method: string(od.method), Rig: pr.Rigs[od.rig].name,
 			DepthFt: od.depth, Hours: round(pr.Spec.Options[o].Hours, 2),
@@ -205,6 +209,7 @@ func (pr *Prepared) Assemble(res *mip.Result) (*Plan, error) {
 	p.Rules = pr.ruleChecks(zoneCount, zoneSampled, zoneMinDepth, pr.ExactReach(chosenPoint), pr.NeighbourFt(chosenPoint))
 	p.Warnings = append(p.Warnings, shallowBuildingWarnings(sc)...)
 	p.Warnings = append(p.Warnings, pr.rigWarnings...)
+	p.Cautions = planCautions(sc, p.Points)
 	pb := pr.Model.Problem
 	if math.IsInf(res.Bound, 0) || math.IsNaN(res.Bound) {
 		// Stopped before the root bound: every cost is ≥ 0, so 0 is a
@@ -377,4 +382,17 @@ func (pr *Prepared) excluded() []Excluded {
 		}
 	}
 	return out
+}
+
+// planCautions picks the cautions that fit the plan's points and the
+// scenario's zones.
+func planCautions(sc *scenarios.Scenario, pts []Point) []string {
+	pits, env := false, false
+	for _, pt := range pts {
+		pits = pits || pt.Method == string(sdk.TestPit)
+	}
+	for _, z := range sc.Zones {
+		env = env || z.Use == scenarios.UseEnvironmental
+	}
+	return CautionsFor(pits, env)
 }

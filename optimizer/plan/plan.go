@@ -163,16 +163,33 @@ type SolverInfo struct {
 // SchemaVersion identifies the plan JSON layout.
 const SchemaVersion = "rigmix.plan/1"
 
-// Cautions are shown with every plan and report: exploration work can hurt
-// people. The utilities line cites OSHA 29 CFR 1926.651(b) alone: a clause
-// of ASTM D420-18 once cited beside it could not be confirmed, so it was
-// dropped. The overhead-line clearances are OSHA 29 CFR 1926.1408 Table A by
-// voltage (rules.OverheadLineCaution); a single 20 ft is right only up to
-// 350 kV.
-var Cautions = []string{
-	"Locate underground utilities before any drilling or digging: make the one-call notice and have owners mark their lines (OSHA 29 CFR 1926.651(b)).",
-	rules.OverheadLineCaution(),
-	"Test pits: nobody enters an excavation 4 ft or deeper without a safe way out (29 CFR 1926.651(c)(2)); 5 ft or deeper needs a protective system — sloping, benching or shoring — unless in stable rock (1926.652(a)(1)); deeper than 20 ft needs a design by a registered professional engineer (Subpart P, Appendices B and F).",
-	"On an environmental site, soil and water brought up are investigation-derived waste: contain, label and dispose of them as the site's rules require.",
-	"This plan is a planning aid. A licensed professional reviews it; local codes and the client's requirements govern.",
+// The cautions printed with plans: exploration work can hurt people. The
+// utilities line cites OSHA 29 CFR 1926.651(b) alone: a clause of ASTM
+// D420-18 once cited beside it could not be confirmed, so it was dropped.
+// The overhead-line clearances are OSHA 29 CFR 1926.1408 Table A by voltage
+// (rules.OverheadLineCaution); a single 20 ft is right only up to 350 kV.
+const (
+	CautionUtilities = "Locate underground utilities before any drilling or digging: make the one-call notice and have owners mark their lines (OSHA 29 CFR 1926.651(b))."
+	CautionTestPits  = "Test pits: nobody enters an excavation 4 ft or deeper without a safe way out (29 CFR 1926.651(c)(2)); 5 ft or deeper needs a protective system — sloping, benching or shoring — unless in stable rock (1926.652(a)(1)); deeper than 20 ft needs a design by a registered professional engineer (Subpart P, Appendices B and F)."
+	CautionWaste     = "On an environmental site, soil and water brought up are investigation-derived waste: contain, label and dispose of them as the site's rules require."
+	CautionReview    = "This plan is a planning aid. A licensed professional reviews it; local codes and the client's requirements govern."
+)
+
+// Cautions is every caution, in print order: what a report shows for a
+// plan file that carries none.
+var Cautions = []string{CautionUtilities, rules.OverheadLineCaution(), CautionTestPits, CautionWaste, CautionReview}
+
+// CautionsFor is the cautions that fit a plan: utilities, overhead lines
+// and the licensed review always; the test-pit caution only when the plan
+// digs test pits, the waste caution only when the site has an
+// environmental zone.
+func CautionsFor(testPits, environmental bool) []string {
+	out := []string{CautionUtilities, rules.OverheadLineCaution()}
+	if testPits {
+		out = append(out, CautionTestPits)
+	}
+	if environmental {
+		out = append(out, CautionWaste)
+	}
+	return append(out, CautionReview)
 }

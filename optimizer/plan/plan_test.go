@@ -8,6 +8,7 @@ import (
 	"math"
 	"math/rand/v2"
 	"os/exec"
+	"reflect"
 	"runtime"
 	"strings"
 	"testing"
@@ -117,8 +118,15 @@ func TestDemoPlansHoldTogether(t *testing.T) {
 			if b := p.Baseline; b != nil && b.Saving < -p.Solver.Gap*b.Cost-0.01 {
 				t.Errorf("the hand-laid grid (%+v) is cheaper than the optimized plan", *b)
 			}
-			if len(p.Cautions) != len(Cautions) {
-				t.Errorf("plan carries %d cautions, want all %d", len(p.Cautions), len(Cautions))
+			pits, env := false, false
+			for _, pt := range p.Points {
+				pits = pits || pt.Method == "test_pit"
+			}
+			for _, z := range in.Scenario.Zones {
+				env = env || z.Use == scenarios.UseEnvironmental
+			}
+			if !reflect.DeepEqual(p.Cautions, CautionsFor(pits, env)) {
+				t.Errorf("plan carries cautions %q, want those for test pits %v, environmental zone %v", p.Cautions, pits, env)
 			}
 		})
 	}

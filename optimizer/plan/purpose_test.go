@@ -138,6 +138,44 @@ func TestCautions(t *testing.T) {
 	}
 }
 
+// TestCautionsFit: the utilities, overhead-line and review cautions print
+// with every plan; the test-pit caution only with test pits, the waste
+// caution only on a site with an environmental zone.
+func TestCautionsFit(t *testing.T) {
+	pit := []Point{{ID: "B-1", Method: "boring"}, {ID: "TP-1", Method: "test_pit"}}
+	noPit := []Point{{ID: "B-1", Method: "boring"}, {ID: "S-1", Method: "cpt"}}
+	env := &scenarios.Scenario{Zones: []scenarios.Zone{{ID: "A", Use: scenarios.UseStructure}, {ID: "E", Use: scenarios.UseEnvironmental}}}
+	dry := &scenarios.Scenario{Zones: []scenarios.Zone{{ID: "A", Use: scenarios.UseStructure}}}
+	for _, c := range []struct {
+		name      string
+		sc        *scenarios.Scenario
+		pts       []Point
+		pits, idw bool
+	}{
+		{"borings and CPT, no environmental zone", dry, noPit, false, false},
+		{"a test pit", dry, pit, true, false},
+		{"an environmental zone", env, noPit, false, true},
+		{"both", env, pit, true, true},
+	} {
+		got := planCautions(c.sc, c.pts)
+		all := strings.Join(got, "\n")
+		for _, s := range []string{"one-call notice", "1926.1408 Table A", "licensed professional"} {
+			if !strings.Contains(all, s) {
+				t.Errorf("%s: cautions lack %q", c.name, s)
+			}
+		}
+		if has := strings.Contains(all, "Test pits:"); has != c.pits {
+			t.Errorf("%s: test-pit caution shown %v, want %v", c.name, has, c.pits)
+		}
+		if has := strings.Contains(all, "investigation-derived waste"); has != c.idw {
+			t.Errorf("%s: waste caution shown %v, want %v", c.name, has, c.idw)
+		}
+		if want := 3 + map[bool]int{true: 1}[c.pits] + map[bool]int{true: 1}[c.idw]; len(got) != want {
+			t.Errorf("%s: %d cautions, want %d", c.name, len(got), want)
+		}
+	}
+}
+
 // TestShallowBuildingWarning: a structure zone stated shallower than the
 // common-practice least depth for buildings (about 20–25 ft or to
 // refusal) is flagged; at 20 ft, or with rock above the depth, it is not.

@@ -160,15 +160,92 @@ type htmlTable struct {
 
 var numericCell = regexp.MustCompile(`^[-+−]?[A-Z]{0,3}\s?[$€£]?[0-9][0-9,]*(\.[0-9]+)?\s?(%|ft|h|d|days?)?$`)
 
-// fromTable turns a Table into an htmlTable, right-aligning the columns
-// whose every non-empty cell is a number.
-func fromTable(t *Table) *htmlTable {
+// fromTable turns a Table (a stage's CSV) into an htmlTable for people:
+// each field name becomes a header in words, amounts in the money columns
+// take the one money format (thousands separators, two decimals) with the
+// currency in the header, true/false read yes/no, and the columns whose
+// every non-empty cell is a number are right-aligned.
+func fromTable(t *Table, cur string) *htmlTable {
 	if t == nil {
 		return nil
 	}
-	out := &htmlTable{Title: t.Title, Note: t.Note, Header: t.Header, Rows: t.Rows}
-	out.Num = numericColumns(t.Header, t.Rows)
+	out := &htmlTable{Title: t.Title, Note: t.Note}
+	isMoney := make([]bool, len(t.Header))
+	for i, h := range t.Header {
+		isMoney[i] = moneyColumns[h]
+		hh := humanHeader(h)
+		if isMoney[i] && cur != "" {
+			hh += " (" + cur + ")"
+		}
+		out.Header = append(out.Header, hh)
+	}
+	for _, r := range t.Rows {
+		row := make([]string, len(r))
+		for i, c := range r {
+			row[i] = c
+			switch {
+			case c == "true":
+				row[i] = "yes"
+			case c == "false":
+				row[i] = "no"
+			case i < len(isMoney) && isMoney[i]:
+				if v, err := strconv.ParseFloat(c, 64); err == nil {
+					row[i] = money(v, "")
+				}
+			}
+		}
+		out.Rows = append(out.Rows, row)
+	}
+	out.Num = numericColumns(out.Header, out.Rows)
 	return out
+}
+
+// moneyColumns are the field names of the trade-off CSVs that hold amounts.
+var moneyColumns = map[string]bool{
+	"total_cost": true, "priced_cost": true, "bound_cost": true, "budget": true, "every_rule_met_budget": true,
+	"step_saving": true, "step_max_saving": true, "dropped_saving": true, "dropped_max_saving": true, "lp_estimate": true,
+	"cost": true, "unit_price": true, "extension": true,
+}
+
+// headerWords are the headers in words of the field names the report's
+// tables come with.
+var headerWords = map[string]string{
+	"alternative": "Alternative", "feasible": "Feasible", "status": "Solver status", "rate_book": "Rate book",
+	"total_cost": "Total cost", "priced_cost": "Priced cost", "bound_cost": "Proven least cost",
+	"field_days": "Field days", "max_days": "Days allowed", "rigs_mobilized": "Rigs mobilized", "rigs": "Rigs",
+	"points": "Points", "boring": "Borings", "cpt": "CPT soundings", "test_pit": "Test pits", "probe": "Probes",
+	"area_covered_percent": "Area covered (%)", "weighted_covered_percent": "Weighted coverage (%)",
+	"largest_gap_ft": "Largest gap (ft)", "rules_met": "Rules met", "rules_total": "Rules in all",
+	"optimality_gap": "Optimality gap", "on_frontier": "On the frontier", "balanced": "Balanced",
+	"budget": "Budget", "from_lower_budget": "Plan from a lower budget", "every_rule_met_budget": "Least budget meeting every rule",
+	"knee": "Knee", "zone": "Zone", "rule": "Rule", "required": "Required",
+	"step_change": "One step looser", "step_saving": "Saving, one step", "step_max_saving": "Most saving, one step",
+	"step_gap": "Gap, one step", "dropped_change": "Rule dropped", "dropped_saving": "Saving, dropped",
+	"dropped_max_saving": "Most saving, dropped", "dropped_gap": "Gap, dropped", "lp_estimate": "LP estimate",
+}
+
+// capFirst writes a header's first letter as a capital ("item" → "Item").
+func capFirst(h string) string {
+	if h != "" && h[0] >= 'a' && h[0] <= 'z' {
+		return strings.ToUpper(h[:1]) + h[1:]
+	}
+	return h
+}
+
+// humanHeader is a field name in words: the known ones from headerWords,
+// others with spaces for underscores, a capital first letter and the unit
+// of a _ft or _percent ending in brackets.
+func humanHeader(h string) string {
+	if w, ok := headerWords[h]; ok {
+		return w
+	}
+	unit := ""
+	for suf, u := range map[string]string{"_ft": " (ft)", "_percent": " (%)"} {
+		if s, ok := strings.CutSuffix(h, suf); ok {
+			h, unit = s, u
+		}
+	}
+	return capFirst(strings.ReplaceAll(h, "_", " ")) + unit
 }
 
 func numericColumns(header []string, rows [][]string) []bool {
@@ -295,8 +372,8 @@ func newHTMLView(in HTMLInput) (*htmlView, error) {
 		v.Excluded.Rows = append(v.Excluded.Rows, []string{e.Zone, methodName(e.Method), e.Rig, e.Reason})
 	}
 
-	v.Alternatives = fromTable(in.Alternatives)
-	v.RuleCosts = fromTable(in.RuleCosts)
+	v.Alternatives = fromTable(in.Alternatives, cur)
+	v.RuleCosts = fromTable(in.RuleCosts, cur)
 	if v.Frontier, err = inlineSVG("cost–days frontier", "frontier-", in.FrontierSVG); err != nil {
 		return nil, err
 	}
@@ -356,6 +433,16 @@ func newHTMLView(in HTMLInput) (*htmlView, error) {
 		{"branch-and-bound nodes", fmt.Sprint(s.Nodes)},
 		{"model", fmt.Sprintf("%d rows × %d columns, from %d candidate points and %d options", s.Rows, s.Columns, s.Candidates, s.Options)},
 	}
+	// Every table's headers start with a capital, as the trade-off
+	// tables' headers in words do.
+	for _, t := range []*htmlTable{&v.MethodRig, &v.PointList, &v.Estimate, &v.Rigs, &v.Excluded, v.Alternatives, v.RuleCosts, v.ScheduleRigs} {
+		if t == nil {
+			continue
+		}
+		for i, h := range t.Header {
+			t.Header[i] = capFirst(h)
+		}
+	}
 	return v, nil
 }
 
@@ -395,14 +482,14 @@ func sortedMethodKeys(m map[string]int) []string {
 }
 
 // methodRigTable counts points by method (rows) and rig (columns), with
-// the site map's rig letters in the header.
+// the site map's rig numbers in the header.
 func methodRigTable(p *plan.Plan) htmlTable {
 	methods, _ := mapMethods(p)
 	rigs := mapRigs(p)
 	t := htmlTable{Header: []string{"method"}}
 	t.Num = []bool{false}
 	for _, r := range rigs {
-		t.Header = append(t.Header, r.letter+" · "+r.name)
+		t.Header = append(t.Header, "rig "+r.number+" · "+r.name)
 		t.Num = append(t.Num, true)
 	}
 	t.Header = append(t.Header, "all rigs")

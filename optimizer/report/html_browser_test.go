@@ -201,8 +201,13 @@ func TestHTMLInBrowser(t *testing.T) {
 			t.Errorf("estimate line %s is not in the loaded page", l.Item)
 		}
 	}
-	if n, want := bytes.Count(dom, []byte("<title>P")), len(p.Points); n != want {
-		t.Errorf("%d point markers in the loaded map, plan has %d points", n, want)
+	if n, want := bytes.Count(dom, []byte(`class="sitemap-id"`)), len(p.Points); n != want {
+		t.Errorf("%d point labels in the loaded map, plan has %d points", n, want)
+	}
+	for _, pt := range p.Points {
+		if !bytes.Contains(dom, []byte(`paint-order="stroke">`+esc(pt.ID)+"</text>")) {
+			t.Errorf("point %s has no ID beside its marker in the loaded map", pt.ID)
+		}
 	}
 
 	art := os.Getenv("RIGMIX_ARTIFACTS")

@@ -128,7 +128,7 @@ var htmlPage = template.Must(template.New("report").Parse(`<!DOCTYPE html>
 <h2>Site map</h2>
 <figure id="site-map-figure">
 {{.SiteMap}}
-<figcaption>North is up. Marker shape gives the method, its fill and letter the rig; zones are tinted by use and labelled with their ids; hatched areas are no-go. Hover a marker for its point.</figcaption>
+<figcaption>North is up. Marker shape gives the method, its fill and number the rig, and the ID beside it names the point as in the point list and the stakeout list (B borings, S CPT soundings, TP test pits, P probes); zones are tinted by use and labelled with their ids; hatched areas are no-go.</figcaption>
 </figure>
 </section>
 
@@ -163,7 +163,7 @@ var htmlPage = template.Must(template.New("report").Parse(`<!DOCTYPE html>
 <h2>Rules</h2>
 <div class="table-wrap">
 <table id="rules-table">
-<thead><tr><th>zone</th><th>rule</th><th>required</th><th>achieved</th><th>met?</th></tr></thead>
+<thead><tr><th>Zone</th><th>Rule</th><th>Required</th><th>Achieved</th><th>Met?</th></tr></thead>
 <tbody>
 {{- range .Rules}}
 <tr><td>{{.Zone}}</td><td>{{.Rule}}</td><td>{{.Required}}</td><td>{{.Achieved}}</td><td>{{if .Met}}<span class="met">✓ met</span>{{else}}<span class="not-met">✗ NOT MET</span>{{end}}</td></tr>

@@ -2,6 +2,7 @@ package report
 
 import (
 	"bytes"
+	"encoding/csv"
 	"encoding/xml"
 	"io"
 	"regexp"
@@ -10,6 +11,7 @@ import (
 	"time"
 
 	"github.com/rigmix/rigmix/optimizer/schedule"
+	"github.com/rigmix/rigmix/optimizer/tradeoff"
 )
 
 // Stand-in charts for the layout tests: small SVGs shaped like the other
@@ -296,5 +298,61 @@ func TestTableFromCSV(t *testing.T) {
 	}
 	if got := numericColumns(tb.Header, tb.Rows); got[0] || !got[1] {
 		t.Fatalf("numeric columns %v, want [false true]", got)
+	}
+}
+
+// TestTableForPeople: a trade-off CSV shown in the report gets headers in
+// words (the currency beside the money columns), the one money format
+// and yes/no for true/false; other cells stay as written.
+func TestTableForPeople(t *testing.T) {
+	tb, err := TableFromCSV("Alternatives", strings.NewReader(
+		"alternative,feasible,total_cost,field_days,largest_gap_ft,odd_field_percent\n"+
+			"cheapest,true,110203.09,12,41.5,3\n"+
+			"one rig,false,,,,\n"), "")
+	if err != nil {
+		t.Fatal(err)
+	}
+	h := fromTable(tb, "USD")
+	wantHead := []string{"Alternative", "Feasible", "Total cost (USD)", "Field days", "Largest gap (ft)", "Odd field (%)"}
+	if strings.Join(h.Header, "|") != strings.Join(wantHead, "|") {
+		t.Errorf("headers %q, want %q", h.Header, wantHead)
+	}
+	wantRow := []string{"cheapest", "yes", "110,203.09", "12", "41.5", "3"}
+	if strings.Join(h.Rows[0], "|") != strings.Join(wantRow, "|") {
+		t.Errorf("row %q, want %q", h.Rows[0], wantRow)
+	}
+	if h.Rows[1][1] != "no" || h.Rows[1][2] != "" {
+		t.Errorf("row %q", h.Rows[1])
+	}
+	if !h.Num[2] || h.Num[0] {
+		t.Errorf("alignment %v: the money column is numeric, the names are not", h.Num)
+	}
+	for _, c := range h.Header {
+		if strings.Contains(c, "_") {
+			t.Errorf("header %q is a raw field name", c)
+		}
+	}
+}
+
+// TestTradeoffHeadersInWords: every column the trade-off CSVs the report
+// shows begin with has a header in words.
+func TestTradeoffHeadersInWords(t *testing.T) {
+	var alt, rules bytes.Buffer
+	if err := tradeoff.WriteAlternativesCSV(&alt, nil); err != nil {
+		t.Fatal(err)
+	}
+	if err := tradeoff.WriteRuleCostsCSV(&rules, nil); err != nil {
+		t.Fatal(err)
+	}
+	for _, b := range []*bytes.Buffer{&alt, &rules} {
+		head, err := csv.NewReader(b).Read()
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, h := range head {
+			if _, ok := headerWords[h]; !ok {
+				t.Errorf("column %q has no header in words", h)
+			}
+		}
 	}
 }

@@ -14,6 +14,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	moneyfmt "github.com/rigmix/rigmix/internal/money"
 	"github.com/rigmix/rigmix/optimizer/plan"
 )
 
@@ -45,7 +46,34 @@ func PointsCSV(w io.Writer, p *plan.Plan) error {
 	return cw.Error()
 }
 
-// GeoJSON writes the points as an RFC 7946 FeatureCollection. RFC 7946
+// EstimateCSV writes the itemized estimate for a spreadsheet: one row per
+// line (item, description, quantity, unit, unit price, extension) and a
+// closing total row; money with two decimals and no thousands separators,
+// so a spreadsheet reads every amount as a number.
+func EstimateCSV(w io.Writer, p *plan.Plan) error {
+	cur := p.RateBook.Currency
+	cw := csv.NewWriter(w)
+	_ = cw.Write([]string{"item", "description", "quantity", "unit", "unit_price_" + cur, "extension_" + cur})
+	for _, l := range p.Estimate {
+		_ = cw.Write([]string{l.Item, l.Description, ftoa(l.Quantity), l.Unit, money2(l.UnitPrice), money2(l.Extension)})
+	}
+	_ = cw.Write([]string{"total", "total of the estimate", "", "", "", money2(p.Total)})
+	cw.Flush()
+	return cw.Error()
+}
+
+// money2 is an amount with two decimals, for CSV: no separators.
+func money2(v float64) string {
+	s := strconv.FormatFloat(v, 'f', 2, 64)
+	if s == "-0.00" {
+		return "0.00"
+	}
+	return s
+}
+
+// GeoJSON writes the points as an RFC 7946 FeatureCollection, each with
+// its ID as the feature id and as the "name" property, the field GIS
+// programs label points by (KML's name, a shapefile's NAME). RFC 7946
 // requires WGS 84 longitude and latitude, so a scenario without an origin
 // cannot be written; the error says so.
 func GeoJSON(w io.Writer, p *plan.Plan) error {
@@ -71,7 +99,7 @@ func GeoJSON(w io.Writer, p *plan.Plan) error {
 			Type: "Feature", ID: pt.ID,
 			Geometry: geometry{Type: "Point", Coordinates: []float64{*pt.Lon, *pt.Lat}},
 			Properties: map[string]any{ // encoding/json sorts map keys: stable output
-				"zone": pt.Zone, "method": pt.Method, "rig": pt.Rig, "depth_ft": pt.DepthFt,
+				"name": pt.ID, "zone": pt.Zone, "method": pt.Method, "rig": pt.Rig, "depth_ft": pt.DepthFt,
 				"sample_interval_ft": pt.SampleIntervalFt, "x_ft": pt.XFt, "y_ft": pt.YFt,
 			},
 		})
@@ -124,6 +152,21 @@ func Text(w io.Writer, p *plan.Plan) error {
 	fmt.Fprintln(tw, "method\trig\tpoints\t")
 	for _, k := range keys {
 		fmt.Fprintf(tw, "%s\t%s\t%d\t\n", k[0], k[1], counts[k])
+	}
+	tw.Flush()
+
+	// The point list: the IDs the site map, the CSV and the stakeout list
+	// use, so a printed list and a printed map match.
+	b.WriteString("\nPoint list\n")
+	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', tabwriter.AlignRight)
+	fmt.Fprintf(tw, "point\tzone\tmethod\trig\tdepth ft\tx ft\ty ft\tcost (%s)\t\n", cur)
+	for _, pt := range p.Points {
+		id := pt.ID
+		if pt.Required {
+			id += " (required)"
+		}
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t\n", id, pt.Zone, pt.Method, pt.Rig,
+			strconv.FormatFloat(pt.DepthFt, 'f', 1, 64), strconv.FormatFloat(pt.XFt, 'f', 1, 64), strconv.FormatFloat(pt.YFt, 'f', 1, 64), money(pt.Cost, ""))
 	}
 	tw.Flush()
 
@@ -221,27 +264,9 @@ func yesNo(b bool) string {
 
 func ftoa(v float64) string { return strconv.FormatFloat(v, 'f', -1, 64) }
 
-// money formats an amount with thousands separators and two decimals.
-func money(v float64, cur string) string {
-	s := strconv.FormatFloat(v, 'f', 2, 64)
-	neg := strings.HasPrefix(s, "-")
-	s = strings.TrimPrefix(s, "-")
-	intPart, frac := s[:len(s)-3], s[len(s)-3:]
-	var g []string
-	for len(intPart) > 3 {
-		g = append([]string{intPart[len(intPart)-3:]}, g...)
-		intPart = intPart[:len(intPart)-3]
-	}
-	g = append([]string{intPart}, g...)
-	out := strings.Join(g, ",") + frac
-	if neg {
-		out = "-" + out
-	}
-	if cur != "" {
-		out = cur + " " + out
-	}
-	return out
-}
+// money formats an amount for people: thousands separators, two decimals,
+// after the currency code when one is given (internal/money).
+func money(v float64, cur string) string { return moneyfmt.WithCurrency(v, cur) }
 
 // ruleBases lists, rule by rule, the origin of every rule that the file
 // did not state itself (computed, preset or default), with the rule named:

@@ -2,9 +2,14 @@ package report
 
 import (
 	"bytes"
+	"encoding/csv"
+	"encoding/json"
 	"flag"
+	"math"
 	"os"
 	"path/filepath"
+	"regexp"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -22,8 +27,8 @@ func samplePlan() *plan.Plan {
 		Scenario: plan.ScenarioInfo{Name: "sample", Title: "Sample lot", Source: "demo:sample", Demo: true},
 		RateBook: plan.RateBookInfo{Name: "book", Title: "Book", Currency: "USD", Effective: "2026-01-01", Region: "Nowhere", Demo: true},
 		Points: []plan.Point{
-			{ID: "P001", Zone: "Z1", XFt: 10, YFt: 20, Lon: f(-100.0001), Lat: f(40.0002), Method: "boring", Rig: "tire-drill", DepthFt: 30, SampleIntervalFt: 5, Sampling: "every 2.5 ft to 5 ft, then every 5 ft", Hours: 4.5, Cost: 1234.5},
-			{ID: "P002", Zone: "Z1", XFt: 60.5, YFt: 20, Lon: f(-100.0003), Lat: f(40.0002), Method: "cpt", Rig: "cpt-rig", DepthFt: 30, Hours: 1.25, Cost: 600},
+			{ID: "B-1", Zone: "Z1", XFt: 10, YFt: 20, Lon: f(-100.0001), Lat: f(40.0002), Method: "boring", Rig: "tire-drill", DepthFt: 30, SampleIntervalFt: 5, Sampling: "every 2.5 ft to 5 ft, then every 5 ft", Hours: 4.5, Cost: 1234.5},
+			{ID: "S-1", Zone: "Z1", XFt: 60.5, YFt: 20, Lon: f(-100.0003), Lat: f(40.0002), Method: "cpt", Rig: "cpt-rig", DepthFt: 30, Hours: 1.25, Cost: 600},
 		},
 		Estimate: []plan.Line{
 			{Item: "drill-0-50", Description: "Soil drilling", Quantity: 30, Unit: "ft", UnitPrice: 20, Extension: 600},
@@ -53,6 +58,7 @@ func TestGolden(t *testing.T) {
 		{"plan.json", func(b *bytes.Buffer, p *plan.Plan) error { return JSON(b, p) }},
 		{"points.csv", func(b *bytes.Buffer, p *plan.Plan) error { return PointsCSV(b, p) }},
 		{"points.geojson", func(b *bytes.Buffer, p *plan.Plan) error { return GeoJSON(b, p) }},
+		{"estimate.csv", func(b *bytes.Buffer, p *plan.Plan) error { return EstimateCSV(b, p) }},
 	} {
 		t.Run(c.file, func(t *testing.T) {
 			var b bytes.Buffer
@@ -73,6 +79,82 @@ func TestGolden(t *testing.T) {
 				t.Fatalf("%s differs from the golden file; run go test ./optimizer/report -update if intended\n%s", c.file, b.String())
 			}
 		})
+	}
+}
+
+// TestEstimateCSVReadsBack reads the estimate CSV back with encoding/csv,
+// as a spreadsheet would: every line's extension is its quantity times its
+// unit price, the lines add to the total row, and every amount has exactly
+// two decimals and no thousands separator.
+func TestEstimateCSVReadsBack(t *testing.T) {
+	p := samplePlan()
+	p.Estimate = append(p.Estimate, plan.Line{Item: "lab-x", Description: "A test, with a comma — and a dash", Quantity: 2.5, Unit: "each", UnitPrice: 0.1, Extension: 0.25})
+	p.Total += 0.25
+	var b bytes.Buffer
+	if err := EstimateCSV(&b, p); err != nil {
+		t.Fatal(err)
+	}
+	rows, err := csv.NewReader(&b).ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(rows) != len(p.Estimate)+2 {
+		t.Fatalf("%d rows, want header, %d lines and the total", len(rows), len(p.Estimate))
+	}
+	money := regexp.MustCompile(`^-?[0-9]+\.[0-9]{2}$`)
+	num := func(s string) float64 {
+		v, err := strconv.ParseFloat(s, 64)
+		if err != nil {
+			t.Fatalf("%q is not a number: %v", s, err)
+		}
+		return v
+	}
+	sum := 0.0
+	for i, r := range rows[1 : len(rows)-1] {
+		if r[0] != p.Estimate[i].Item || r[1] != p.Estimate[i].Description {
+			t.Errorf("row %d: %q", i+1, r)
+		}
+		for _, m := range r[4:6] {
+			if !money.MatchString(m) {
+				t.Errorf("row %d: amount %q is not two decimals without separators", i+1, m)
+			}
+		}
+		q, u, e := num(r[2]), num(r[4]), num(r[5])
+		if math.Abs(q*u-e) > 0.005 {
+			t.Errorf("row %d: %g × %g = %g, extension says %g", i+1, q, u, q*u, e)
+		}
+		sum += e
+	}
+	last := rows[len(rows)-1]
+	if last[0] != "total" || math.Abs(num(last[5])-sum) > 0.005 || !money.MatchString(last[5]) {
+		t.Errorf("total row %q; lines add to %.2f", last, sum)
+	}
+}
+
+// TestGeoJSONNames: every point feature carries its ID as the "name"
+// property GIS programs label points by, and as the feature id.
+func TestGeoJSONNames(t *testing.T) {
+	p := samplePlan()
+	var b bytes.Buffer
+	if err := GeoJSON(&b, p); err != nil {
+		t.Fatal(err)
+	}
+	var fc struct {
+		Features []struct {
+			ID         string         `json:"id"`
+			Properties map[string]any `json:"properties"`
+		} `json:"features"`
+	}
+	if err := json.Unmarshal(b.Bytes(), &fc); err != nil {
+		t.Fatal(err)
+	}
+	if len(fc.Features) != len(p.Points) {
+		t.Fatalf("%d features for %d points", len(fc.Features), len(p.Points))
+	}
+	for i, f := range fc.Features {
+		if f.ID != p.Points[i].ID || f.Properties["name"] != p.Points[i].ID {
+			t.Errorf("feature %d: id %q, name %v; want both %q", i, f.ID, f.Properties["name"], p.Points[i].ID)
+		}
 	}
 }
 

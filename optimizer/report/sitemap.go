@@ -17,8 +17,10 @@ import (
 )
 
 // The site map's look. The legend is our own: the marker's shape says the
-// method, its fill says the rig, and a letter inside repeats the rig, so a
-// grey print keeps both apart. Zones are lightly tinted by use and always
+// method, its fill says the rig, and a number inside repeats the rig, so a
+// grey print keeps both apart; the point's ID (B-1, S-1, TP-1, ...) is
+// written beside it. Rigs are numbered, never lettered, so no rig reads as
+// a method's ID prefix. Zones are lightly tinted by use and always
 // labelled with their id; no-go areas are hatched. Every id in the SVG
 // starts with "sitemap-" so the map can be inlined beside other charts in
 // one HTML page without clashes.
@@ -55,7 +57,7 @@ var zoneUseOrder = []scenarios.Use{scenarios.UseStructure, scenarios.UsePavement
 
 // rigStyle is how a rig fills the marker: dark solid, hollow, light solid,
 // hatched, mid solid, dashed hollow — six lightness/texture steps that a
-// grey print keeps apart. Beyond six rigs the letter tells them apart.
+// grey print keeps apart. Beyond six rigs the number tells them apart.
 type rigStyle struct{ fill, stroke, strokeW, dash, letterInk string }
 
 var rigStyles = []rigStyle{
@@ -77,26 +79,20 @@ var methodLabel = map[string]string{
 	"probe":    "hand probe",
 }
 
-// rigLetter names the i-th rig A, B, …, Z, AA, AB, …
-func rigLetter(i int) string {
-	s := ""
-	for i >= 0 {
-		s = string(rune('A'+i%26)) + s
-		i = i/26 - 1
-	}
-	return s
-}
+// rigNumber names the i-th rig on the map 1, 2, 3, …: numbers, not
+// letters, since letters are the point IDs' method prefixes.
+func rigNumber(i int) string { return strconv.Itoa(i + 1) }
 
-// mapRig is one rig on the map: its letter and style.
+// mapRig is one rig on the map: its number and style.
 type mapRig struct {
 	name   string
-	letter string
+	number string
 	style  rigStyle
 	points int
 }
 
 // mapRigs lists the rigs that have points, in the plan's rig order, then
-// any rig named only by a point (sorted), each with a letter and a style.
+// any rig named only by a point (sorted), each with a number and a style.
 func mapRigs(p *plan.Plan) []mapRig {
 	count := map[string]int{}
 	for _, pt := range p.Points {
@@ -120,7 +116,7 @@ func mapRigs(p *plan.Plan) []mapRig {
 	names = append(names, rest...)
 	out := make([]mapRig, len(names))
 	for i, n := range names {
-		out[i] = mapRig{name: n, letter: rigLetter(i), style: rigStyles[i%len(rigStyles)], points: count[n]}
+		out[i] = mapRig{name: n, number: rigNumber(i), style: rigStyles[i%len(rigStyles)], points: count[n]}
 	}
 	return out
 }
@@ -173,7 +169,7 @@ func markerShape(method string, cx, cy, r float64) string {
 	}
 }
 
-// letterY puts the rig letter at the visual centre of the marker (a cone's
+// letterY puts the rig number at the visual centre of the marker (a cone's
 // is above its middle).
 func letterY(method string, cy, r float64) float64 {
 	if method == "cpt" {
@@ -270,7 +266,7 @@ func labelPoint(poly geom.Polygon, avoid []geom.Polygon, pts []geom.Point) geom.
 // SiteMapSVG writes a plan view of the site as a self-contained SVG: the
 // boundary, the zones tinted by use and labelled with their ids, the no-go
 // areas hatched, the chosen points by method (shape) and rig (fill and
-// letter), a legend, a north arrow and a scale bar in feet. The scenario's
+// number) with each point's ID beside it, a legend, a north arrow and a scale bar in feet. The scenario's
 // y axis points north, so the drawing flips it. The bytes depend only on
 // the scenario and the plan.
 func SiteMapSVG(w io.Writer, sc *scenarios.Scenario, p *plan.Plan) error {
@@ -411,7 +407,9 @@ func SiteMapSVG(w io.Writer, sc *scenarios.Scenario, p *plan.Plan) error {
 	for _, pt := range p.Points {
 		r := rigByName[pt.Rig]
 		fmt.Fprintf(b, `<g><title>%s: %s by %s, %s ft deep, zone %s</title>`, esc(pt.ID), esc(methodName(pt.Method)), esc(pt.Rig), feet(pt.DepthFt), esc(pt.Zone))
-		marker(b, pt.Method, r.style, r.letter, sx(pt.XFt), sy(pt.YFt), mapMarkerR)
+		marker(b, pt.Method, r.style, r.number, sx(pt.XFt), sy(pt.YFt), mapMarkerR)
+		fmt.Fprintf(b, `<text class="sitemap-id" x="%s" y="%s" font-size="10" fill="%s" stroke="#ffffff" stroke-width="2.5" paint-order="stroke">%s</text>`,
+			num(sx(pt.XFt)+mapMarkerR+2), num(sy(pt.YFt)-mapMarkerR+1), mapInk, esc(pt.ID))
 		b.WriteString("</g>\n")
 	}
 	b.WriteString("</g>\n")
@@ -444,7 +442,7 @@ func SiteMapSVG(w io.Writer, sc *scenarios.Scenario, p *plan.Plan) error {
 	colW := (width - 2*mapMargin) / 3
 	col := func(i int) float64 { return mapMargin + float64(i)*colW }
 	b.WriteString(`<g id="sitemap-legend" fill="` + mapInk + `">` + "\n")
-	heads := []string{"Method (marker shape)", "Rig (fill and letter)", "Ground"}
+	heads := []string{"Method (marker shape)", "Rig (fill and number)", "Ground"}
 	for i, h := range heads {
 		fmt.Fprintf(b, `<text x="%s" y="%s" font-weight="bold">%s</text>`+"\n", num(col(i)), num(legendTop+14), esc(h))
 	}
@@ -457,7 +455,7 @@ func SiteMapSVG(w io.Writer, sc *scenarios.Scenario, p *plan.Plan) error {
 	}
 	for i, r := range rigs {
 		y := rowY(i)
-		marker(b, "test_pit", r.style, r.letter, col(1)+8, y-4, mapMarkerR+1)
+		marker(b, "test_pit", r.style, r.number, col(1)+8, y-4, mapMarkerR+1)
 		fmt.Fprintf(b, "\n"+`<text x="%s" y="%s">%s (%d)</text>`+"\n", num(col(1)+24), num(y), esc(r.name), r.points)
 	}
 	gi := 0

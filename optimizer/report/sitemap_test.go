@@ -132,13 +132,14 @@ func svgElements(t *testing.T, b []byte) []svgElement {
 
 // TestSiteMapGeometry checks the drawing against the plan: north is up
 // (a point further north is drawn higher), east is right, distances keep
-// their ratio (one scale for both axes), and each method gets its shape and
-// each rig its letter.
+// their ratio (one scale for both axes), and each method gets its shape, each
+// rig its number (never a letter, which would read as a method) and each
+// point its ID beside the marker.
 func TestSiteMapGeometry(t *testing.T) {
 	p := samplePlan()
-	// A third point due north of P001 by the distance P001–P002 is east
+	// A third point due north of B-1 by the distance B-1–S-1 is east
 	// of it, drawn by the first rig.
-	p.Points = append(p.Points, plan.Point{ID: "P003", Zone: "Z1", XFt: 10, YFt: 70.5, Method: "test_pit", Rig: "tire-drill", DepthFt: 8})
+	p.Points = append(p.Points, plan.Point{ID: "TP-1", Zone: "Z1", XFt: 10, YFt: 70.5, Method: "test_pit", Rig: "tire-drill", DepthFt: 8})
 	var b bytes.Buffer
 	if err := SiteMapSVG(&b, sampleScenario(), p); err != nil {
 		t.Fatal(err)
@@ -149,12 +150,13 @@ func TestSiteMapGeometry(t *testing.T) {
 	pos := map[string]xy{}
 	shape := map[string]string{}
 	letter := map[string]string{}
+	label := map[string]string{}
 	for i, e := range els {
 		if e.name != "title" || i+2 >= len(els) {
 			continue
 		}
 		id, _, ok := strings.Cut(e.text, ":")
-		if !ok || !strings.HasPrefix(id, "P00") {
+		if !ok || (id != "B-1" && id != "S-1" && id != "TP-1") {
 			continue
 		}
 		m := els[i+1]
@@ -179,23 +181,35 @@ func TestSiteMapGeometry(t *testing.T) {
 				x, _ := strconv.ParseFloat(els[i+2].attrs["x"], 64)
 				pos[id] = xy{x, 0}
 			}
+			if i+3 < len(els) && els[i+3].name == "text" {
+				label[id] = strings.TrimSpace(els[i+3].text)
+				x, _ := strconv.ParseFloat(els[i+3].attrs["x"], 64)
+				if x <= pos[id].x {
+					t.Errorf("%s: ID label at x %g, not right of its marker at %g", id, x, pos[id].x)
+				}
+			}
 		}
 	}
-	if shape["P001"] != "circle" || shape["P002"] != "path" || shape["P003"] != "rect" {
+	if shape["B-1"] != "circle" || shape["S-1"] != "path" || shape["TP-1"] != "rect" {
 		t.Fatalf("shapes by method: %v (want boring circle, CPT path, test pit rect)", shape)
 	}
-	if letter["P001"] != "A" || letter["P003"] != "A" || letter["P002"] != "B" {
-		t.Fatalf("rig letters %v: want tire-drill A (first in the plan's rigs), cpt-rig B", letter)
+	if letter["B-1"] != "1" || letter["TP-1"] != "1" || letter["S-1"] != "2" {
+		t.Fatalf("rig numbers %v: want tire-drill 1 (first in the plan's rigs), cpt-rig 2", letter)
 	}
-	a, c := pos["P001"], pos["P003"]
+	for _, id := range []string{"B-1", "S-1", "TP-1"} {
+		if label[id] != id {
+			t.Errorf("point %s labelled %q beside its marker", id, label[id])
+		}
+	}
+	a, c := pos["B-1"], pos["TP-1"]
 	if !(c.y < a.y) {
-		t.Fatalf("P003 is north of P001 but drawn at y %g, not above %g", c.y, a.y)
+		t.Fatalf("TP-1 is north of B-1 but drawn at y %g, not above %g", c.y, a.y)
 	}
-	if pos["P002"].x <= a.x {
-		t.Fatalf("P002 is east of P001 but drawn at x %g, not right of %g", pos["P002"].x, a.x)
+	if pos["S-1"].x <= a.x {
+		t.Fatalf("S-1 is east of B-1 but drawn at x %g, not right of %g", pos["S-1"].x, a.x)
 	}
 	// Same feet, same pixels on both axes: 50.5 ft east vs 50.5 ft north.
-	east, north := pos["P002"].x-a.x, a.y-c.y
+	east, north := pos["S-1"].x-a.x, a.y-c.y
 	if d := east - north; d > 0.2 || d < -0.2 {
 		t.Fatalf("50.5 ft drawn as %g px east and %g px north: the axes do not share one scale", east, north)
 	}
@@ -223,7 +237,7 @@ func TestNiceLength(t *testing.T) {
 func TestSiteMapVariants(t *testing.T) {
 	many := samplePlan()
 	many.Points = nil
-	for i := 0; i < 8; i++ { // more rigs than fill styles: letters keep them apart
+	for i := 0; i < 8; i++ { // more rigs than fill styles: numbers keep them apart
 		many.Points = append(many.Points, plan.Point{ID: "P" + strconv.Itoa(i), Zone: "Z1", XFt: float64(5 + 9*i), YFt: 30,
 			Method: methodOrder[i%len(methodOrder)], Rig: "rig-" + strconv.Itoa(i), DepthFt: 10})
 	}
@@ -255,13 +269,13 @@ func TestSiteMapVariants(t *testing.T) {
 				t.Errorf("%d markers, plan has %d points", n, len(c.p.Points))
 			}
 			for i := 0; i < c.rigs; i++ {
-				if !strings.Contains(s, ">"+rigLetter(i)+"</text>") {
-					t.Errorf("rig letter %s missing", rigLetter(i))
+				if !strings.Contains(s, ">"+rigNumber(i)+"</text>") {
+					t.Errorf("rig number %s missing", rigNumber(i))
 				}
 			}
 		})
 	}
-	if rigLetter(0) != "A" || rigLetter(25) != "Z" || rigLetter(26) != "AA" || rigLetter(27) != "AB" {
-		t.Errorf("rig letters: %s %s %s %s", rigLetter(0), rigLetter(25), rigLetter(26), rigLetter(27))
+	if rigNumber(0) != "1" || rigNumber(25) != "26" {
+		t.Errorf("rig numbers: %s %s", rigNumber(0), rigNumber(25))
 	}
 }

@@ -10,6 +10,8 @@ import (
 	"strings"
 	"text/tabwriter"
 	"time"
+
+	moneyfmt "github.com/rigmix/rigmix/internal/money"
 )
 
 const dateLayout = "2006-01-02"
@@ -60,14 +62,14 @@ func WriteText(w io.Writer, s *Schedule) error {
 	fmt.Fprintf(bw, "Field schedule: %s to %s, %d field days (working %s from %s, %s h a day)\n",
 		s.Start.Format(dateLayout), s.Finish.Format(dateLayout), s.FieldDays, weekdays(s.WorkDays), clock(s.WorkStart), num(s.HoursPerDay, 1))
 	if s.StandbyHours > 0 {
-		fmt.Fprintf(bw, "Standby on wet days: %s h, %s\n", num(s.StandbyHours, 1), num(s.StandbyCost, 2))
+		fmt.Fprintf(bw, "Standby on wet days: %s h, %s\n", num(s.StandbyHours, 1), moneyfmt.Format(s.StandbyCost))
 	}
 	for _, r := range s.Rigs {
 		fmt.Fprintf(bw, "\nRig %s: %d points, %s to %s, %d field days\n", r.Rig, len(r.Route), r.First.Format(dateLayout), r.Last.Format(dateLayout), r.FieldDays)
 		fmt.Fprintf(bw, "  hours: mobilize %s, travel %s, work %s, standby %s, demobilize %s; route %s ft\n",
 			num(r.MobHours, 1), num(r.TravelHours, 1), num(r.WorkHours, 1), num(r.StandbyHours, 1), num(r.DemobHours, 1), num(r.RouteFt, 0))
 		if r.StandbyHours > 0 {
-			fmt.Fprintf(bw, "  standby: %s h × %s (%s) = %s\n", num(r.StandbyHours, 1), num(r.StandbyRate, 2), r.StandbyItem, num(r.StandbyCost, 2))
+			fmt.Fprintf(bw, "  standby: %s h × %s (%s) = %s\n", num(r.StandbyHours, 1), moneyfmt.Format(r.StandbyRate), r.StandbyItem, moneyfmt.Format(r.StandbyCost))
 		}
 		if math.Abs(r.RouteTravelHours-r.TravelHours) >= 0.05 {
 			fmt.Fprintf(bw, "  moves laid at the plan's allowance, %s h; the route itself takes %s h\n", num(r.TravelHours, 1), num(r.RouteTravelHours, 1))
@@ -119,8 +121,8 @@ func WriteRiskText(w io.Writer, r *RiskResult) error {
 	tw := tabwriter.NewWriter(bw, 0, 0, 2, ' ', tabwriter.AlignRight)
 	fmt.Fprintln(tw, "\tfinish\tfield days\tstandby h\tstandby cost\t")
 	fmt.Fprintf(tw, "planned\t%s\t%d\t\t\t\n", r.Planned.Format(dateLayout), r.PlannedFieldDays)
-	fmt.Fprintf(tw, "P50\t%s\t%d\t%s\t%s\t\n", r.P50Finish.Format(dateLayout), r.P50FieldDays, num(r.P50StandbyHours, 1), num(r.P50StandbyCost, 2))
-	fmt.Fprintf(tw, "P80\t%s\t%d\t%s\t%s\t\n", r.P80Finish.Format(dateLayout), r.P80FieldDays, num(r.P80StandbyHours, 1), num(r.P80StandbyCost, 2))
+	fmt.Fprintf(tw, "P50\t%s\t%d\t%s\t%s\t\n", r.P50Finish.Format(dateLayout), r.P50FieldDays, num(r.P50StandbyHours, 1), moneyfmt.Format(r.P50StandbyCost))
+	fmt.Fprintf(tw, "P80\t%s\t%d\t%s\t%s\t\n", r.P80Finish.Format(dateLayout), r.P80FieldDays, num(r.P80StandbyHours, 1), moneyfmt.Format(r.P80StandbyCost))
 	if err := tw.Flush(); err != nil {
 		return err
 	}

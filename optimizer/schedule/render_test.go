@@ -192,6 +192,10 @@ func TestStakeout(t *testing.T) {
 		if f.Properties["date"] == "" || f.Properties["rig"] == "" {
 			t.Errorf("feature %v lacks date or rig", f.Properties)
 		}
+		// The name property labels the point in GIS (KML <name>).
+		if n, _ := f.Properties["name"].(string); n == "" || n != f.Properties["id"] {
+			t.Errorf("feature %v: name %q, want its point ID", f.Properties, n)
+		}
 	}
 	golden(t, "stakeout_small.geojson", b.Bytes())
 

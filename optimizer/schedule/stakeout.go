@@ -41,6 +41,7 @@ func WriteStakeoutGeoJSON(w io.Writer, s *Schedule) error {
 	}
 	type props struct {
 		ID               string  `json:"id"`
+		Name             string  `json:"name"` // the ID again: the field GIS programs label points by
 		Rig              string  `json:"rig"`
 		Seq              int     `json:"seq"`
 		Method           string  `json:"method"`
@@ -70,7 +71,7 @@ func WriteStakeoutGeoJSON(w io.Writer, s *Schedule) error {
 		fc.Features = append(fc.Features, feature{
 			Type: "Feature", ID: k.ID,
 			Geometry: geometry{Type: "Point", Coordinates: [2]json.Number{json.Number(num(*k.Lon, 7)), json.Number(num(*k.Lat, 7))}},
-			Properties: props{ID: k.ID, Rig: k.Rig, Seq: k.Seq, Method: k.Method, XFt: k.XFt, YFt: k.YFt,
+			Properties: props{ID: k.ID, Name: k.ID, Rig: k.Rig, Seq: k.Seq, Method: k.Method, XFt: k.XFt, YFt: k.YFt,
 				DepthFt: k.DepthFt, SampleIntervalFt: k.SampleIntervalFt, Sampling: k.Sampling, Date: k.Date.Format(dateLayout), WorkDay: k.WorkDay},
 		})
 	}

@@ -3,10 +3,10 @@ package tradeoff
 import (
 	"context"
 	"fmt"
-	"math"
 	"strconv"
 	"strings"
 
+	moneyfmt "github.com/rigmix/rigmix/internal/money"
 	"github.com/rigmix/rigmix/optimizer/mip"
 	"github.com/rigmix/rigmix/optimizer/model"
 	"github.com/rigmix/rigmix/optimizer/plan"
@@ -297,19 +297,6 @@ func knee(pts []BudgetPoint) int {
 	return best
 }
 
-// money formats an amount with thousands separators and no cents.
-func money(v float64) string {
-	neg := v < 0
-	s := strconv.FormatFloat(math.Round(math.Abs(v)), 'f', 0, 64)
-	var b strings.Builder
-	for i, c := range s {
-		if i > 0 && (len(s)-i)%3 == 0 {
-			b.WriteByte(',')
-		}
-		b.WriteRune(c)
-	}
-	if neg {
-		return "-" + b.String()
-	}
-	return b.String()
-}
+// money formats an amount for people: thousands separators and two
+// decimals, as every text and table of rigmix does (internal/money).
+func money(v float64) string { return moneyfmt.Format(v) }

@@ -183,14 +183,21 @@ type demoJSON struct {
 
 func newDemosCmd(stdout io.Writer) *cobra.Command {
 	var asJSON bool
+	var outDir string
 	c := &cobra.Command{
 		Use:   "demos [NAME]",
 		Short: "List the embedded demo scenarios, or print one as YAML to start your own from",
 		Args:  cobra.MaximumNArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
+			if outDir != "" && len(args) == 0 {
+				return usageError{fmt.Errorf("--out %s: name the demo to write out (rigmix demos NAME --out %s); list them with: rigmix demos", outDir, outDir)}
+			}
 			if len(args) == 1 {
 				if asJSON {
 					return usageError{fmt.Errorf("--json lists the demos; a demo itself prints as YAML (rigmix demos %s)", args[0])}
+				}
+				if outDir != "" {
+					return writeDemo(cmd.Context(), args[0], outDir, stdout)
 				}
 				b, err := scenarios.DemoFile(args[0])
 				if err != nil {
@@ -226,7 +233,45 @@ func newDemosCmd(stdout io.Writer) *cobra.Command {
 		},
 	}
 	c.Flags().BoolVar(&asJSON, "json", false, "list the demos as JSON (all are invented data)")
+	c.Flags().StringVar(&outDir, "out", "", "write the demo's YAML and every file it reads (GeoJSON) into `FOLDER` (created if missing)")
 	return c
+}
+
+// writeDemo writes a demo whole into dir: its YAML and the files it reads,
+// all or none, never over an existing file (it may be the user's edited
+// copy).
+func writeDemo(ctx context.Context, name, dir string, stdout io.Writer) error {
+	files, err := scenarios.DemoFiles(name)
+	if err != nil {
+		return usageError{err}
+	}
+	if st, err := os.Stat(dir); err == nil && !st.IsDir() {
+		return usageError{fmt.Errorf("--out %s: is a file, not a folder; give a folder to write the demo into", dir)}
+	}
+	outs := &outputs{stdout: stdout}
+	for _, f := range files {
+		p := filepath.Join(dir, filepath.FromSlash(f.Name))
+		if _, err := os.Lstat(p); err == nil {
+			return usageError{fmt.Errorf("--out %s: %s is already there; remove it or give another folder (a demo is never written over a file)", dir, p)}
+		}
+		outs.add("--out", p).setData(f.Data)
+	}
+	for _, f := range files {
+		if err := os.MkdirAll(filepath.Dir(filepath.Join(dir, filepath.FromSlash(f.Name))), 0o755); err != nil {
+			return usageError{fmt.Errorf("--out %s: cannot create the folder: %v", dir, unwrapPathErr(err))}
+		}
+	}
+	if err := outs.check(nil); err != nil {
+		return err
+	}
+	var b bytes.Buffer
+	fmt.Fprintf(&b, "wrote demo %s (invented data) into %s:", name, dir)
+	for _, f := range files {
+		fmt.Fprintf(&b, " %s", f.Name)
+	}
+	fmt.Fprintf(&b, "\nplan it with: rigmix plan %s\n", filepath.Join(dir, files[0].Name))
+	outs.summary = b.Bytes()
+	return outs.commit(ctx)
 }
 
 type solveOptions struct {

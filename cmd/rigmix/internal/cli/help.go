@@ -7,6 +7,7 @@ var examples = map[string]string{
 	"plan": `  rigmix plan                                  # the embedded demo scenario
   rigmix plan --demo hillside
   rigmix plan site.yaml --json plan.json --points-csv points.csv
+  rigmix plan site.yaml --estimate-csv estimate.csv --csv-bom     # the estimate for a spreadsheet
   rigmix plan site.yaml --gap 0.01 --time-limit 60 --quiet --json -   # the plan as JSON on stdout
   rigmix demos midrise > site.yaml              # a scenario to start your own from
   rigmix plan - < site.yaml                     # the scenario from standard input`,
@@ -24,7 +25,8 @@ var examples = map[string]string{
 	"rigs": `  rigmix rigs
   rigmix rigs --plugin-dir ~/rigs`,
 	"demos": `  rigmix demos
-  rigmix demos wetlot > wetlot.yaml`,
+  rigmix demos wetlot > wetlot.yaml
+  rigmix demos hillside --out mysite && rigmix plan mysite/hillside.yaml   # the YAML and its GeoJSON`,
 }
 
 // addExamples sets each command's examples.

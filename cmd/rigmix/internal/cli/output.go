@@ -1,6 +1,7 @@
 package cli
 
 import (
+	"bytes"
 	"context"
 	"errors"
 	"fmt"
@@ -8,6 +9,7 @@ import (
 	"io/fs"
 	"os"
 	"path/filepath"
+	"strings"
 	"sync"
 )
 
@@ -34,6 +36,7 @@ type output struct {
 	path string // as given; "-" is standard output
 	data []byte
 	set  bool // data rendered
+	csv  bool // a CSV file: gets a byte-order mark when the run asks for one
 
 	target string      // the path written: links followed; "" for "-"
 	st     os.FileInfo // the existing target; nil when it is to be created
@@ -48,7 +51,13 @@ type outputs struct {
 	summary []byte
 	// committed is set once the files are in place.
 	committed bool
+	// bom puts a UTF-8 byte-order mark before every CSV output (--csv-bom),
+	// so spreadsheets read ≥, ², — and the like as UTF-8.
+	bom bool
 }
+
+// utf8BOM is the UTF-8 encoding of U+FEFF, the byte-order mark.
+var utf8BOM = []byte{0xEF, 0xBB, 0xBF}
 
 // stdoutPath names standard output as an output path.
 const stdoutPath = "-"
@@ -58,7 +67,7 @@ func (o *outputs) add(flag, path string) *output {
 	if path == "" {
 		return nil
 	}
-	f := &output{flag: flag, path: path}
+	f := &output{flag: flag, path: path, csv: strings.HasSuffix(flag, "csv")}
 	o.files = append(o.files, f)
 	return f
 }
@@ -236,6 +245,13 @@ func (o *outputs) commit(ctx context.Context) error {
 		}
 	}
 	// Regular files: a temporary file each, beside the target.
+	if o.bom {
+		for _, f := range o.files {
+			if f.set && f.csv && !bytes.HasPrefix(f.data, utf8BOM) {
+				f.data = append(append([]byte(nil), utf8BOM...), f.data...)
+			}
+		}
+	}
 	var regular []*output
 	for _, f := range o.files {
 		if !f.set || f.path == stdoutPath || (f.st != nil && !f.st.Mode().IsRegular()) {

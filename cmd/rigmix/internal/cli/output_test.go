@@ -187,6 +187,27 @@ func TestOutputsCommit(t *testing.T) {
 		}
 		assertFile(t, "p.csv", "id\n", 0o644)
 	})
+	t.Run("a byte-order mark on every CSV and nothing else", func(t *testing.T) {
+		t.Chdir(t.TempDir())
+		var stdout bytes.Buffer
+		o := &outputs{stdout: &stdout, bom: true}
+		o.add("--json", "p.json").setData([]byte("{}\n"))
+		o.add("--points-csv", "p.csv").setData([]byte("id\n"))
+		o.add("--csv", "-").setData([]byte("day\n"))
+		o.add("--estimate-csv", "e.csv").setData([]byte("\xEF\xBB\xBFitem\n")) // already marked: one mark, not two
+		if err := o.check(nil); err != nil {
+			t.Fatal(err)
+		}
+		if err := o.commit(context.Background()); err != nil {
+			t.Fatal(err)
+		}
+		assertFile(t, "p.json", "{}\n", 0o644)
+		assertFile(t, "p.csv", "\xEF\xBB\xBFid\n", 0o644)
+		assertFile(t, "e.csv", "\xEF\xBB\xBFitem\n", 0o644)
+		if stdout.String() != "\xEF\xBB\xBFday\n" {
+			t.Errorf("stdout %q", stdout.String())
+		}
+	})
 	t.Run("a device that fails leaves the files as they were", func(t *testing.T) {
 		if _, err := os.Stat("/dev/full"); err != nil {
 			t.Skip("no /dev/full")

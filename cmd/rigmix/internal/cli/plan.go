@@ -26,13 +26,15 @@ import (
 )
 
 type planOptions struct {
-	demo       string
-	jsonOut    string
-	csvOut     string
-	geojsonOut string
-	mpsOut     string
-	quiet      bool
-	timings    bool
+	demo        string
+	jsonOut     string
+	csvOut      string
+	geojsonOut  string
+	mpsOut      string
+	quiet       bool
+	estimateCSV string
+	csvBOM      bool
+	timings     bool
 }
 
 func newPlanCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -62,6 +64,8 @@ func newPlanCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	f.StringVar(&o.csvOut, "points-csv", "", "write the points as CSV to `FILE` (- for standard output)")
 	f.StringVar(&o.geojsonOut, "points-geojson", "", "write the points as GeoJSON (RFC 7946) to `FILE` (- for standard output)")
 	f.StringVar(&o.mpsOut, "model-mps", "", "write the optimization model as free MPS to `FILE` (- for standard output)")
+	f.StringVar(&o.estimateCSV, "estimate-csv", "", "write the itemized estimate as CSV to `FILE` (- for standard output)")
+	f.BoolVar(&o.csvBOM, "csv-bom", false, "begin every CSV file written with a UTF-8 byte-order mark (for spreadsheets)")
 	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
 	f.BoolVar(&o.timings, "timings", false, "print how long each stage took to stderr")
 	return c
@@ -303,11 +307,12 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 	if err != nil {
 		return err
 	}
-	outs := &outputs{stdout: stdout}
+	outs := &outputs{stdout: stdout, bom: o.csvBOM}
 	jsonF := outs.add("--json", o.jsonOut)
 	csvF := outs.add("--points-csv", o.csvOut)
 	geoF := outs.add("--points-geojson", o.geojsonOut)
 	mpsF := outs.add("--model-mps", o.mpsOut)
+	estF := outs.add("--estimate-csv", o.estimateCSV)
 	if err := outs.check(inputs); err != nil {
 		return err
 	}
@@ -375,7 +380,7 @@ func runPlan(ctx context.Context, cfg Config, o *planOptions, args []string, std
 	for _, w := range []struct {
 		out    *output
 		render func(io.Writer, *plan.Plan) error
-	}{{jsonF, report.JSON}, {csvF, report.PointsCSV}, {geoF, report.GeoJSON}} {
+	}{{jsonF, report.JSON}, {csvF, report.PointsCSV}, {geoF, report.GeoJSON}, {estF, report.EstimateCSV}} {
 		if w.out == nil {
 			continue
 		}

@@ -9,19 +9,22 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"github.com/rigmix/rigmix/internal/money"
 	"github.com/rigmix/rigmix/optimizer/plan"
 	"github.com/rigmix/rigmix/optimizer/report"
 	"github.com/rigmix/rigmix/optimizer/schedule"
 )
 
 type reportOptions struct {
-	demo      string
-	out       string
-	sched     scheduleOptions
-	tradeoffs bool
-	runDate   string
-	quiet     bool
-	jsonOut   string
+	demo        string
+	out         string
+	sched       scheduleOptions
+	tradeoffs   bool
+	runDate     string
+	quiet       bool
+	estimateCSV string
+	csvBOM      bool
+	jsonOut     string
 }
 
 func newReportCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -49,6 +52,8 @@ func newReportCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	f.Float64("gap", 0, "optimality `GAP` of the plan")
 	f.Float64("time-limit", 0, "`SECONDS` for the plan's solve")
 	f.BoolVar(&o.tradeoffs, "tradeoffs", true, "include the alternatives table, the cost–days frontier and the budget–coverage curve")
+	f.StringVar(&o.estimateCSV, "estimate-csv", "", "write the itemized estimate as CSV to `FILE` (- for standard output)")
+	f.BoolVar(&o.csvBOM, "csv-bom", false, "begin every CSV file written with a UTF-8 byte-order mark (for spreadsheets)")
 	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
 	f.StringVar(&o.runDate, "run-date", "", "`DATE` shown as the date of the run (default: today)")
 	o.sched.addCalendarFlags(f)
@@ -66,9 +71,10 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 	if err != nil {
 		return err
 	}
-	outs := &outputs{stdout: stdout}
+	outs := &outputs{stdout: stdout, bom: o.csvBOM}
 	out := outs.add("--out", o.out)
 	jsonF := outs.add("--json", o.jsonOut)
+	estF := outs.add("--estimate-csv", o.estimateCSV)
 	if err := outs.check(inputs); err != nil {
 		return err
 	}
@@ -142,9 +148,16 @@ func runReport(ctx context.Context, cfg Config, o *reportOptions, args []string,
 		}
 		jsonF.setData(j)
 	}
+	if estF != nil {
+		var e bytes.Buffer
+		if err := report.EstimateCSV(&e, p); err != nil {
+			return err
+		}
+		estF.setData(e.Bytes())
+	}
 	prog.end()
-	status := fmt.Sprintf("wrote %s: %d points, %s %.2f, %d field days in the plan; schedule %s to %s\n",
-		o.out, len(p.Points), p.RateBook.Currency, p.Total, p.Finish, s.Start.Format("2006-01-02"), s.Finish.Format("2006-01-02"))
+	status := fmt.Sprintf("wrote %s: %d points, %s, %d field days in the plan; schedule %s to %s\n",
+		o.out, len(p.Points), money.WithCurrency(p.Total, p.RateBook.Currency), p.Finish, s.Start.Format("2006-01-02"), s.Finish.Format("2006-01-02"))
 	if o.quiet {
 		return outs.commit(ctx)
 	}

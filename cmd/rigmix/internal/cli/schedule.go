@@ -38,6 +38,7 @@ type scheduleOptions struct {
 	stakeCSV     string
 	stakeGeoJSON string
 	quiet        bool
+	csvBOM       bool
 	jsonOut      string
 }
 
@@ -69,6 +70,7 @@ func newScheduleCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
 	f.StringVar(&o.csvOut, "csv", "", "write the day-by-day table as CSV to `FILE` (- for standard output)")
 	f.StringVar(&o.ganttOut, "gantt-svg", "", "write a Gantt chart as SVG to `FILE` (- for standard output)")
 	f.StringVar(&o.stakeCSV, "stakeout-csv", "", "write the stakeout list as CSV to `FILE` (- for standard output)")
+	f.BoolVar(&o.csvBOM, "csv-bom", false, "begin every CSV file written with a UTF-8 byte-order mark (for spreadsheets)")
 	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
 	f.StringVar(&o.stakeGeoJSON, "stakeout-geojson", "", "write the stakeout list as GeoJSON to `FILE` (- for standard output)")
 	return c
@@ -165,7 +167,7 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 	if err != nil {
 		return err
 	}
-	outs := &outputs{stdout: stdout}
+	outs := &outputs{stdout: stdout, bom: o.csvBOM}
 	files := []*output{
 		outs.add("--csv", o.csvOut), outs.add("--gantt-svg", o.ganttOut),
 		outs.add("--stakeout-csv", o.stakeCSV), outs.add("--stakeout-geojson", o.stakeGeoJSON),
@@ -241,7 +243,7 @@ func runSchedule(ctx context.Context, cfg Config, o *scheduleOptions, args []str
 			return err
 		}
 		b.WriteString("\nCautions\n")
-		for _, c := range plan.Cautions {
+		for _, c := range planCautions(p) {
 			fmt.Fprintf(&b, "  * %s\n", c)
 		}
 		outs.summary = b.Bytes()
@@ -277,4 +279,13 @@ func (o *scheduleOptions) addCalendarFlags(f *pflag.FlagSet) {
 	f.Uint64Var(&o.seed, "seed", 1, "`SEED` of the weather and production Monte Carlo")
 	f.IntVar(&o.runs, "runs", 1000, "Monte Carlo runs, `N` (at most 1,000,000)")
 	f.Float64Var(&o.cv, "production-cv", 0.2, "coefficient of variation (`CV`) of hours on points")
+}
+
+// planCautions is the cautions that fit the plan; a plan file from
+// elsewhere that carries none gets every caution.
+func planCautions(p *plan.Plan) []string {
+	if len(p.Cautions) == 0 {
+		return plan.Cautions
+	}
+	return p.Cautions
 }

@@ -83,7 +83,7 @@ func scheduleSummaryJSON(p *plan.Plan, sc *scenarios.Scenario, s *schedule.Sched
 			P50StandbyHours: r2(r.P50StandbyHours), P80StandbyHours: r2(r.P80StandbyHours),
 			P50StandbyCost: r2(r.P50StandbyCost), P80StandbyCost: r2(r.P80StandbyCost), MeanStandbyCost: r2(r.MeanStandbyCost),
 		},
-		Cautions: plan.Cautions,
+		Cautions: planCautions(p),
 	}
 	for _, rs := range s.Rigs {
 		out.Rigs = append(out.Rigs, scheduleRigJSON{

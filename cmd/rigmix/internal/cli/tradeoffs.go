@@ -15,7 +15,9 @@ import (
 	"github.com/rigmix/rigmix/optimizer/plan"
 	"github.com/rigmix/rigmix/optimizer/report"
 	"github.com/rigmix/rigmix/optimizer/tradeoff"
+	"github.com/rigmix/rigmix/plugins/sdk"
 	"github.com/rigmix/rigmix/ratebooks"
+	"github.com/rigmix/rigmix/scenarios"
 )
 
 type tradeoffOptions struct {
@@ -33,6 +35,7 @@ type tradeoffOptions struct {
 	frontierN int
 	budgetN   int
 	quiet     bool
+	csvBOM    bool
 }
 
 func newTradeoffsCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command {
@@ -58,6 +61,7 @@ func newTradeoffsCmd(g *globalOptions, stdout, stderr io.Writer) *cobra.Command 
 	f.IntVar(&o.frontierN, "frontier-points", 0, "most points on the cost–days frontier, `N` (at most 100; default 12)")
 	f.IntVar(&o.budgetN, "budget-points", 0, "budgets on the budget–coverage curve, `N` (at most 100; default 8)")
 	f.Float64("gap", 0, "relative `GAP` every solve stops at (default 0.005)")
+	f.BoolVar(&o.csvBOM, "csv-bom", false, "begin every CSV file written with a UTF-8 byte-order mark (for spreadsheets)")
 	f.BoolVar(&o.quiet, "quiet", false, "print nothing but errors")
 	f.StringVar(&o.jsonOut, "json", "", "write the whole analysis as JSON to `FILE` (- for standard output)")
 	f.StringVar(&o.altCSV, "alternatives-csv", "", "write the alternatives table as CSV to `FILE`")
@@ -97,7 +101,7 @@ func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []st
 			}
 		}
 	}
-	outs := &outputs{stdout: stdout}
+	outs := &outputs{stdout: stdout, bom: o.csvBOM}
 	type render func(w io.Writer) error
 	var an *tradeoff.Analysis
 	files := []struct {
@@ -162,7 +166,7 @@ func runTradeoffs(ctx context.Context, cfg Config, o *tradeoffOptions, args []st
 			return err
 		}
 		b.WriteString("\nCautions\n")
-		for _, c := range plan.Cautions {
+		for _, c := range tradeoffCautions(sc, an) {
 			fmt.Fprintf(&b, "  * %s\n", c)
 		}
 		outs.summary = b.Bytes()
@@ -224,4 +228,18 @@ func addTradeoffs(ctx context.Context, hin *report.HTMLInput, pr *plan.Prepared,
 	}
 	hin.FrontierSVG, hin.BudgetSVG = front.Bytes(), budget.Bytes()
 	return nil
+}
+
+// tradeoffCautions is the cautions that fit the alternatives: the test-pit
+// caution when any alternative digs a test pit, the waste caution when the
+// site has an environmental zone.
+func tradeoffCautions(sc *scenarios.Scenario, an *tradeoff.Analysis) []string {
+	pits, env := false, false
+	for _, a := range an.Alternatives {
+		pits = pits || a.PointsByMethod[string(sdk.TestPit)] > 0
+	}
+	for _, z := range sc.Zones {
+		env = env || z.Use == scenarios.UseEnvironmental
+	}
+	return plan.CautionsFor(pits, env)
 }
