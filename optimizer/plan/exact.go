@@ -417,6 +417,9 @@ func (pr *Prepared) completeCoverage(ctx context.Context, res *mip.Result, opt m
 		if o.Start == nil {
 			o.Start = mapStart(cur.Model, next.Model, res.X)
 		}
+		if !deadline.IsZero() {
+			o.TimeLimit = max(time.Until(deadline), time.Millisecond)
+		}
 		cur = next
 		cr.Rounds++
 		tight = o.GapRel <= opt.GapRel
