@@ -4,6 +4,8 @@ import (
 	"context"
 	"fmt"
 	"math"
+	"runtime"
+	"sync"
 
 	"github.com/rigmix/rigmix/optimizer/mip"
 	"github.com/rigmix/rigmix/optimizer/model"
@@ -12,14 +14,14 @@ import (
 // coverNodeLimit bounds the search for each zone's covering number. A node
 // limit, not a time limit, keeps the result the same on every run and every
 // machine.
-const coverNodeLimit = 2000
+const coverNodeLimit = 20000
 
 // recoverNodeLimit bounds the search when a zone's covering number is
 // raised after exact-coverage rows were added (raiseCoverNumbers): the
 // number is then the bound rounded up, still a valid lower bound, and the
 // incumbent is still a cover for the start; the full search there is
 // repeated round after round, so it is kept short.
-const recoverNodeLimit = 50
+const recoverNodeLimit = 200
 
 // coverNumbers computes, for every zone, a lower bound on how many points
 // any plan must place there to meet the spacing rule: the optimum (or the
@@ -65,15 +67,20 @@ func coverNumbers(ctx context.Context, pr *Prepared, spec *model.Spec) ([]int, [
 			ptsByZone[spec.PointZone[p]] = append(ptsByZone[spec.PointZone[p]], p)
 		}
 	}
-	for z := 0; z < nz; z++ {
+	// Zones are independent subproblems: solved side by side, one per
+	// processor, each written to its own slot, so the result is the same
+	// on every run.
+	errs := make([]error, nz)
+	forEachZone(nz, func(z int) {
 		if len(rowsByZone[z]) == 0 {
-			continue
+			return
 		}
-		k, set, err := coverNumber(ctx, spec, z, rowsByZone[z], ptsByZone[z], coverNodeLimit)
+		out[z], sets[z], errs[z] = coverNumber(ctx, spec, z, rowsByZone[z], ptsByZone[z], coverNodeLimit)
+	})
+	for _, err := range errs {
 		if err != nil {
 			return nil, nil, err
 		}
-		out[z], sets[z] = k, set
 	}
 	return out, sets, nil
 }
@@ -145,4 +152,25 @@ func coverNumber(ctx context.Context, spec *model.Spec, z int, rows [][]int, pts
 	default:
 		return int(math.Ceil(res.Bound - 1e-6)), set, nil
 	}
+}
+
+// forEachZone calls fn for zones 0..n-1 on one goroutine per processor;
+// fn must write only its own zone's slots.
+func forEachZone(n int, fn func(z int)) {
+	next := make(chan int)
+	var wg sync.WaitGroup
+	for w := 0; w < max(1, min(runtime.GOMAXPROCS(0), n)); w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for z := range next {
+				fn(z)
+			}
+		}()
+	}
+	for z := 0; z < n; z++ {
+		next <- z
+	}
+	close(next)
+	wg.Wait()
 }

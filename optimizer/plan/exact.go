@@ -3,9 +3,8 @@ package plan
 import (
 	"context"
 	"fmt"
-	"runtime"
+	"math"
 	"slices"
-	"sync"
 	"time"
 
 	"github.com/rigmix/rigmix/optimizer/candidates"
@@ -345,6 +344,23 @@ func (pr *Prepared) completeCoverage(ctx context.Context, res *mip.Result, opt m
 		deadline = time.Now().Add(opt.TimeLimit)
 	}
 	cur := pr
+	// A bound of an earlier round is a bound of every later one: the
+	// later model only adds rows. A round cut short before its own root
+	// bound keeps the best earlier one.
+	best := math.Inf(-1)
+	carry := func(r *mip.Result) {
+		if r == nil || cur.Spec.MaximizeCoverage {
+			return
+		}
+		if !(r.Bound >= best) { // NaN and -Inf too
+			r.Bound = best
+			if r.X != nil && !math.IsInf(best, -1) {
+				r.Gap = math.Max(0, (r.Obj-r.Bound)/math.Max(1, math.Abs(r.Obj)))
+			}
+		}
+		best = math.Max(best, r.Bound)
+	}
+	carry(res)
 	for {
 		if res.X == nil || cur.Spec.MaximizeCoverage {
 			if !tight && res.X == nil && res.Status != mip.Infeasible && ctx.Err() == nil {
@@ -390,6 +406,7 @@ func (pr *Prepared) completeCoverage(ctx context.Context, res *mip.Result, opt m
 			if res, err = mip.Solve(ctx, cur.Model.Problem, o); err != nil {
 				return nil, nil, cr, err
 			}
+			carry(res)
 			continue
 		}
 		if stop {
@@ -426,6 +443,7 @@ func (pr *Prepared) completeCoverage(ctx context.Context, res *mip.Result, opt m
 		if res, err = mip.Solve(ctx, cur.Model.Problem, o); err != nil {
 			return nil, nil, cr, err
 		}
+		carry(res)
 	}
 }
 
@@ -542,22 +560,7 @@ func (pr *Prepared) preloadRows(ctx context.Context) error {
 		}
 		return res
 	}
-	next := make(chan int)
-	var wg sync.WaitGroup
-	for w := 0; w < max(1, min(runtime.GOMAXPROCS(0), nz)); w++ {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for z := range next {
-				results[z] = zoneLoop(z)
-			}
-		}()
-	}
-	for z := 0; z < nz; z++ {
-		next <- z
-	}
-	close(next)
-	wg.Wait()
+	forEachZone(nz, func(z int) { results[z] = zoneLoop(z) })
 	if ctx.Err() != nil {
 		return ctx.Err()
 	}
