@@ -244,22 +244,6 @@ func planZone(i int, z ZoneInput, opt Options) (zonePlan, error) {
 	return zp, nil
 }
 
-// centredOrigin returns the origin of the kind's lattice of spacing s that
-// centres its points in the box: as many rows and columns as fit, with
-// equal margins, so that a strip narrower than s still gets a row down
-// its middle.
-func centredOrigin(kind string, b geom.Rect, s float64) geom.Point {
-	dy := s
-	if kind == geom.Triangular {
-		dy = s * math.Sqrt(3) / 2
-	}
-	off := func(extent, step float64) float64 {
-		m := math.Max(1, math.Ceil(extent/step-1e-9))
-		return (extent - (m-1)*step) / 2
-	}
-	return geom.Point{X: b.Min.X + off(b.Width(), s), Y: b.Min.Y + off(b.Height(), dy)}
-}
-
 // noGoSet answers whether a point lies in a no-go area.
 type noGoSet struct {
 	polys  []geom.Polygon
@@ -336,7 +320,7 @@ func Generate(zones []ZoneInput, noGo []geom.Polygon, opt Options) (*Layout, err
 			pts[k] = c.P
 		}
 		grid := geom.NewGrid(pts, zp.radius)
-		origin := centredOrigin(geom.Square, z.Polygon.Bounds(), zp.cellSpace)
+		origin := geom.CentredOrigin(geom.Square, z.Polygon.Bounds(), zp.cellSpace)
 		cellPts := z.Polygon.Lattice(geom.Square, zp.cellSpace, origin)
 		var areas []float64
 		if len(cellPts) > 0 {
@@ -484,7 +468,7 @@ func zoneCandidates(i int, z ZoneInput, zp zonePlan, ng noGoSet) ([]Candidate, e
 		}
 	}
 	b := z.Polygon.Bounds()
-	for _, p := range z.Polygon.Lattice(zp.kind, zp.candSpace, centredOrigin(zp.kind, b, zp.candSpace)) {
+	for _, p := range z.Polygon.Lattice(zp.kind, zp.candSpace, geom.CentredOrigin(zp.kind, b, zp.candSpace)) {
 		raw = append(raw, Candidate{Zone: i, P: p})
 	}
 	for _, p := range z.Polygon.PointsAlongBoundary(zp.boundStep) {

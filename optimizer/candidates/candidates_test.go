@@ -341,7 +341,7 @@ func TestCellAreasMatchFullClipping(t *testing.T) {
 	}
 	for _, p := range []geom.Polygon{star, {{X: 0, Y: 0}, {X: 300, Y: 0}, {X: 300, Y: 300}, {X: 200, Y: 300}, {X: 200, Y: 100}, {X: 100, Y: 100}, {X: 100, Y: 300}, {X: 0, Y: 300}}} {
 		for _, c := range []float64{13, 25, 61} {
-			o := centredOrigin(geom.Square, p.Bounds(), c)
+			o := geom.CentredOrigin(geom.Square, p.Bounds(), c)
 			centres := p.Lattice(geom.Square, c, o)
 			got := cellAreas(p, centres, c, o)
 			for k, q := range centres {

@@ -145,3 +145,19 @@ func (p Polygon) Lattice(kind string, spacing float64, origin Point) []Point {
 	})
 	return out
 }
+
+// CentredOrigin returns the origin of the kind's lattice of spacing s that
+// centres its points in the box: as many rows and columns as fit, with
+// equal margins, so that a strip narrower than s still gets a row down
+// its middle.
+func CentredOrigin(kind string, b Rect, s float64) Point {
+	dy := s
+	if kind == Triangular {
+		dy = s * math.Sqrt(3) / 2
+	}
+	off := func(extent, step float64) float64 {
+		m := math.Max(1, math.Ceil(extent/step-1e-9))
+		return (extent - (m-1)*step) / 2
+	}
+	return Point{X: b.Min.X + off(b.Width(), s), Y: b.Min.Y + off(b.Height(), dy)}
+}

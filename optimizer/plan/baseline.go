@@ -109,8 +109,8 @@ func handGrid(zn scenarios.Zone) []geom.Point {
 		// Of the grid on the candidates and the grid with equal margins at
 		// s, the person keeps the one with fewer points (shifting a grid
 		// to save a row is common practice); a tie keeps the first.
-		pts := zn.Polygon.Lattice(kind, s, centred(kind, b, s/2))
-		if eq := zn.Polygon.Lattice(kind, s, centred(kind, b, s)); len(eq) < len(pts) {
+		pts := zn.Polygon.Lattice(kind, s, geom.CentredOrigin(kind, b, s/2))
+		if eq := zn.Polygon.Lattice(kind, s, geom.CentredOrigin(kind, b, s)); len(eq) < len(pts) {
 			pts = eq
 		}
 		if len(pts) >= n || zn.Rules.MaxSpacingFt > 0 {
@@ -121,28 +121,13 @@ func handGrid(zn scenarios.Zone) []geom.Point {
 	side := math.Sqrt(zn.Polygon.Area() / float64(n))
 	var pts []geom.Point
 	for k := 0; k < 40 && side > 0; k++ {
-		pts = zn.Polygon.Lattice(geom.Square, side, centred(geom.Square, b, side))
+		pts = zn.Polygon.Lattice(geom.Square, side, geom.CentredOrigin(geom.Square, b, side))
 		if len(pts) >= n {
 			break
 		}
 		side *= 0.9
 	}
 	return pts
-}
-
-// centred is the origin of a lattice of spacing s centred in the box, as
-// many rows and columns as fit with equal margins (the rule
-// candidates.Generate lays its lattice by).
-func centred(kind string, b geom.Rect, s float64) geom.Point {
-	dy := s
-	if kind == geom.Triangular {
-		dy = s * math.Sqrt(3) / 2
-	}
-	off := func(extent, step float64) float64 {
-		m := math.Max(1, math.Ceil(extent/step-1e-9))
-		return (extent - (m-1)*step) / 2
-	}
-	return geom.Point{X: b.Min.X + off(b.Width(), s), Y: b.Min.Y + off(b.Height(), dy)}
 }
 
 // optionKey finds an option by point, method and rig.
