@@ -248,16 +248,10 @@ func (pr *Prepared) ruleChecks(count, sampled []int, minDepth []float64, farthes
 			rc := RuleCheck{Zone: zn.ID, Rule: "max spacing",
 				Required: fmt.Sprintf("every spot of the zone within %.1f ft of a point (%s)", radius, reading),
 				Met:      f.Site >= 0 && f.Dist <= radius+coverTol(radius), Source: r.Source}
-			if f.Site >= 0 {
-				rc.Achieved = fmt.Sprintf("farthest ground %.1f ft from a point, at %s", f.Dist, spotText(f.At))
-				rc.FarthestFt = round(f.Dist, 3)
-				rc.FarthestAt = &XY{XFt: round(f.At.X, 1), YFt: round(f.At.Y, 1)}
-				if neighbour[z] > 0 {
-					rc.Achieved += fmt.Sprintf("; neighbouring points at most %.1f ft apart", neighbour[z])
-					rc.NeighbourFt = round(neighbour[z], 3)
-				}
-			} else {
-				rc.Achieved = "no point in the zone"
+			rc.setFarthest(f)
+			if f.Site >= 0 && neighbour[z] > 0 {
+				rc.Achieved += fmt.Sprintf("; neighbouring points at most %.1f ft apart", neighbour[z])
+				rc.NeighbourFt = round(neighbour[z], 3)
 			}
 			out = append(out, rc)
 		}
@@ -267,13 +261,7 @@ func (pr *Prepared) ruleChecks(count, sampled []int, minDepth []float64, farthes
 				Required: fmt.Sprintf("every spot of the zone within %.1f ft of a point (√(area / %d points); spread: false turns it off)", r, pr.ZoneMin[z]),
 				Met:      f.Site >= 0 && f.Dist <= r+coverTol(r),
 				Origin:   "computed: √(zone area / points required), so a count rule's points are spread (our choice of slack)"}
-			if f.Site >= 0 {
-				rc.Achieved = fmt.Sprintf("farthest ground %.1f ft from a point, at %s", f.Dist, spotText(f.At))
-				rc.FarthestFt = round(f.Dist, 3)
-				rc.FarthestAt = &XY{XFt: round(f.At.X, 1), YFt: round(f.At.Y, 1)}
-			} else {
-				rc.Achieved = "no point in the zone"
-			}
+			rc.setFarthest(f)
 			out = append(out, rc)
 		}
 		if n := pr.ZoneMin[z]; n > 0 {
@@ -312,6 +300,18 @@ func (pr *Prepared) ruleChecks(count, sampled []int, minDepth []float64, farthes
 		}
 	}
 	return out
+}
+
+// setFarthest writes a spacing check's achieved side from the exact
+// farthest ground of its zone.
+func (rc *RuleCheck) setFarthest(f geom.Spot) {
+	if f.Site < 0 {
+		rc.Achieved = "no point in the zone"
+		return
+	}
+	rc.Achieved = fmt.Sprintf("farthest ground %.1f ft from a point, at %s", f.Dist, spotText(f.At))
+	rc.FarthestFt = round(f.Dist, 3)
+	rc.FarthestAt = &XY{XFt: round(f.At.X, 1), YFt: round(f.At.Y, 1)}
 }
 
 func zoneIndex(zs []scenarios.Zone, id string) int {

@@ -47,26 +47,7 @@ func coverNumbers(ctx context.Context, pr *Prepared, spec *model.Spec) ([]int, [
 	nz := len(pr.In.Scenario.Zones)
 	out := make([]int, nz)
 	sets := make([][]int, nz)
-	explorable := make([]bool, spec.NumPoints)
-	for _, op := range spec.Options {
-		explorable[op.Point] = true
-	}
-	rowsByZone := make([][][]int, nz)
-	for _, row := range spec.CoverRows {
-		if len(row) == 0 {
-			continue
-		}
-		z := spec.PointZone[row[0]]
-		rowsByZone[z] = append(rowsByZone[z], row)
-	}
-	// Explorable points by zone, listed once (a scan of every point per
-	// zone would grow with zones × points).
-	ptsByZone := make([][]int, nz)
-	for p := 0; p < spec.NumPoints; p++ {
-		if explorable[p] {
-			ptsByZone[spec.PointZone[p]] = append(ptsByZone[spec.PointZone[p]], p)
-		}
-	}
+	rowsByZone, ptsByZone := coverInputs(spec, nz)
 	// Zones are independent subproblems: solved side by side, one per
 	// processor, each written to its own slot, so the result is the same
 	// on every run.
@@ -83,6 +64,30 @@ func coverNumbers(ctx context.Context, pr *Prepared, spec *model.Spec) ([]int, [
 		}
 	}
 	return out, sets, nil
+}
+
+// coverInputs lists, per zone, its covering rows and its explorable points
+// (each listed once: a scan of every point per zone would grow with zones
+// × points) — what coverNumber takes.
+func coverInputs(spec *model.Spec, nz int) (rowsByZone [][][]int, ptsByZone [][]int) {
+	explorable := make([]bool, spec.NumPoints)
+	for _, op := range spec.Options {
+		explorable[op.Point] = true
+	}
+	rowsByZone = make([][][]int, nz)
+	for _, row := range spec.CoverRows {
+		if len(row) > 0 {
+			z := spec.PointZone[row[0]]
+			rowsByZone[z] = append(rowsByZone[z], row)
+		}
+	}
+	ptsByZone = make([][]int, nz)
+	for p := 0; p < spec.NumPoints; p++ {
+		if explorable[p] {
+			ptsByZone[spec.PointZone[p]] = append(ptsByZone[spec.PointZone[p]], p)
+		}
+	}
+	return rowsByZone, ptsByZone
 }
 
 func coverNumber(ctx context.Context, spec *model.Spec, z int, rows [][]int, pts []int, nodeLimit int) (int, []int, error) {

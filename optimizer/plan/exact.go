@@ -39,12 +39,9 @@ func coverTol(r float64) float64 { return r * 1e-6 }
 
 // CoverageRounds reports the row generation behind a solve.
 type CoverageRounds struct {
-	Rounds        int // solves, the first included
-	RowsAdded     int // covering rows added at spots the measure found
-	PointsAdded   int // candidates added where no candidate reached a spot
-	Unreachable   int // spots beyond reach of any allowed place (in no-go areas)
-	StoppedShort  bool
-	SpotsLeftOver int // spots beyond the radius when the rounds ran out
+	Rounds      int // solves, the first included
+	RowsAdded   int // covering rows added at spots the measure found
+	PointsAdded int // candidates added where no candidate reached a spot
 }
 
 // Ground returns zone z's ground under its spacing rule: the zone polygon
@@ -61,25 +58,22 @@ func (pr *Prepared) Ground(z int) geom.Ground {
 	return g
 }
 
-// zonePoints lists, per zone, the chosen candidates' positions and indices.
-func (pr *Prepared) zonePoints(chosen []bool) ([][]geom.Point, [][]int) {
-	nz := len(pr.In.Scenario.Zones)
-	pts := make([][]geom.Point, nz)
-	idx := make([][]int, nz)
+// zonePoints lists, per zone, the chosen candidates' positions.
+func (pr *Prepared) zonePoints(chosen []bool) [][]geom.Point {
+	pts := make([][]geom.Point, len(pr.In.Scenario.Zones))
 	for q, c := range pr.Layout.Candidates {
 		if q < len(chosen) && chosen[q] {
 			pts[c.Zone] = append(pts[c.Zone], c.P)
-			idx[c.Zone] = append(idx[c.Zone], q)
 		}
 	}
-	return pts, idx
+	return pts
 }
 
 // ExactReach returns, per zone, the farthest spot of its ground from the
 // zone's chosen points (geom.Farthest); zones without a spacing rule get
 // a Spot with Site -1 and Dist 0.
 func (pr *Prepared) ExactReach(chosen []bool) []geom.Spot {
-	pts, _ := pr.zonePoints(chosen)
+	pts := pr.zonePoints(chosen)
 	out := make([]geom.Spot, len(pts))
 	for z := range pts {
 		out[z] = geom.Spot{Site: -1}
@@ -95,7 +89,7 @@ func (pr *Prepared) ExactReach(chosen []bool) []geom.Spot {
 // (geom.NeighbourPairs: Voronoi regions sharing an edge on the ground), 0
 // with fewer than two points.
 func (pr *Prepared) NeighbourFt(chosen []bool) []float64 {
-	pts, _ := pr.zonePoints(chosen)
+	pts := pr.zonePoints(chosen)
 	out := make([]float64, len(pts))
 	for z := range pts {
 		if pr.Layout.RadiusFt[z] == 0 {
@@ -123,7 +117,7 @@ func (pr *Prepared) uncovered(chosen []bool) []zoneSpot {
 
 // uncoveredIn is uncovered for the zones marked in only (nil: all).
 func (pr *Prepared) uncoveredIn(chosen []bool, only []bool) []zoneSpot {
-	pts, _ := pr.zonePoints(chosen)
+	pts := pr.zonePoints(chosen)
 	// Only zones whose spacing rule the model holds: a variant that drops
 	// a zone's rule (a rule cost, the minimal program) drops its rows.
 	active := make([]bool, len(pts))
@@ -154,9 +148,9 @@ func (pr *Prepared) uncoveredIn(chosen []bool, only []bool) []zoneSpot {
 
 // withSpots returns a copy of pr whose model also requires a point within
 // the covering radius of each spot. The copy shares nothing it changes with
-// pr. It returns the number of rows and candidates added, and the spots no
-// allowed place can reach.
-func (pr *Prepared) withSpots(spots []zoneSpot) (*Prepared, int, int, []zoneSpot, error) {
+// pr. It returns the number of rows and candidates added; a spot no
+// allowed place can reach (in a no-go area) gets no row.
+func (pr *Prepared) withSpots(spots []zoneSpot) (*Prepared, int, int, error) {
 	cp := *pr
 	lay := *pr.Layout
 	cp.Layout = &lay
@@ -167,29 +161,13 @@ func (pr *Prepared) withSpots(spots []zoneSpot) (*Prepared, int, int, []zoneSpot
 	for q, c := range lay.Candidates {
 		byZone[c.Zone] = append(byZone[c.Zone], q)
 	}
-	nogo := pr.In.Scenario.NoGo
 	var rows, added int
-	var lost []zoneSpot
 	cloned := false
 	seen := map[string]bool{}
 	for _, s := range spots {
-		r := lay.RadiusFt[s.Zone] * (1 - 1e-9)
-		var row []int
-		for _, q := range byZone[s.Zone] {
-			if lay.Candidates[q].P.Dist(s.At) <= r {
-				row = append(row, q)
-			}
-		}
+		row := cp.rowFor(s, byZone[s.Zone])
 		if len(row) == 0 {
-			inNoGo := false
-			for _, ng := range nogo {
-				if ng.Polygon.Contains(s.At) {
-					inNoGo = true
-					break
-				}
-			}
-			if inNoGo {
-				lost = append(lost, s)
+			if pr.inNoGo(s.At) {
 				continue
 			}
 			q := len(lay.Candidates)
@@ -219,14 +197,14 @@ func (pr *Prepared) withSpots(spots []zoneSpot) (*Prepared, int, int, []zoneSpot
 		rows++
 	}
 	if err := cp.raiseCoverNumbers(&spec, spots); err != nil {
-		return nil, 0, 0, nil, err
+		return nil, 0, 0, err
 	}
 	m, err := model.Build(&spec)
 	if err != nil {
-		return nil, 0, 0, nil, err
+		return nil, 0, 0, err
 	}
 	cp.Model = m
-	return &cp, rows, added, lost, nil
+	return &cp, rows, added, nil
 }
 
 // raiseCoverNumbers recomputes the covering number and least cover of each
@@ -239,25 +217,7 @@ func (pr *Prepared) raiseCoverNumbers(spec *model.Spec, spots []zoneSpot) error 
 	for _, s := range spots {
 		touched[s.Zone] = true
 	}
-	rowsByZone := make([][][]int, len(spec.Zones))
-	for _, row := range spec.CoverRows {
-		if len(row) > 0 {
-			z := spec.PointZone[row[0]]
-			if touched[z] {
-				rowsByZone[z] = append(rowsByZone[z], row)
-			}
-		}
-	}
-	explorable := make([]bool, spec.NumPoints)
-	for _, op := range spec.Options {
-		explorable[op.Point] = true
-	}
-	ptsByZone := make([][]int, len(spec.Zones))
-	for p := 0; p < spec.NumPoints; p++ {
-		if z := spec.PointZone[p]; explorable[p] && touched[z] {
-			ptsByZone[z] = append(ptsByZone[z], p)
-		}
-	}
+	rowsByZone, ptsByZone := coverInputs(spec, len(spec.Zones))
 	spec.Zones = slices.Clone(spec.Zones)
 	pr.CoverMin = slices.Clone(pr.CoverMin)
 	pr.CoverSets = slices.Clone(pr.CoverSets)
@@ -410,16 +370,15 @@ func (pr *Prepared) completeCoverage(ctx context.Context, res *mip.Result, opt m
 			continue
 		}
 		if stop {
-			cr.StoppedShort, cr.SpotsLeftOver = true, len(spots)
+			// The rules table reports the spots left as a rule not met.
 			return cur, res, cr, nil
 		}
-		next, rows, added, lost, err := cur.withSpots(spots)
+		next, rows, added, err := cur.withSpots(spots)
 		if err != nil {
 			return nil, nil, cr, err
 		}
 		cr.RowsAdded += rows
 		cr.PointsAdded += added
-		cr.Unreachable += len(lost)
 		if rows == 0 {
 			// Every spot left lies where no point may go.
 			return cur, res, cr, nil
@@ -457,7 +416,7 @@ func (pr *Prepared) AddSpotRows(x []float64) (*Prepared, int, error) {
 	if len(spots) == 0 {
 		return pr, 0, nil
 	}
-	next, rows, _, _, err := pr.withSpots(spots)
+	next, rows, _, err := pr.withSpots(spots)
 	if err != nil {
 		return nil, 0, err
 	}
@@ -487,17 +446,7 @@ func (pr *Prepared) preloadRows(ctx context.Context) error {
 	for q, c := range pr.Layout.Candidates {
 		byZone[c.Zone] = append(byZone[c.Zone], q)
 	}
-	rowsByZone := make([][][]int, nz)
-	for _, row := range spec.CoverRows {
-		if len(row) > 0 {
-			z := spec.PointZone[row[0]]
-			rowsByZone[z] = append(rowsByZone[z], row)
-		}
-	}
-	explorable := make([]bool, spec.NumPoints)
-	for _, op := range spec.Options {
-		explorable[op.Point] = true
-	}
+	rowsByZone, ptsByZone := coverInputs(spec, nz)
 	// Each zone's loop is its own (its ground, rows and cover touch no
 	// other zone's), so zones run side by side, one per processor; the
 	// results are joined in zone order, the same on every run.
@@ -515,12 +464,7 @@ func (pr *Prepared) preloadRows(ctx context.Context) error {
 		if r == 0 || len(rowsByZone[z]) == 0 || set == nil {
 			return res
 		}
-		var pts []int
-		for _, q := range byZone[z] {
-			if explorable[q] {
-				pts = append(pts, q)
-			}
-		}
+		pts := ptsByZone[z]
 		g := pr.Ground(z)
 		rows := slices.Clone(rowsByZone[z])
 		seen := map[string]bool{}
@@ -608,3 +552,14 @@ func (pr *Prepared) chosen(x []float64) []bool {
 
 // spotText formats a spot for the rules table.
 func spotText(p geom.Point) string { return fmt.Sprintf("(%.1f, %.1f)", p.X, p.Y) }
+
+// inNoGo reports whether q lies in a no-go area (boundary included), where
+// no point may go.
+func (pr *Prepared) inNoGo(q geom.Point) bool {
+	for _, ng := range pr.In.Scenario.NoGo {
+		if ng.Polygon.Contains(q) {
+			return true
+		}
+	}
+	return false
+}

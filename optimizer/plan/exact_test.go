@@ -100,7 +100,7 @@ func checkCoverage(t *testing.T, in Input, steps float64) *Plan {
 	for _, ng := range sc.NoGo {
 		nogo = append(nogo, ng.Polygon)
 	}
-	for z, zn := range sc.Zones {
+	for _, zn := range sc.Zones {
 		n := zn.Rules.MinPoints
 		if zn.Rules.AreaPerPointFt2 > 0 {
 			n = max(n, int(math.Ceil(zn.Polygon.Area()/zn.Rules.AreaPerPointFt2-1e-9)))
@@ -134,7 +134,6 @@ func checkCoverage(t *testing.T, in Input, steps float64) *Plan {
 		if rc.FarthestFt < got-0.08 || rc.FarthestFt > got+1.5*h+0.08 {
 			t.Errorf("zone %s: printed farthest %.3f ft, dense sampling (step %.2f ft) %.3f ft", zn.ID, rc.FarthestFt, h, got)
 		}
-		_ = z
 	}
 	return p
 }
