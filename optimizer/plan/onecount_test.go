@@ -3,6 +3,7 @@ package plan
 import (
 	"context"
 	"fmt"
+	"github.com/rigmix/rigmix/optimizer/geom"
 	"math"
 	"testing"
 	"time"
@@ -126,17 +127,7 @@ func TestOnePriceOneDayCount(t *testing.T) {
 				t.Errorf("lines add to %.2f, total %.2f", sum, p.Total)
 			}
 
-			jobs, specs, err := ScheduleInputs(ctx, p, in.Scenario, in.RateBook, in.Rigs)
-			if err != nil {
-				t.Fatal(err)
-			}
-			s, err := schedule.Build(jobs, specs, schedule.Calendar{
-				Start: time.Date(2027, 3, 1, 0, 0, 0, 0, time.UTC), WorkStart: 7 * time.Hour,
-				HoursPerDay: in.Scenario.HoursDay, StartUpHours: StartUpHours,
-			})
-			if err != nil {
-				t.Fatal(err)
-			}
+			s := scheduleOf(t, p, in)
 			if s.FieldDays != p.Finish {
 				t.Errorf("plan %d field days, schedule %d", p.Finish, s.FieldDays)
 			}
@@ -174,21 +165,50 @@ func TestOnePriceOneDayCount(t *testing.T) {
 			for r, rd := range pr.Rigs {
 				bp.Rigs = append(bp.Rigs, RigPlan{Name: rd.name, MobHours: pr.Spec.Rigs[r].MobHours})
 			}
-			bj, bs, err := ScheduleInputs(ctx, bp, in.Scenario, in.RateBook, in.Rigs)
-			if err != nil {
-				t.Fatal(err)
-			}
-			bsched, err := schedule.Build(bj, bs, schedule.Calendar{
-				Start: time.Date(2027, 3, 1, 0, 0, 0, 0, time.UTC), WorkStart: 7 * time.Hour,
-				HoursPerDay: in.Scenario.HoursDay, StartUpHours: StartUpHours,
-			})
-			if err != nil {
-				t.Fatal(err)
-			}
+			bsched := scheduleOf(t, bp, in)
 			if bsched.FieldDays != b.FieldDays {
 				t.Errorf("baseline %d field days, its schedule %d", b.FieldDays, bsched.FieldDays)
+			}
+			// The baseline meets the spacing rules it claims to, checked by
+			// dense sampling (sampledGap, written apart from the measure).
+			var nogo []geom.Polygon
+			for _, ng := range in.Scenario.NoGo {
+				nogo = append(nogo, ng.Polygon)
+			}
+			for z, zn := range in.Scenario.Zones {
+				r := pr.Layout.RadiusFt[z]
+				if r == 0 {
+					continue
+				}
+				var pts []geom.Point
+				for _, bpt := range bp.Points {
+					if bpt.Zone == zn.ID {
+						pts = append(pts, geom.Point{X: bpt.XFt, Y: bpt.YFt})
+					}
+				}
+				if gap, at := sampledGap(zn.Polygon, nogo, pts, r/20); gap > r+1e-6 {
+					t.Errorf("baseline, zone %s: ground at (%.1f, %.1f) is %.2f ft from its points; the rule allows %.2f", zn.ID, at.X, at.Y, gap, r)
+				}
 			}
 			t.Logf("%s: USD %.2f, %d field days; baseline USD %.2f, %d days, saving %.2f (%.1f %%)", name, p.Total, p.Finish, b.Cost, b.FieldDays, b.Saving, b.SavingPct)
 		})
 	}
+}
+
+// scheduleOf lays a plan's days with the scheduler, from 2027-03-01 at
+// 07:00 with the scenario's working hours and the plan's start-up.
+func scheduleOf(t *testing.T, p *Plan, in Input) *schedule.Schedule {
+	t.Helper()
+	jobs, specs, err := ScheduleInputs(context.Background(), p, in.Scenario, in.RateBook, in.Rigs)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s, err := schedule.Build(jobs, specs, schedule.Calendar{
+		Start: time.Date(2027, 3, 1, 0, 0, 0, 0, time.UTC), WorkStart: 7 * time.Hour,
+		HoursPerDay: in.Scenario.HoursDay, StartUpHours: StartUpHours,
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return s
 }
